@@ -1,0 +1,183 @@
+//! `turnstack bobbins` and `turnstack wires`.
+
+use super::{EXIT_BAD_INPUT, emit};
+use crate::engine::resistance::ohm_per_m;
+use crate::files::{BobbinLibrary, BobbinOrigin, user_bobbin_dir};
+use crate::library::wires::catalogue;
+use crate::model::Tube;
+use crate::report::text::truncate;
+use serde_json::json;
+use std::fmt::Write as _;
+use std::process::ExitCode;
+
+pub fn bobbins(as_json: bool) -> ExitCode {
+    let entries = BobbinLibrary::standard().entries();
+    if as_json {
+        let list: Vec<_> = entries
+            .iter()
+            .map(|e| match &e.bobbin {
+                Ok(b) => json!({
+                    "id": e.id, "origin": e.origin.label(), "name": b.name,
+                    "window_width_mm": b.window.width_mm, "window_height_mm": b.window.height_mm,
+                    "ae_mm2": b.core.as_ref().map(|c| c.ae_mm2),
+                }),
+                Err(err) => {
+                    json!({"id": e.id, "origin": e.origin.label(), "error": err.to_string()})
+                }
+            })
+            .collect();
+        let mut s = serde_json::to_string_pretty(&list).unwrap_or_default();
+        s.push('\n');
+        return if emit(&s) {
+            ExitCode::SUCCESS
+        } else {
+            ExitCode::from(EXIT_BAD_INPUT)
+        };
+    }
+    let mut o = String::new();
+    let _ = writeln!(
+        o,
+        "{:<14} {:<9} {:>7} {:>7}  {:<13} {:>6}  name",
+        "id", "from", "width", "height", "tube", "Ae"
+    );
+    let _ = writeln!(
+        o,
+        "{:<14} {:<9} {:>7} {:>7}  {:<13} {:>6}",
+        "", "", "mm", "mm", "mm", "mm2"
+    );
+    let mut broken = false;
+    for e in &entries {
+        match &e.bobbin {
+            Ok(b) => {
+                let tube = match b.tube {
+                    Tube::Rect {
+                        width_mm, depth_mm, ..
+                    } => format!("{width_mm:.1} x {depth_mm:.1}"),
+                    Tube::Round { diameter_mm } => format!("dia {diameter_mm:.1}"),
+                };
+                let ae = b
+                    .core
+                    .as_ref()
+                    .map_or("-".to_string(), |c| format!("{:.1}", c.ae_mm2));
+                let _ = writeln!(
+                    o,
+                    "{:<14} {:<9} {:>7.2} {:>7.2}  {:<13} {:>6}  {}",
+                    truncate(&e.id, 14),
+                    e.origin.label(),
+                    b.window.width_mm,
+                    b.window.height_mm,
+                    tube,
+                    ae,
+                    truncate(&b.name, 20)
+                );
+            }
+            Err(err) => {
+                broken = true;
+                let _ = writeln!(
+                    o,
+                    "{:<14} {:<9} cannot be read: {err}",
+                    truncate(&e.id, 14),
+                    e.origin.label()
+                );
+            }
+        }
+    }
+    match user_bobbin_dir() {
+        Some(d) => {
+            let note = if entries
+                .iter()
+                .any(|e| matches!(e.origin, BobbinOrigin::User(_)))
+            {
+                ""
+            } else {
+                " (none yet)"
+            };
+            let _ = writeln!(o, "\nyour bobbins: {}{note}", d.display());
+        }
+        None => {
+            let _ = writeln!(
+                o,
+                "\nyour bobbins: no data directory on this system; set TURNSTACK_BOBBINS"
+            );
+        }
+    }
+    let _ = writeln!(
+        o,
+        "bundled figures are typical for the size: measure your own bobbin before trusting a fit"
+    );
+    if !emit(&o) {
+        return ExitCode::from(EXIT_BAD_INPUT);
+    }
+    if broken {
+        ExitCode::from(EXIT_BAD_INPUT)
+    } else {
+        ExitCode::SUCCESS
+    }
+}
+
+pub fn wires(as_json: bool) -> ExitCode {
+    let rows = catalogue();
+    if as_json {
+        let list: Vec<_> = rows
+            .iter()
+            .map(|r| {
+                json!({
+                    "wire": r.size.key(), "bare_mm": r.bare_mm,
+                    "od_grade1_mm": r.od_mm[0], "od_grade2_mm": r.od_mm[1],
+                    "od_grade3_mm": r.od_mm[2], "od_tiw_mm": r.od_mm[3],
+                    "ohm_per_m_20c": ohm_per_m(r.bare_mm, 1, 20.0),
+                    "confirmed": r.confirmed,
+                })
+            })
+            .collect();
+        let mut s = serde_json::to_string_pretty(&list).unwrap_or_default();
+        s.push('\n');
+        return if emit(&s) {
+            ExitCode::SUCCESS
+        } else {
+            ExitCode::from(EXIT_BAD_INPUT)
+        };
+    }
+    let mut o = String::new();
+    let _ = writeln!(
+        o,
+        "{:<9} {:>8} {:>8} {:>8} {:>8} {:>8} {:>10}",
+        "wire", "bare", "grade 1", "grade 2", "grade 3", "TIW", "ohm/m"
+    );
+    let _ = writeln!(
+        o,
+        "{:<9} {:>8} {:>8} {:>8} {:>8} {:>8} {:>10}",
+        "", "mm", "od mm", "od mm", "od mm", "od mm", "at 20 C"
+    );
+    for r in &rows {
+        let mark = if r.confirmed { " *" } else { "" };
+        let _ = writeln!(
+            o,
+            "{:<9} {:>8.4} {:>8.3} {:>8.3} {:>8.3} {:>8.3} {:>10.4}{mark}",
+            r.size.key().unwrap_or_default(),
+            r.bare_mm,
+            r.od_mm[0],
+            r.od_mm[1],
+            r.od_mm[2],
+            r.od_mm[3],
+            ohm_per_m(r.bare_mm, 1, 20.0)
+        );
+    }
+    let _ = writeln!(
+        o,
+        "\nAWG bare diameters: ASTM B258 formula. Metric overall diameters: IEC 60317-0-1 maxima;"
+    );
+    let _ = writeln!(
+        o,
+        "* = row read in the standard's table, others from memory; AWG and in-between sizes by rule."
+    );
+    let _ = writeln!(
+        o,
+        "TIW: typical figures (bare + 0.2 mm). Resistance: IEC 60028 annealed copper."
+    );
+    if emit(&o) {
+        ExitCode::SUCCESS
+    } else {
+        ExitCode::from(EXIT_BAD_INPUT)
+    }
+}

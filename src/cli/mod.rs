@@ -1,0 +1,88 @@
+//! The command line: arguments into plain settings, then the command; exit codes a script can
+//! use (0 fits, 1 valid but does not fit, 2 the input is wrong).
+
+mod args;
+mod lists;
+
+pub use args::{Cli, Command};
+
+use crate::engine::evaluate;
+use crate::files::{LoadError, load_build};
+use crate::library::demo::demo_build;
+use crate::model::Build;
+use crate::report;
+use clap::Parser;
+use std::io::Write;
+use std::path::Path;
+use std::process::ExitCode;
+
+pub const EXIT_FITS: u8 = 0;
+pub const EXIT_DOES_NOT_FIT: u8 = 1;
+pub const EXIT_BAD_INPUT: u8 = 2;
+
+/// Entry point of the binary.
+pub fn main() -> ExitCode {
+    let cli = Cli::parse();
+    match cli.command {
+        None => crate::cli::run_editor(None),
+        Some(Command::Check { file, json }) => check(file.as_deref(), json),
+        Some(Command::Bobbins { json }) => lists::bobbins(json),
+        Some(Command::Wires { json }) => lists::wires(json),
+        Some(Command::Edit { file }) => crate::cli::run_editor(Some(&file)),
+    }
+}
+
+/// Print to stdout; a closed pipe (`| head`) is not an error.
+pub(crate) fn emit(text: &str) -> bool {
+    let mut out = std::io::stdout().lock();
+    match out.write_all(text.as_bytes()).and_then(|()| out.flush()) {
+        Ok(()) => true,
+        Err(e) if e.kind() == std::io::ErrorKind::BrokenPipe => true,
+        Err(e) => {
+            eprintln!("turnstack: cannot write the output: {e}");
+            false
+        }
+    }
+}
+
+pub(crate) fn fail(e: &LoadError) -> ExitCode {
+    eprintln!("turnstack: {}", e.with_snippet());
+    ExitCode::from(EXIT_BAD_INPUT)
+}
+
+/// The build of a file, or the bundled demo when no file is given.
+pub(crate) fn load_or_demo(file: Option<&Path>) -> Result<Build, LoadError> {
+    match file {
+        Some(p) => load_build(p),
+        None => demo_build(),
+    }
+}
+
+fn check(file: Option<&Path>, json: bool) -> ExitCode {
+    let build = match load_or_demo(file) {
+        Ok(b) => b,
+        Err(e) => return fail(&e),
+    };
+    let eval = evaluate(&build);
+    let text = if json {
+        let mut s =
+            serde_json::to_string_pretty(&report::json::report(&build, &eval)).unwrap_or_default();
+        s.push('\n');
+        s
+    } else {
+        report::text::render(&build, &eval)
+    };
+    if !emit(&text) {
+        return ExitCode::from(EXIT_BAD_INPUT);
+    }
+    ExitCode::from(if eval.fits {
+        EXIT_FITS
+    } else {
+        EXIT_DOES_NOT_FIT
+    })
+}
+
+/// Placeholder until the interactive planner lands: print the check report of the build.
+pub fn run_editor(file: Option<&Path>) -> ExitCode {
+    check(file, false)
+}

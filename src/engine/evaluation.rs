@@ -1,0 +1,446 @@
+//! The Evaluation: every figure of a build, computed once, read by every front end.
+
+use super::ac;
+use super::constants::{FIT_TOLERANCE_MM, MM};
+use super::converter::{self, ConverterEval};
+use super::layout::{self, Laid, LaidKind};
+use super::leakage;
+use super::resistance::{area_mm2, ohm_per_m, rho_ohm_m};
+use super::validate::validate;
+use super::warnings;
+use crate::model::{Build, Role};
+
+#[derive(Debug, Clone, PartialEq)]
+pub struct Evaluation {
+    /// `window.width_mm - 2 margin_mm`.
+    pub usable_width_mm: f64,
+    pub window_width_mm: f64,
+    pub window_height_mm: f64,
+    pub build_height_mm: f64,
+    /// Build height x bulge.
+    pub height_with_allowance_mm: f64,
+    pub fits: bool,
+    /// `window_height_mm - height_with_allowance_mm`; negative when it does not fit.
+    pub spare_height_mm: f64,
+    pub fill_factor: f64,
+    pub sections: Vec<SectionEval>,
+    pub windings: Vec<WindingEval>,
+    pub leakage: Vec<LeakageEval>,
+    pub converter: Option<ConverterEval>,
+    pub warnings: Vec<Warning>,
+    /// Remarks that are not warnings (e.g. what the 1-D leakage model cannot see).
+    pub notes: Vec<String>,
+}
+
+#[derive(Debug, Clone, PartialEq)]
+pub struct LayerEval {
+    /// Inner face above the tube surface.
+    pub y_mm: f64,
+    pub height_mm: f64,
+    pub turns: u32,
+    pub mlt_mm: f64,
+    /// Holds fewer than the section's turns per layer.
+    pub partial: bool,
+}
+
+#[derive(Debug, Clone, PartialEq)]
+pub enum SectionKind {
+    Tape {
+        wraps: u32,
+    },
+    Winding {
+        winding: String,
+        with: Option<String>,
+        turns: u32,
+        pitch_mm: f64,
+        turns_per_layer: u32,
+        layer_count: u32,
+        last_layer_turns: u32,
+        layer_height_mm: f64,
+        layer_tape: u32,
+        /// Sum over layers of (turns x MLT) / turns.
+        mlt_mm: f64,
+    },
+}
+
+#[derive(Debug, Clone, PartialEq)]
+pub struct SectionEval {
+    pub kind: SectionKind,
+    /// Inner face above the tube surface.
+    pub y_mm: f64,
+    pub height_mm: f64,
+    pub layers: Vec<LayerEval>,
+    /// Some of the section lies beyond the window height (without the allowance).
+    pub past_window: bool,
+}
+
+#[derive(Debug, Clone, PartialEq)]
+pub struct AcFigures {
+    pub skin_depth_mm: f64,
+    pub ac_factor: f64,
+    pub rac_ohm: f64,
+}
+
+#[derive(Debug, Clone, PartialEq)]
+pub struct WindingEval {
+    pub name: String,
+    pub role: Role,
+    pub turns: u32,
+    pub strands: u32,
+    pub bare_mm: f64,
+    pub od_mm: f64,
+    /// Copper area of all strands together.
+    pub copper_area_mm2: f64,
+    pub length_m: f64,
+    pub mlt_mm: f64,
+    pub dcr_ohm: f64,
+    pub ac: Option<AcFigures>,
+    /// Current density from `current_rms_a`, when given.
+    pub current_density_a_mm2: Option<f64>,
+}
+
+#[derive(Debug, Clone, PartialEq)]
+pub struct LeakageEval {
+    pub from: String,
+    pub to: String,
+    pub referred_to: String,
+    pub uh: f64,
+}
+
+/// What a warning is about, so that every front end can show it next to that thing.
+#[derive(Debug, Clone, PartialEq, Eq)]
+pub enum WarningAt {
+    Build,
+    Section(usize),
+    Winding(usize),
+    Converter,
+}
+
+#[derive(Debug, Clone, PartialEq)]
+pub struct Warning {
+    pub code: &'static str,
+    pub message: String,
+    pub at: WarningAt,
+}
+
+pub(super) fn evaluate(build: &Build) -> Evaluation {
+    let wires = layout::resolved_wires(build);
+    let laid = layout::lay_out(build, &wires);
+    let window = &build.bobbin.window;
+
+    let build_height_mm: f64 = laid.iter().map(|l| l.height_mm).sum();
+    let height_with_allowance_mm = build_height_mm * build.setup.bulge;
+    let fits = height_with_allowance_mm <= window.height_mm + FIT_TOLERANCE_MM;
+
+    let sections = laid
+        .iter()
+        .map(|l| section_eval(build, l, window.height_mm))
+        .collect();
+
+    // Lengths: every layer a winding appears in, as `winding` or as bifilar `with`.
+    let mut length_mm = vec![0.0; build.windings.len()];
+    for l in &laid {
+        if let LaidKind::Winding {
+            winding,
+            with,
+            layers,
+            ..
+        } = &l.kind
+        {
+            for k in [*winding, *with].into_iter().flatten() {
+                length_mm[k] += layers
+                    .iter()
+                    .map(|ly| f64::from(ly.turns) * ly.mlt_mm)
+                    .sum::<f64>();
+            }
+        }
+    }
+    let mut windings: Vec<WindingEval> = build
+        .windings
+        .iter()
+        .enumerate()
+        .map(|(i, w)| {
+            let copper_area_mm2 = f64::from(w.strands) * area_mm2(wires[i].bare_mm);
+            let length_m = length_mm[i] * MM;
+            WindingEval {
+                name: w.name.clone(),
+                role: w.role,
+                turns: w.turns,
+                strands: w.strands,
+                bare_mm: wires[i].bare_mm,
+                od_mm: wires[i].od_mm,
+                copper_area_mm2,
+                length_m,
+                mlt_mm: if w.turns > 0 {
+                    length_mm[i] / f64::from(w.turns)
+                } else {
+                    0.0
+                },
+                dcr_ohm: ohm_per_m(wires[i].bare_mm, w.strands, build.setup.temperature_c)
+                    * length_m,
+                ac: None,
+                current_density_a_mm2: w.current_rms_a.map(|a| a / copper_area_mm2),
+            }
+        })
+        .collect();
+
+    let window_area = window.width_mm * window.height_mm;
+    let fill_factor = if window_area > 0.0 {
+        build
+            .windings
+            .iter()
+            .zip(&windings)
+            .map(|(w, e)| f64::from(w.turns) * e.copper_area_mm2)
+            .sum::<f64>()
+            / window_area
+    } else {
+        0.0
+    };
+
+    let leakage = leakage_pairs(build, &laid);
+    let mut ac_warnings = Vec::new();
+    if let Some(f_khz) = build.setup.frequency_khz {
+        ac_figures(build, &laid, &wires, f_khz, &mut windings, &mut ac_warnings);
+    }
+
+    let converter = if validate(build).is_empty() {
+        converter::evaluate(build)
+    } else {
+        None
+    };
+
+    let mut eval = Evaluation {
+        usable_width_mm: layout::usable_width_mm(build),
+        window_width_mm: window.width_mm,
+        window_height_mm: window.height_mm,
+        build_height_mm,
+        height_with_allowance_mm,
+        fits,
+        spare_height_mm: window.height_mm - height_with_allowance_mm,
+        fill_factor,
+        sections,
+        windings,
+        leakage,
+        converter,
+        warnings: Vec::new(),
+        notes: Vec::new(),
+    };
+    warnings::collect(build, &mut eval);
+    eval.warnings.extend(ac_warnings);
+    eval
+}
+
+fn section_eval(build: &Build, l: &Laid, window_height_mm: f64) -> SectionEval {
+    let past_window = l.y_mm + l.height_mm > window_height_mm + FIT_TOLERANCE_MM;
+    match &l.kind {
+        LaidKind::Tape { wraps } => SectionEval {
+            kind: SectionKind::Tape { wraps: *wraps },
+            y_mm: l.y_mm,
+            height_mm: l.height_mm,
+            layers: Vec::new(),
+            past_window,
+        },
+        LaidKind::Winding {
+            winding,
+            with,
+            turns,
+            pitch_mm,
+            turns_per_layer,
+            layer_height_mm,
+            layer_tape,
+            layers,
+        } => {
+            let name = |i: Option<usize>| i.map(|i| build.windings[i].name.clone());
+            let weighted: f64 = layers
+                .iter()
+                .map(|ly| f64::from(ly.turns) * ly.mlt_mm)
+                .sum();
+            SectionEval {
+                kind: SectionKind::Winding {
+                    winding: name(*winding).unwrap_or_default(),
+                    with: name(*with),
+                    turns: *turns,
+                    pitch_mm: *pitch_mm,
+                    turns_per_layer: *turns_per_layer,
+                    layer_count: layers.len() as u32,
+                    last_layer_turns: layers.last().map_or(0, |ly| ly.turns),
+                    layer_height_mm: *layer_height_mm,
+                    layer_tape: *layer_tape,
+                    mlt_mm: if *turns > 0 {
+                        weighted / f64::from(*turns)
+                    } else {
+                        0.0
+                    },
+                },
+                y_mm: l.y_mm,
+                height_mm: l.height_mm,
+                layers: layers
+                    .iter()
+                    .map(|ly| LayerEval {
+                        y_mm: ly.y_mm,
+                        height_mm: ly.height_mm,
+                        turns: ly.turns,
+                        mlt_mm: ly.mlt_mm,
+                        partial: ly.turns < *turns_per_layer,
+                    })
+                    .collect(),
+                past_window,
+            }
+        }
+    }
+}
+
+/// Every primary-secondary and primary-reset pair, referred to the primary.
+fn leakage_pairs(build: &Build, laid: &[Laid]) -> Vec<LeakageEval> {
+    let mut out = Vec::new();
+    for (pi, p) in build
+        .windings
+        .iter()
+        .enumerate()
+        .filter(|(_, w)| w.role == Role::Primary)
+    {
+        for role in [Role::Secondary, Role::Reset] {
+            for (oi, o) in build
+                .windings
+                .iter()
+                .enumerate()
+                .filter(|(_, w)| w.role == role)
+            {
+                let l_h = leakage::leakage_h(
+                    laid,
+                    &build.bobbin.tube,
+                    build.bobbin.window.width_mm,
+                    build.windings.len(),
+                    (pi, p.turns),
+                    (oi, o.turns),
+                );
+                out.push(LeakageEval {
+                    from: p.name.clone(),
+                    to: o.name.clone(),
+                    referred_to: p.name.clone(),
+                    uh: l_h * 1e6,
+                });
+            }
+        }
+    }
+    out
+}
+
+/// AC factors per the spec: the first primary and first secondary under their leakage
+/// excitation, every other winding section by section from zero MMF.
+fn ac_figures(
+    build: &Build,
+    laid: &[Laid],
+    wires: &[crate::library::wires::ResolvedWire],
+    f_khz: f64,
+    windings: &mut [WindingEval],
+    warnings: &mut Vec<Warning>,
+) {
+    let n = build.windings.len();
+    let delta_mm = ac::skin_depth_m(rho_ohm_m(build.setup.temperature_c), f_khz * 1e3) / MM;
+    let b_w = build.bobbin.window.width_mm;
+    let p = build.windings.iter().position(|w| w.role == Role::Primary);
+    let s = build
+        .windings
+        .iter()
+        .position(|w| w.role == Role::Secondary);
+
+    // Per winding: sum of (layer length x factor) and sum of layer lengths.
+    let mut weighted = vec![0.0; n];
+    let mut total = vec![0.0; n];
+    let mut skip = vec![false; n];
+    let mut layer_into = |k: usize, d: f64, f_a: f64, f_b: f64, length: f64| {
+        weighted[k] += ac::layer_factor(d, f_a, f_b) * length;
+        total[k] += length;
+    };
+    let d_of = |k: usize, turns: u32| {
+        let conductors = f64::from(turns) * f64::from(build.windings[k].strands.max(1));
+        ac::layer_d(conductors, wires[k].bare_mm, b_w, delta_mm)
+    };
+
+    let mut paired = vec![false; n];
+    if let (Some(p), Some(s)) = (p, s) {
+        let bifilar_ps = laid.iter().any(|l| {
+            matches!(&l.kind, LaidKind::Winding { winding: Some(a), with: Some(b), .. }
+                if (*a == p && *b == s) || (*a == s && *b == p))
+        });
+        if bifilar_ps {
+            skip[p] = true;
+            skip[s] = true;
+            warnings.push(Warning {
+                code: "ac-bifilar-ps",
+                message: format!(
+                    "\"{}\" and \"{}\" are wound bifilar together: the layer model cannot give them AC figures",
+                    build.windings[p].name, build.windings[s].name
+                ),
+                at: WarningAt::Winding(p),
+            });
+        } else {
+            paired[p] = true;
+            paired[s] = true;
+            let mut weights = vec![0.0; n];
+            weights[p] = 1.0;
+            weights[s] =
+                -f64::from(build.windings[p].turns) / f64::from(build.windings[s].turns.max(1));
+            for slab in leakage::mmf_profile(laid, &weights) {
+                let Some((si, li)) = slab.layer else { continue };
+                let LaidKind::Winding {
+                    winding,
+                    with,
+                    layers,
+                    ..
+                } = &laid[si].kind
+                else {
+                    continue;
+                };
+                let layer = &layers[li];
+                // A bifilar partner other than P or S carries nothing in this excitation, so
+                // the slab's faces are this winding's own MMF.
+                for k in [*winding, *with]
+                    .into_iter()
+                    .flatten()
+                    .filter(|&k| k == p || k == s)
+                {
+                    let length = f64::from(layer.turns) * layer.mlt_mm;
+                    layer_into(k, d_of(k, layer.turns), slab.f_a, slab.f_b, length);
+                }
+            }
+        }
+    }
+    // Every other winding: each of its sections alone, from zero MMF at the section's face.
+    for l in laid {
+        let LaidKind::Winding {
+            winding,
+            with,
+            layers,
+            ..
+        } = &l.kind
+        else {
+            continue;
+        };
+        for k in [*winding, *with]
+            .into_iter()
+            .flatten()
+            .filter(|&k| !paired[k] && !skip[k])
+        {
+            let mut f = 0.0;
+            for layer in layers {
+                let f_b = f + f64::from(layer.turns);
+                let length = f64::from(layer.turns) * layer.mlt_mm;
+                layer_into(k, d_of(k, layer.turns), f, f_b, length);
+                f = f_b;
+            }
+        }
+    }
+    for (k, w) in windings.iter_mut().enumerate() {
+        if skip[k] || total[k] <= 0.0 {
+            continue;
+        }
+        let ac_factor = weighted[k] / total[k];
+        w.ac = Some(AcFigures {
+            skin_depth_mm: delta_mm,
+            ac_factor,
+            rac_ohm: ac_factor * w.dcr_ohm,
+        });
+    }
+}

@@ -1,0 +1,141 @@
+//! Turns into layers: turns per layer, layers, the last layer, heights and MLT per layer.
+
+use super::constants::TURNS_PER_LAYER_EPS;
+use super::geometry::mlt_at_mm;
+use crate::library::wires::{self, ResolvedWire};
+use crate::model::{Build, Section};
+
+/// One layer of a winding section, as laid.
+#[derive(Debug, Clone, PartialEq)]
+pub struct Layer {
+    /// Height of the layer's inner face above the tube surface.
+    pub y_mm: f64,
+    pub height_mm: f64,
+    /// Turns of the section's winding in this layer (and of `with`, if bifilar).
+    pub turns: u32,
+    /// MLT at the layer's centre.
+    pub mlt_mm: f64,
+}
+
+/// A section as laid in the window.
+#[derive(Debug, Clone, PartialEq)]
+pub struct Laid {
+    pub y_mm: f64,
+    pub height_mm: f64,
+    pub kind: LaidKind,
+}
+
+#[derive(Debug, Clone, PartialEq)]
+pub enum LaidKind {
+    Tape {
+        wraps: u32,
+    },
+    Winding {
+        /// Index into `build.windings`; `None` only for a name validation refuses.
+        winding: Option<usize>,
+        with: Option<usize>,
+        turns: u32,
+        pitch_mm: f64,
+        turns_per_layer: u32,
+        layer_height_mm: f64,
+        layer_tape: u32,
+        layers: Vec<Layer>,
+    },
+}
+
+/// Diameters of every winding's wire, in `build.windings` order.
+pub fn resolved_wires(build: &Build) -> Vec<ResolvedWire> {
+    build
+        .windings
+        .iter()
+        .map(|w| wires::resolve(&w.wire, w.insulation))
+        .collect()
+}
+
+/// Usable width between the margin tapes: `window.width_mm - 2 margin_mm`.
+pub fn usable_width_mm(build: &Build) -> f64 {
+    build.bobbin.window.width_mm - 2.0 * build.setup.margin_mm
+}
+
+/// Turns per layer for a pitch: `floor(w_u / pitch + 1e-9)`; 0 when the wire does not fit.
+pub fn turns_per_layer(usable_width_mm: f64, pitch_mm: f64) -> u32 {
+    if pitch_mm.is_nan() || pitch_mm <= 0.0 || usable_width_mm.is_nan() || usable_width_mm <= 0.0 {
+        return 0;
+    }
+    let n = (usable_width_mm / pitch_mm + TURNS_PER_LAYER_EPS).floor();
+    if n >= f64::from(u32::MAX) {
+        u32::MAX
+    } else {
+        n as u32
+    }
+}
+
+/// Lay out the whole stack, from the tube outward. Unknown windings (refused by validation)
+/// are laid as empty sections so the result stays aligned with `build.stack`.
+pub fn lay_out(build: &Build, wires: &[ResolvedWire]) -> Vec<Laid> {
+    let w_u = usable_width_mm(build);
+    let tape_mm = build.setup.tape_mm;
+    let section_turns = build.section_turns();
+    let mut y = 0.0;
+    let mut out = Vec::with_capacity(build.stack.len());
+    for (section, &turns) in build.stack.iter().zip(&section_turns) {
+        let laid = match section {
+            Section::Tape { wraps } => Laid {
+                y_mm: y,
+                height_mm: f64::from(*wraps) * tape_mm,
+                kind: LaidKind::Tape { wraps: *wraps },
+            },
+            Section::Winding(ws) => {
+                let wi = build.winding_index(&ws.winding);
+                let with = ws.with.as_deref().and_then(|n| build.winding_index(n));
+                let pitch_of =
+                    |i: usize| f64::from(build.windings[i].strands.max(1)) * wires[i].od_mm;
+                let od_of = |i: usize| wires[i].od_mm;
+                let (pitch, layer_h) = match (wi, with) {
+                    (Some(a), Some(b)) => (pitch_of(a) + pitch_of(b), od_of(a).max(od_of(b))),
+                    (Some(a), None) => (pitch_of(a), od_of(a)),
+                    _ => (0.0, 0.0),
+                };
+                let n_l = turns_per_layer(w_u, pitch);
+                let gap = f64::from(ws.layer_tape) * tape_mm;
+                let mut layers = Vec::new();
+                if n_l > 0 && wi.is_some() {
+                    let count = turns.div_ceil(n_l);
+                    for k in 0..count {
+                        let in_layer = if k + 1 == count { turns - k * n_l } else { n_l };
+                        let ly = y + f64::from(k) * (layer_h + gap);
+                        layers.push(Layer {
+                            y_mm: ly,
+                            height_mm: layer_h,
+                            turns: in_layer,
+                            mlt_mm: mlt_at_mm(&build.bobbin.tube, ly + layer_h / 2.0),
+                        });
+                    }
+                }
+                let n = layers.len() as f64;
+                let height = if layers.is_empty() {
+                    0.0
+                } else {
+                    n * layer_h + (n - 1.0) * gap
+                };
+                Laid {
+                    y_mm: y,
+                    height_mm: height,
+                    kind: LaidKind::Winding {
+                        winding: wi,
+                        with,
+                        turns,
+                        pitch_mm: pitch,
+                        turns_per_layer: n_l,
+                        layer_height_mm: layer_h,
+                        layer_tape: ws.layer_tape,
+                        layers,
+                    },
+                }
+            }
+        };
+        y += laid.height_mm;
+        out.push(laid);
+    }
+    out
+}

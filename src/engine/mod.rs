@@ -1,0 +1,28 @@
+//! The pure engine: turns a `Build` into an `Evaluation`. No I/O, no terminal, no clap.
+//! Every figure has its one definition here (see shared/spec/build-format.md and FORMAT.md).
+
+pub mod ac;
+pub mod constants;
+pub mod converter;
+mod evaluation;
+pub mod geometry;
+pub mod layout;
+pub mod leakage;
+pub mod resistance;
+pub mod validate;
+mod warnings;
+
+pub use converter::ConverterEval;
+pub use evaluation::{
+    AcFigures, Evaluation, LayerEval, LeakageEval, SectionEval, SectionKind, Warning, WarningAt,
+    WindingEval,
+};
+pub use validate::{Invalid, Place, validate, validate_bobbin};
+
+use crate::model::Build;
+
+/// Every figure of a build. Total: never panics; a build that `validate` refuses still gets
+/// an evaluation (with an `invalid` warning) so that an editor can keep showing something.
+pub fn evaluate(build: &Build) -> Evaluation {
+    evaluation::evaluate(build)
+}

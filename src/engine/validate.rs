@@ -1,0 +1,431 @@
+//! What makes a build invalid (the spec's validation list), as data with a place, so that the
+//! file loader can point at a line and the editor can refuse an edit with a message.
+
+use super::layout::{resolved_wires, turns_per_layer, usable_width_mm};
+use crate::library::wires::AWG_RANGE;
+use crate::model::{Bobbin, Build, Role, Section, Tube, WireSize};
+use std::fmt;
+
+/// Where in the build a problem lies; the loader maps it to a line and column.
+#[derive(Debug, Clone, PartialEq, Eq)]
+pub enum Place {
+    /// A top-level key.
+    Top(&'static str),
+    /// A key of the bobbin (`window.width_mm`, `tube.diameter_mm`, ...).
+    Bobbin(&'static str),
+    Setup(&'static str),
+    /// A key of the n-th `[[winding]]` (0-based).
+    Winding(usize, &'static str),
+    /// A key of the n-th `[[stack]]` (0-based).
+    Section(usize, &'static str),
+    Operating(&'static str),
+    Material(&'static str),
+}
+
+impl fmt::Display for Place {
+    fn fmt(&self, f: &mut fmt::Formatter<'_>) -> fmt::Result {
+        match self {
+            Place::Top(k) => write!(f, "{k}"),
+            Place::Bobbin(k) => write!(f, "bobbin {k}"),
+            Place::Setup(k) => write!(f, "setup.{k}"),
+            Place::Winding(i, k) => write!(f, "winding #{} {k}", i + 1),
+            Place::Section(i, k) => write!(f, "stack #{} {k}", i + 1),
+            Place::Operating(k) => write!(f, "operating.{k}"),
+            Place::Material(k) => write!(f, "material.{k}"),
+        }
+    }
+}
+
+/// One reason a build is refused.
+#[derive(Debug, Clone, PartialEq)]
+pub struct Invalid {
+    pub place: Place,
+    pub message: String,
+}
+
+impl fmt::Display for Invalid {
+    fn fmt(&self, f: &mut fmt::Formatter<'_>) -> fmt::Result {
+        write!(f, "{}: {}", self.place, self.message)
+    }
+}
+
+fn positive(v: f64) -> bool {
+    v.is_finite() && v > 0.0
+}
+
+/// What makes a bobbin's figures unusable (also checked for bobbin files on their own).
+pub fn validate_bobbin(b: &Bobbin) -> Vec<Invalid> {
+    let mut out = Vec::new();
+    let mut bad = |place: Place, message: String| out.push(Invalid { place, message });
+    for (key, v) in [
+        ("window.width_mm", b.window.width_mm),
+        ("window.height_mm", b.window.height_mm),
+    ] {
+        if !positive(v) {
+            bad(
+                Place::Bobbin(key),
+                format!("must be a positive length in mm, got {v}"),
+            );
+        }
+    }
+    match b.tube {
+        Tube::Rect {
+            width_mm,
+            depth_mm,
+            corner_radius_mm,
+        } => {
+            for (key, v) in [("tube.width_mm", width_mm), ("tube.depth_mm", depth_mm)] {
+                if !positive(v) {
+                    bad(
+                        Place::Bobbin(key),
+                        format!("must be a positive length in mm, got {v}"),
+                    );
+                }
+            }
+            if corner_radius_mm.is_nan()
+                || corner_radius_mm < 0.0
+                || corner_radius_mm > width_mm.min(depth_mm) / 2.0
+            {
+                bad(
+                    Place::Bobbin("tube.corner_radius_mm"),
+                    format!(
+                        "must be between 0 and half the smaller side ({} mm), got {corner_radius_mm}",
+                        width_mm.min(depth_mm) / 2.0
+                    ),
+                );
+            }
+        }
+        Tube::Round { diameter_mm } => {
+            if !positive(diameter_mm) {
+                bad(
+                    Place::Bobbin("tube.diameter_mm"),
+                    format!("must be a positive length in mm, got {diameter_mm}"),
+                );
+            }
+        }
+    }
+    if let Some(core) = &b.core {
+        for (key, v) in [
+            ("core.ae_mm2", Some(core.ae_mm2)),
+            ("core.le_mm", Some(core.le_mm)),
+            ("core.ve_mm3", core.ve_mm3),
+            ("core.al_nh", core.al_nh),
+        ] {
+            if let Some(v) = v
+                && !positive(v)
+            {
+                bad(Place::Bobbin(key), format!("must be positive, got {v}"));
+            }
+        }
+    }
+
+    out
+}
+
+/// Every reason the build is invalid; empty when it is valid.
+pub fn validate(build: &Build) -> Vec<Invalid> {
+    let mut out = Vec::new();
+    out.extend(validate_bobbin(&build.bobbin));
+    let b = &build.bobbin;
+    let mut bad = |place: Place, message: String| out.push(Invalid { place, message });
+
+    // The setup.
+    let s = &build.setup;
+    if !(s.temperature_c.is_finite() && (-60.0..=250.0).contains(&s.temperature_c)) {
+        bad(
+            Place::Setup("temperature_c"),
+            format!(
+                "expected a winding temperature between -60 and 250 C, got {}",
+                s.temperature_c
+            ),
+        );
+    }
+    if !(s.bulge.is_finite() && (1.0..=2.0).contains(&s.bulge)) {
+        bad(
+            Place::Setup("bulge"),
+            format!(
+                "expected an allowance factor between 1.0 and 2.0 (1.10 is usual), got {}",
+                s.bulge
+            ),
+        );
+    }
+    if !(s.margin_mm.is_finite() && s.margin_mm >= 0.0) {
+        bad(
+            Place::Setup("margin_mm"),
+            format!(
+                "must be zero or a positive width in mm, got {}",
+                s.margin_mm
+            ),
+        );
+    } else if positive(b.window.width_mm) && 2.0 * s.margin_mm >= b.window.width_mm {
+        bad(
+            Place::Setup("margin_mm"),
+            format!(
+                "two margins of {} mm leave no width in a {} mm window",
+                s.margin_mm, b.window.width_mm
+            ),
+        );
+    }
+    if !positive(s.tape_mm) {
+        bad(
+            Place::Setup("tape_mm"),
+            format!("must be a positive thickness in mm, got {}", s.tape_mm),
+        );
+    }
+    if let Some(f) = s.frequency_khz
+        && !positive(f)
+    {
+        bad(
+            Place::Setup("frequency_khz"),
+            format!("must be a positive frequency in kHz, got {f}"),
+        );
+    }
+
+    // The windings.
+    if build.windings.is_empty() {
+        bad(
+            Place::Top("winding"),
+            "a build needs at least one [[winding]]".into(),
+        );
+    }
+    for (i, w) in build.windings.iter().enumerate() {
+        if w.name.trim().is_empty() {
+            bad(Place::Winding(i, "name"), "must not be empty".into());
+        }
+        if build.windings[..i].iter().any(|o| o.name == w.name) {
+            bad(
+                Place::Winding(i, "name"),
+                format!(
+                    "\"{}\" is used by an earlier winding; names must be unique",
+                    w.name
+                ),
+            );
+        }
+        if w.turns == 0 {
+            bad(Place::Winding(i, "turns"), "must be at least 1".into());
+        }
+        if w.strands == 0 {
+            bad(Place::Winding(i, "strands"), "must be at least 1".into());
+        }
+        match w.wire {
+            WireSize::Awg(n) if !AWG_RANGE.contains(&n) => bad(
+                Place::Winding(i, "wire"),
+                format!(
+                    "AWG {n} is outside the table (awg{} to awg{})",
+                    AWG_RANGE.start(),
+                    AWG_RANGE.end()
+                ),
+            ),
+            WireSize::Metric { bare_mm } if !(bare_mm > 0.0 && bare_mm <= 5.0) => bad(
+                Place::Winding(i, "wire"),
+                format!("expected a bare diameter above 0 and up to 5 mm, got {bare_mm} mm"),
+            ),
+            WireSize::Measured { bare_mm, od_mm } => {
+                if !positive(bare_mm) || !positive(od_mm) {
+                    bad(
+                        Place::Winding(i, "wire"),
+                        format!("bare_mm and od_mm must be positive, got {bare_mm} and {od_mm}"),
+                    );
+                } else if od_mm < bare_mm {
+                    bad(
+                        Place::Winding(i, "wire"),
+                        format!("od_mm ({od_mm}) is smaller than bare_mm ({bare_mm})"),
+                    );
+                }
+            }
+            _ => {}
+        }
+        if let Some(c) = w.current_rms_a
+            && !(c.is_finite() && c >= 0.0)
+        {
+            bad(
+                Place::Winding(i, "current_rms_a"),
+                format!("must be zero or positive, got {c}"),
+            );
+        }
+    }
+
+    // The stack.
+    if build.stack.is_empty() {
+        bad(
+            Place::Top("stack"),
+            "a build needs at least one [[stack]] section".into(),
+        );
+    }
+    let names: Vec<&str> = build.windings.iter().map(|w| w.name.as_str()).collect();
+    let list = names.join(", ");
+    let turns = build.section_turns();
+    let mut sums = vec![0u64; build.windings.len()];
+    let wires = resolved_wires(build);
+    let w_u = usable_width_mm(build);
+    for (i, section) in build.stack.iter().enumerate() {
+        match section {
+            Section::Tape { wraps } => {
+                if *wraps == 0 {
+                    bad(Place::Section(i, "tape"), "must be at least 1 wrap".into());
+                }
+            }
+            Section::Winding(ws) => {
+                let a = build.winding_index(&ws.winding);
+                if a.is_none() {
+                    bad(
+                        Place::Section(i, "winding"),
+                        format!(
+                            "unknown winding \"{}\"; the windings are {list}",
+                            ws.winding
+                        ),
+                    );
+                }
+                let c = match &ws.with {
+                    Some(n) => {
+                        let c = build.winding_index(n);
+                        if c.is_none() {
+                            bad(
+                                Place::Section(i, "with"),
+                                format!("unknown winding \"{n}\"; the windings are {list}"),
+                            );
+                        } else if c == a {
+                            bad(
+                                Place::Section(i, "with"),
+                                format!("\"{n}\" cannot be wound bifilar with itself"),
+                            );
+                        }
+                        c
+                    }
+                    None => None,
+                };
+                if turns[i] == 0 {
+                    let why = if ws.turns.is_some() {
+                        "must be at least 1".to_string()
+                    } else {
+                        format!("no turns of \"{}\" are left for this section", ws.winding)
+                    };
+                    bad(Place::Section(i, "turns"), why);
+                }
+                for k in [a, c].into_iter().flatten() {
+                    sums[k] += u64::from(turns[i]);
+                }
+                if let Some(a) = a {
+                    let pitch = f64::from(build.windings[a].strands.max(1)) * wires[a].od_mm
+                        + c.filter(|&c| c != a).map_or(0.0, |c| {
+                            f64::from(build.windings[c].strands.max(1)) * wires[c].od_mm
+                        });
+                    if w_u > 0.0 && pitch > 0.0 && turns_per_layer(w_u, pitch) == 0 {
+                        bad(
+                            Place::Section(i, "winding"),
+                            format!(
+                                "one turn needs {pitch:.3} mm of width but only {w_u:.3} mm is usable between the margins"
+                            ),
+                        );
+                    }
+                }
+            }
+        }
+    }
+    for (k, w) in build.windings.iter().enumerate() {
+        if w.turns > 0 && sums[k] != u64::from(w.turns) {
+            let msg = if sums[k] == 0 {
+                format!(
+                    "\"{}\" has {} turns but no [[stack]] section winds it",
+                    w.name, w.turns
+                )
+            } else {
+                format!(
+                    "the sections of \"{}\" add up to {} turns, but the winding has {}",
+                    w.name, sums[k], w.turns
+                )
+            };
+            bad(Place::Winding(k, "turns"), msg);
+        }
+    }
+
+    // The operating point.
+    if let Some(op) = &build.operating {
+        if s.frequency_khz.is_none() {
+            bad(
+                Place::Setup("frequency_khz"),
+                "an [operating] point needs the switching frequency".into(),
+            );
+        }
+        for role in [Role::Primary, Role::Secondary, Role::Reset] {
+            if build.first_of(role).is_none() {
+                bad(
+                    Place::Top("operating"),
+                    format!(
+                        "an [operating] point needs a winding of role \"{}\"",
+                        role.key()
+                    ),
+                );
+            }
+        }
+        for (key, v) in [
+            ("vin_min_v", op.vin_min_v),
+            ("vin_max_v", op.vin_max_v),
+            ("vout_v", op.vout_v),
+        ] {
+            if !positive(v) {
+                bad(
+                    Place::Operating(key),
+                    format!("must be a positive voltage, got {v}"),
+                );
+            }
+        }
+        if op.vin_min_v > op.vin_max_v {
+            bad(
+                Place::Operating("vin_min_v"),
+                format!("is above vin_max_v ({} > {})", op.vin_min_v, op.vin_max_v),
+            );
+        }
+        if !(op.iout_a.is_finite() && op.iout_a >= 0.0) {
+            bad(
+                Place::Operating("iout_a"),
+                format!("must be zero or positive, got {}", op.iout_a),
+            );
+        }
+        if !(op.rectifier_drop_v.is_finite() && op.rectifier_drop_v >= 0.0) {
+            bad(
+                Place::Operating("rectifier_drop_v"),
+                format!("must be zero or positive, got {}", op.rectifier_drop_v),
+            );
+        }
+        if let Some(d) = op.duty_limit
+            && !(d > 0.0 && d < 1.0)
+        {
+            bad(
+                Place::Operating("duty_limit"),
+                format!("expected a fraction between 0 and 1, got {d}"),
+            );
+        }
+    }
+    if let Some(m) = &build.material {
+        if !positive(m.bsat_mt) {
+            bad(
+                Place::Material("bsat_mt"),
+                format!("must be positive, got {}", m.bsat_mt),
+            );
+        }
+        if !(m.br_mt.is_finite() && m.br_mt >= 0.0 && m.br_mt < m.bsat_mt) {
+            bad(
+                Place::Material("br_mt"),
+                format!("expected 0 <= br_mt < bsat_mt, got {}", m.br_mt),
+            );
+        }
+        if let Some(mu) = m.mu_i
+            && !positive(mu)
+        {
+            bad(
+                Place::Material("mu_i"),
+                format!("must be positive, got {mu}"),
+            );
+        }
+        if let Some(st) = m.steinmetz
+            && !(positive(st.k) && positive(st.alpha) && positive(st.beta))
+        {
+            bad(
+                Place::Material("steinmetz"),
+                "k, alpha and beta must all be positive".into(),
+            );
+        }
+    }
+    out
+}

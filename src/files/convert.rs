@@ -1,0 +1,477 @@
+//! From the file shapes to the model: defaults, enumerated words, and the engine's validation,
+//! with every problem pointed at its line and column.
+
+use super::raw::{self, BobbinBody, BobbinField, BuildFile, WireField};
+use super::{BobbinLibrary, LoadError};
+use crate::engine::{Invalid, Place, validate, validate_bobbin};
+use crate::model::{
+    Bobbin, BobbinSource, Build, Core, Insulation, Material, Operating, ResetSide, Role, Section,
+    Setup, Steinmetz, Tube, Winding, WindingSection, Window, WireSize,
+};
+use std::collections::HashMap;
+use std::ops::Range;
+use std::path::Path;
+use toml::Spanned;
+
+type Span = Range<usize>;
+
+/// Spans of the keys validation may point at, by place.
+#[derive(Default)]
+struct Spans {
+    top: HashMap<&'static str, Span>,
+    bobbin: HashMap<&'static str, Span>,
+    setup: HashMap<&'static str, Span>,
+    winding: Vec<HashMap<&'static str, Span>>,
+    section: Vec<HashMap<&'static str, Span>>,
+    operating: HashMap<&'static str, Span>,
+    material: HashMap<&'static str, Span>,
+}
+
+impl Spans {
+    fn of(&self, place: &Place) -> Option<Span> {
+        let pick =
+            |m: &HashMap<&'static str, Span>, k: &str| m.get(k).or_else(|| m.get("")).cloned();
+        match place {
+            Place::Top(k) => self.top.get(k).cloned(),
+            Place::Bobbin(k) => pick(&self.bobbin, k).or_else(|| self.top.get("bobbin").cloned()),
+            Place::Setup(k) => pick(&self.setup, k),
+            Place::Winding(i, k) => self.winding.get(*i).and_then(|m| pick(m, k)),
+            Place::Section(i, k) => self.section.get(*i).and_then(|m| pick(m, k)),
+            Place::Operating(k) => {
+                pick(&self.operating, k).or_else(|| self.top.get("operating").cloned())
+            }
+            Place::Material(k) => {
+                pick(&self.material, k).or_else(|| self.top.get("material").cloned())
+            }
+        }
+    }
+}
+
+struct Ctx<'a> {
+    text: &'a str,
+    path: Option<&'a Path>,
+}
+
+impl Ctx<'_> {
+    fn err(
+        &self,
+        span: Option<Span>,
+        key: impl Into<String>,
+        message: impl Into<String>,
+    ) -> LoadError {
+        LoadError::at(self.text, self.path, span, Some(key.into()), message.into())
+    }
+
+    fn syntax(&self, e: &toml::de::Error) -> LoadError {
+        LoadError::at(
+            self.text,
+            self.path,
+            e.span(),
+            None,
+            e.message().trim().to_string(),
+        )
+    }
+
+    fn invalid(&self, spans: &Spans, problems: &[Invalid]) -> LoadError {
+        let first = &problems[0];
+        let mut message = first.message.clone();
+        if problems.len() > 1 {
+            message.push_str(&format!(
+                " (and {} more problem{})",
+                problems.len() - 1,
+                if problems.len() > 2 { "s" } else { "" }
+            ));
+        }
+        self.err(spans.of(&first.place), first.place.to_string(), message)
+    }
+
+    fn format(&self, format: Option<&Spanned<i64>>, whole: Span) -> Result<(), LoadError> {
+        match format {
+            None => Err(self.err(
+                Some(whole.start..whole.start),
+                "format",
+                "missing key `format`; expected `format = 1`",
+            )),
+            Some(f) if *f.get_ref() != 1 => Err(self.err(
+                Some(f.span()),
+                "format",
+                format!("this program reads format 1, the file says {}", f.get_ref()),
+            )),
+            Some(_) => Ok(()),
+        }
+    }
+}
+
+fn put<T>(m: &mut HashMap<&'static str, Span>, key: &'static str, v: &Spanned<T>) {
+    m.insert(key, v.span());
+}
+
+fn put_opt<T>(m: &mut HashMap<&'static str, Span>, key: &'static str, v: &Option<Spanned<T>>) {
+    if let Some(v) = v {
+        m.insert(key, v.span());
+    }
+}
+
+pub(super) fn bobbin_file(text: &str, path: Option<&Path>) -> Result<Bobbin, LoadError> {
+    let cx = Ctx { text, path };
+    let body: BobbinBody = toml::from_str(text).map_err(|e| cx.syntax(&e))?;
+    cx.format(body.format.as_ref(), 0..0)?;
+    let mut spans = HashMap::new();
+    let bobbin = bobbin_body(&cx, body, &mut spans)?;
+    let problems = validate_bobbin(&bobbin);
+    if !problems.is_empty() {
+        let s = Spans {
+            bobbin: spans,
+            ..Default::default()
+        };
+        return Err(cx.invalid(&s, &problems));
+    }
+    Ok(bobbin)
+}
+
+fn bobbin_body(
+    cx: &Ctx,
+    b: BobbinBody,
+    spans: &mut HashMap<&'static str, Span>,
+) -> Result<Bobbin, LoadError> {
+    put(spans, "window", &b.window);
+    put(spans, "tube", &b.tube);
+    let (window_span, window) = (b.window.span(), b.window.into_inner());
+    spans.insert("window", window_span);
+    put(spans, "window.width_mm", &window.width_mm);
+    put(spans, "window.height_mm", &window.height_mm);
+    let tube_span = b.tube.span();
+    let t = b.tube.into_inner();
+    put_opt(spans, "tube.width_mm", &t.width_mm);
+    put_opt(spans, "tube.depth_mm", &t.depth_mm);
+    put_opt(spans, "tube.corner_radius_mm", &t.corner_radius_mm);
+    put_opt(spans, "tube.diameter_mm", &t.diameter_mm);
+    let need = |v: Option<Spanned<f64>>, key: &str, shape: &str| {
+        v.map(Spanned::into_inner).ok_or_else(|| {
+            cx.err(
+                Some(tube_span.clone()),
+                format!("tube.{key}"),
+                format!("missing key `{key}`: a {shape} tube needs it"),
+            )
+        })
+    };
+    let refuse = |v: &Option<Spanned<f64>>, key: &str, shape: &str| match v {
+        Some(v) => Err(cx.err(
+            Some(v.span()),
+            format!("tube.{key}"),
+            format!("a {shape} tube has no `{key}`"),
+        )),
+        None => Ok(()),
+    };
+    let tube = match t.shape.get_ref().as_str() {
+        "rect" => {
+            refuse(&t.diameter_mm, "diameter_mm", "rect")?;
+            Tube::Rect {
+                width_mm: need(t.width_mm, "width_mm", "rect")?,
+                depth_mm: need(t.depth_mm, "depth_mm", "rect")?,
+                corner_radius_mm: t.corner_radius_mm.map_or(0.0, Spanned::into_inner),
+            }
+        }
+        "round" => {
+            refuse(&t.width_mm, "width_mm", "round")?;
+            refuse(&t.depth_mm, "depth_mm", "round")?;
+            refuse(&t.corner_radius_mm, "corner_radius_mm", "round")?;
+            Tube::Round {
+                diameter_mm: need(t.diameter_mm, "diameter_mm", "round")?,
+            }
+        }
+        other => {
+            return Err(cx.err(
+                Some(t.shape.span()),
+                "tube.shape",
+                format!("unknown tube shape \"{other}\"; expected \"rect\" or \"round\""),
+            ));
+        }
+    };
+    let core = b.core.map(|c| {
+        spans.insert("core", c.span());
+        let c = c.into_inner();
+        put(spans, "core.ae_mm2", &c.ae_mm2);
+        put(spans, "core.le_mm", &c.le_mm);
+        put_opt(spans, "core.ve_mm3", &c.ve_mm3);
+        put_opt(spans, "core.al_nh", &c.al_nh);
+        Core {
+            ae_mm2: c.ae_mm2.into_inner(),
+            le_mm: c.le_mm.into_inner(),
+            ve_mm3: c.ve_mm3.map(Spanned::into_inner),
+            al_nh: c.al_nh.map(Spanned::into_inner),
+        }
+    });
+    if let Some(p) = &b.pins
+        && *p.count.get_ref() == 0
+    {
+        return Err(cx.err(Some(p.count.span()), "pins.count", "must be at least 1"));
+    }
+    Ok(Bobbin {
+        name: b.name.unwrap_or_default(),
+        origin: b.origin.unwrap_or_default(),
+        window: Window {
+            width_mm: window.width_mm.into_inner(),
+            height_mm: window.height_mm.into_inner(),
+        },
+        tube,
+        core,
+        pin_count: b.pins.map(|p| p.count.into_inner()),
+    })
+}
+
+pub(super) fn build(
+    text: &str,
+    path: Option<&Path>,
+    library: &BobbinLibrary,
+) -> Result<Build, LoadError> {
+    let cx = Ctx { text, path };
+    let file: BuildFile = toml::from_str(text).map_err(|e| cx.syntax(&e))?;
+    cx.format(Some(&file.format), 0..0)?;
+    let mut spans = Spans::default();
+    spans.top.insert("format", file.format.span());
+    spans.top.insert("bobbin", file.bobbin.span());
+    spans.top.insert("winding", 0..0);
+    spans.top.insert("stack", 0..0);
+
+    let bobbin_span = file.bobbin.span();
+    let (bobbin_source, bobbin) = match file.bobbin.into_inner() {
+        BobbinField::Id(id) => match library.find(&id) {
+            Some(Ok(b)) => (BobbinSource::Id(id), b),
+            Some(Err(e)) => {
+                return Err(cx.err(
+                    Some(bobbin_span),
+                    "bobbin",
+                    format!("bobbin \"{id}\" cannot be used: {e}"),
+                ));
+            }
+            None => {
+                let ids = library.ids();
+                return Err(cx.err(
+                    Some(bobbin_span),
+                    "bobbin",
+                    format!(
+                        "unknown bobbin id \"{id}\"; the bobbins that exist are: {}",
+                        ids.join(", ")
+                    ),
+                ));
+            }
+        },
+        BobbinField::Inline(body) => (
+            BobbinSource::Inline,
+            bobbin_body(&cx, *body, &mut spans.bobbin)?,
+        ),
+    };
+
+    let setup = match file.setup {
+        None => Setup::default(),
+        Some(s) => {
+            put_opt(&mut spans.setup, "temperature_c", &s.temperature_c);
+            put_opt(&mut spans.setup, "bulge", &s.bulge);
+            put_opt(&mut spans.setup, "margin_mm", &s.margin_mm);
+            put_opt(&mut spans.setup, "tape_mm", &s.tape_mm);
+            put_opt(&mut spans.setup, "frequency_khz", &s.frequency_khz);
+            let d = Setup::default();
+            let v = |x: Option<Spanned<f64>>, default: f64| x.map_or(default, Spanned::into_inner);
+            Setup {
+                temperature_c: v(s.temperature_c, d.temperature_c),
+                bulge: v(s.bulge, d.bulge),
+                margin_mm: v(s.margin_mm, d.margin_mm),
+                tape_mm: v(s.tape_mm, d.tape_mm),
+                frequency_khz: s.frequency_khz.map(Spanned::into_inner),
+            }
+        }
+    };
+
+    let mut windings = Vec::new();
+    for w in file.winding {
+        let mut m = HashMap::new();
+        m.insert("", w.span());
+        let w = w.into_inner();
+        put(&mut m, "name", &w.name);
+        put(&mut m, "turns", &w.turns);
+        put(&mut m, "wire", &w.wire);
+        put_opt(&mut m, "strands", &w.strands);
+        put_opt(&mut m, "current_rms_a", &w.current_rms_a);
+        let index = windings.len() + 1;
+        let role = Role::from_key(w.role.get_ref()).ok_or_else(|| {
+            cx.err(
+                Some(w.role.span()),
+                format!("winding #{index} role"),
+                format!("unknown role \"{}\"; expected \"primary\", \"secondary\", \"reset\" or \"auxiliary\"", w.role.get_ref()),
+            )
+        })?;
+        let insulation = match &w.insulation {
+            None => Insulation::Grade2,
+            Some(g) => Insulation::from_key(g.get_ref()).ok_or_else(|| {
+                cx.err(
+                    Some(g.span()),
+                    format!("winding #{index} insulation"),
+                    format!("unknown insulation \"{}\"; expected \"grade1\", \"grade2\", \"grade3\" or \"tiw\"", g.get_ref()),
+                )
+            })?,
+        };
+        let wire_span = w.wire.span();
+        let wire = match w.wire.into_inner() {
+            WireField::Named(n) => WireSize::parse(&n).ok_or_else(|| {
+                cx.err(
+                    Some(wire_span),
+                    format!("winding #{index} wire"),
+                    format!("unknown wire \"{n}\"; expected \"awgNN\" (e.g. \"awg27\"), a bare diameter like \"0.355mm\", or {{ bare_mm = 0.40, od_mm = 0.452 }}"),
+                )
+            })?,
+            WireField::Measured { bare_mm, od_mm } => WireSize::Measured { bare_mm, od_mm },
+        };
+        spans.winding.push(m);
+        windings.push(Winding {
+            name: w.name.into_inner(),
+            role,
+            turns: w.turns.into_inner(),
+            wire,
+            insulation,
+            strands: w.strands.map_or(1, Spanned::into_inner),
+            current_rms_a: w.current_rms_a.map(Spanned::into_inner),
+            start_pin: w.start_pin.map(|p| p.0),
+            finish_pin: w.finish_pin.map(|p| p.0),
+        });
+    }
+
+    let mut stack = Vec::new();
+    for s in file.stack {
+        let mut m = HashMap::new();
+        m.insert("", s.span());
+        let whole = s.span();
+        let s = s.into_inner();
+        put_opt(&mut m, "winding", &s.winding);
+        put_opt(&mut m, "turns", &s.turns);
+        put_opt(&mut m, "with", &s.with);
+        put_opt(&mut m, "layer_tape", &s.layer_tape);
+        put_opt(&mut m, "tape", &s.tape);
+        let index = stack.len() + 1;
+        let section = match (s.winding, s.tape) {
+            (Some(w), None) => Section::Winding(WindingSection {
+                winding: w.into_inner(),
+                turns: s.turns.map(Spanned::into_inner),
+                with: s.with.map(Spanned::into_inner),
+                layer_tape: s.layer_tape.map_or(0, Spanned::into_inner),
+            }),
+            (None, Some(t)) => {
+                for (key, span) in [
+                    ("turns", s.turns.map(|x| x.span())),
+                    ("with", s.with.map(|x| x.span())),
+                    ("layer_tape", s.layer_tape.map(|x| x.span())),
+                ] {
+                    if let Some(span) = span {
+                        return Err(cx.err(
+                            Some(span),
+                            format!("stack #{index} {key}"),
+                            format!("a tape section takes only `tape`, not `{key}`"),
+                        ));
+                    }
+                }
+                Section::Tape {
+                    wraps: t.into_inner(),
+                }
+            }
+            (Some(_), Some(t)) => {
+                return Err(cx.err(
+                    Some(t.span()),
+                    format!("stack #{index}"),
+                    "a section is either a winding or tape, not both",
+                ));
+            }
+            (None, None) => {
+                return Err(cx.err(
+                    Some(whole),
+                    format!("stack #{index}"),
+                    "missing key: expected `winding = \"name\"` or `tape = wraps`",
+                ));
+            }
+        };
+        spans.section.push(m);
+        stack.push(section);
+    }
+
+    let operating = match file.operating {
+        None => None,
+        Some(o) => {
+            spans.top.insert("operating", o.span());
+            let o = o.into_inner();
+            let sp = &mut spans.operating;
+            put(sp, "vin_min_v", &o.vin_min_v);
+            put(sp, "vin_max_v", &o.vin_max_v);
+            put(sp, "vout_v", &o.vout_v);
+            put(sp, "iout_a", &o.iout_a);
+            put_opt(sp, "rectifier_drop_v", &o.rectifier_drop_v);
+            put_opt(sp, "duty_limit", &o.duty_limit);
+            if let Some(c) = &o.converter
+                && c.get_ref() != "forward"
+            {
+                return Err(cx.err(
+                    Some(c.span()),
+                    "operating.converter",
+                    format!(
+                        "unknown converter \"{}\"; this version knows \"forward\" (single switch)",
+                        c.get_ref()
+                    ),
+                ));
+            }
+            let reset_side = match &o.reset_side {
+                None => ResetSide::Primary,
+                Some(r) => match r.get_ref().as_str() {
+                    "primary" => ResetSide::Primary,
+                    "secondary" => ResetSide::Secondary,
+                    other => {
+                        return Err(cx.err(Some(r.span()), "operating.reset_side", format!("unknown reset side \"{other}\"; expected \"primary\" or \"secondary\"")));
+                    }
+                },
+            };
+            Some(Operating {
+                reset_side,
+                vin_min_v: o.vin_min_v.into_inner(),
+                vin_max_v: o.vin_max_v.into_inner(),
+                vout_v: o.vout_v.into_inner(),
+                iout_a: o.iout_a.into_inner(),
+                rectifier_drop_v: o.rectifier_drop_v.map_or(0.0, Spanned::into_inner),
+                duty_limit: o.duty_limit.map(Spanned::into_inner),
+            })
+        }
+    };
+    let material = file.material.map(|m| {
+        spans.top.insert("material", m.span());
+        let m = m.into_inner();
+        put(&mut spans.material, "bsat_mt", &m.bsat_mt);
+        put(&mut spans.material, "br_mt", &m.br_mt);
+        put_opt(&mut spans.material, "mu_i", &m.mu_i);
+        put_opt(&mut spans.material, "steinmetz", &m.steinmetz);
+        Material {
+            bsat_mt: m.bsat_mt.into_inner(),
+            br_mt: m.br_mt.into_inner(),
+            mu_i: m.mu_i.map(Spanned::into_inner),
+            steinmetz: m.steinmetz.map(|s| {
+                let s: raw::SteinmetzRaw = s.into_inner();
+                Steinmetz {
+                    k: s.k,
+                    alpha: s.alpha,
+                    beta: s.beta,
+                }
+            }),
+        }
+    });
+
+    let build = Build {
+        title: file.title.unwrap_or_default(),
+        bobbin_source,
+        bobbin,
+        setup,
+        windings,
+        stack,
+        operating,
+        material,
+    };
+    let problems = validate(&build);
+    if !problems.is_empty() {
+        return Err(cx.invalid(&spans, &problems));
+    }
+    Ok(build)
+}

@@ -1,0 +1,198 @@
+//! Writing builds and bobbins as tidy, hand-editable TOML, and replacing files atomically.
+
+use crate::model::{Bobbin, BobbinSource, Build, ResetSide, Section, Tube, WireSize};
+use std::fmt::Write as _;
+use std::io::Write as _;
+use std::path::Path;
+
+/// Shortest text that reads back as the same number, always with a decimal point.
+fn num(x: f64) -> String {
+    let s = format!("{x:?}");
+    if s.contains(['.', 'e', 'E']) || !x.is_finite() {
+        s
+    } else {
+        format!("{s}.0")
+    }
+}
+
+fn quote(s: &str) -> String {
+    toml::Value::String(s.to_string()).to_string()
+}
+
+/// Write `text` to `path` by a temporary file in the same folder, synced, then renamed over
+/// the old file: a crash leaves either the old file or the new one, never half of either.
+pub fn write_atomic(path: &Path, text: &str) -> std::io::Result<()> {
+    let dir = match path.parent() {
+        Some(p) if !p.as_os_str().is_empty() => p,
+        _ => Path::new("."),
+    };
+    let mut tmp = tempfile::Builder::new()
+        .prefix(".turnstack-")
+        .suffix(".tmp")
+        .tempfile_in(dir)?;
+    tmp.write_all(text.as_bytes())?;
+    tmp.as_file().sync_all()?;
+    tmp.persist(path).map_err(|e| e.error)?;
+    Ok(())
+}
+
+fn bobbin_keys(out: &mut String, b: &Bobbin, prefix: &str) {
+    if !b.name.is_empty() {
+        let _ = writeln!(out, "name = {}", quote(&b.name));
+    }
+    if !b.origin.is_empty() {
+        let _ = writeln!(out, "origin = {}", quote(&b.origin));
+    }
+    let _ = writeln!(out, "\n[{prefix}window]");
+    let _ = writeln!(out, "width_mm = {}", num(b.window.width_mm));
+    let _ = writeln!(out, "height_mm = {}", num(b.window.height_mm));
+    let _ = writeln!(out, "\n[{prefix}tube]");
+    match b.tube {
+        Tube::Rect {
+            width_mm,
+            depth_mm,
+            corner_radius_mm,
+        } => {
+            let _ = writeln!(out, "shape = \"rect\"");
+            let _ = writeln!(out, "width_mm = {}", num(width_mm));
+            let _ = writeln!(out, "depth_mm = {}", num(depth_mm));
+            let _ = writeln!(out, "corner_radius_mm = {}", num(corner_radius_mm));
+        }
+        Tube::Round { diameter_mm } => {
+            let _ = writeln!(out, "shape = \"round\"");
+            let _ = writeln!(out, "diameter_mm = {}", num(diameter_mm));
+        }
+    }
+    if let Some(c) = &b.core {
+        let _ = writeln!(out, "\n[{prefix}core]");
+        let _ = writeln!(out, "ae_mm2 = {}", num(c.ae_mm2));
+        let _ = writeln!(out, "le_mm = {}", num(c.le_mm));
+        if let Some(v) = c.ve_mm3 {
+            let _ = writeln!(out, "ve_mm3 = {}", num(v));
+        }
+        if let Some(v) = c.al_nh {
+            let _ = writeln!(out, "al_nh = {}", num(v));
+        }
+    }
+    if let Some(n) = b.pin_count {
+        let _ = writeln!(out, "\n[{prefix}pins]\ncount = {n}");
+    }
+}
+
+/// A bobbin file (`format = 1` and the bobbin keys).
+pub fn bobbin_to_toml(b: &Bobbin) -> String {
+    let mut out = String::from("format = 1\n");
+    bobbin_keys(&mut out, b, "");
+    out
+}
+
+/// A build file; reading it back gives the same build.
+pub fn build_to_toml(build: &Build) -> String {
+    let mut out = String::from("format = 1\n");
+    let _ = writeln!(out, "title = {}", quote(&build.title));
+    match &build.bobbin_source {
+        BobbinSource::Id(id) => {
+            let _ = writeln!(out, "bobbin = {}", quote(id));
+        }
+        BobbinSource::Inline => {
+            out.push_str("\n[bobbin]\n");
+            bobbin_keys(&mut out, &build.bobbin, "bobbin.");
+        }
+    }
+    let s = &build.setup;
+    let _ = writeln!(out, "\n[setup]");
+    let _ = writeln!(out, "temperature_c = {}", num(s.temperature_c));
+    let _ = writeln!(out, "bulge = {}", num(s.bulge));
+    let _ = writeln!(out, "margin_mm = {}", num(s.margin_mm));
+    let _ = writeln!(out, "tape_mm = {}", num(s.tape_mm));
+    if let Some(f) = s.frequency_khz {
+        let _ = writeln!(out, "frequency_khz = {}", num(f));
+    }
+    for w in &build.windings {
+        let _ = writeln!(out, "\n[[winding]]");
+        let _ = writeln!(out, "name = {}", quote(&w.name));
+        let _ = writeln!(out, "role = \"{}\"", w.role.key());
+        let _ = writeln!(out, "turns = {}", w.turns);
+        match w.wire {
+            WireSize::Measured { bare_mm, od_mm } => {
+                let _ = writeln!(
+                    out,
+                    "wire = {{ bare_mm = {}, od_mm = {} }}",
+                    num(bare_mm),
+                    num(od_mm)
+                );
+            }
+            other => {
+                let _ = writeln!(out, "wire = {}", quote(&other.key().unwrap_or_default()));
+            }
+        }
+        let _ = writeln!(out, "insulation = \"{}\"", w.insulation.key());
+        if w.strands != 1 {
+            let _ = writeln!(out, "strands = {}", w.strands);
+        }
+        if let Some(c) = w.current_rms_a {
+            let _ = writeln!(out, "current_rms_a = {}", num(c));
+        }
+        if let Some(p) = &w.start_pin {
+            let _ = writeln!(out, "start_pin = {}", quote(p));
+        }
+        if let Some(p) = &w.finish_pin {
+            let _ = writeln!(out, "finish_pin = {}", quote(p));
+        }
+    }
+    for section in &build.stack {
+        let _ = writeln!(out, "\n[[stack]]");
+        match section {
+            Section::Tape { wraps } => {
+                let _ = writeln!(out, "tape = {wraps}");
+            }
+            Section::Winding(ws) => {
+                let _ = writeln!(out, "winding = {}", quote(&ws.winding));
+                if let Some(t) = ws.turns {
+                    let _ = writeln!(out, "turns = {t}");
+                }
+                if let Some(w) = &ws.with {
+                    let _ = writeln!(out, "with = {}", quote(w));
+                }
+                if ws.layer_tape > 0 {
+                    let _ = writeln!(out, "layer_tape = {}", ws.layer_tape);
+                }
+            }
+        }
+    }
+    if let Some(o) = &build.operating {
+        let _ = writeln!(out, "\n[operating]");
+        let _ = writeln!(out, "converter = \"forward\"");
+        let side = match o.reset_side {
+            ResetSide::Primary => "primary",
+            ResetSide::Secondary => "secondary",
+        };
+        let _ = writeln!(out, "reset_side = \"{side}\"");
+        let _ = writeln!(out, "vin_min_v = {}", num(o.vin_min_v));
+        let _ = writeln!(out, "vin_max_v = {}", num(o.vin_max_v));
+        let _ = writeln!(out, "vout_v = {}", num(o.vout_v));
+        let _ = writeln!(out, "iout_a = {}", num(o.iout_a));
+        let _ = writeln!(out, "rectifier_drop_v = {}", num(o.rectifier_drop_v));
+        if let Some(d) = o.duty_limit {
+            let _ = writeln!(out, "duty_limit = {}", num(d));
+        }
+    }
+    if let Some(m) = &build.material {
+        let _ = writeln!(out, "\n[material]");
+        let _ = writeln!(out, "bsat_mt = {}", num(m.bsat_mt));
+        let _ = writeln!(out, "br_mt = {}", num(m.br_mt));
+        if let Some(mu) = m.mu_i {
+            let _ = writeln!(out, "mu_i = {}", num(mu));
+        }
+        if let Some(st) = m.steinmetz {
+            let _ = writeln!(
+                out,
+                "steinmetz = {{ k = {}, alpha = {}, beta = {} }}",
+                num(st.k),
+                num(st.alpha),
+                num(st.beta)
+            );
+        }
+    }
+    out
+}

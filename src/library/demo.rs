@@ -1,0 +1,18 @@
+//! The demo build the program opens with no file: the bench forward converter example,
+//! compiled in so that an installed binary has it.
+
+use crate::files::{BobbinLibrary, LoadError, parse_build};
+use crate::model::Build;
+use std::path::Path;
+
+pub const DEMO_NAME: &str = "examples/bench-forward.toml";
+pub const DEMO_TEXT: &str = include_str!("../../examples/bench-forward.toml");
+
+/// The demo build, its bobbin from the bundled library.
+pub fn demo_build() -> Result<Build, LoadError> {
+    parse_build(
+        DEMO_TEXT,
+        Some(Path::new(DEMO_NAME)),
+        &BobbinLibrary::bundled_only(),
+    )
+}

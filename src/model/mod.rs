@@ -1,0 +1,12 @@
+//! Plain data: the bobbin, the wire, the windings, the stack of sections, the build.
+//! No I/O and no computation beyond trivial accessors; the engine reads these.
+
+mod bobbin;
+mod build;
+mod operating;
+mod wire;
+
+pub use bobbin::{Bobbin, Core, Tube, Window};
+pub use build::{BobbinSource, Build, Role, Section, Setup, Winding, WindingSection};
+pub use operating::{Material, Operating, ResetSide, Steinmetz};
+pub use wire::{Insulation, WireSize, trim_mm};

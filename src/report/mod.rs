@@ -1,0 +1,8 @@
+//! Renderings of an Evaluation: the readable check report, the JSON report and the lists.
+//! They read the Evaluation; they compute no figure of their own.
+
+pub mod json;
+pub mod text;
+mod wrap;
+
+pub use wrap::wrap;
