@@ -62,27 +62,43 @@ impl Ctx<'_> {
         LoadError::at(self.text, self.path, span, Some(key.into()), message.into())
     }
 
+    /// A parse error from the toml library, with the key it is about (read off the line)
+    /// and Rust type names put in words a user knows.
     fn syntax(&self, e: &toml::de::Error) -> LoadError {
-        LoadError::at(
-            self.text,
-            self.path,
-            e.span(),
-            None,
-            e.message().trim().to_string(),
-        )
+        let mut message = e.message().trim().to_string();
+        for (rust, words) in [
+            ("expected u32", "expected a whole number, 0 or more"),
+            ("expected i64", "expected a whole number"),
+            ("expected f64", "expected a number"),
+            ("expected a string", "expected text in quotes"),
+        ] {
+            message = message.replace(rust, words);
+        }
+        let key = e.span().and_then(|span| key_before(self.text, span.start));
+        LoadError::at(self.text, self.path, e.span(), key, message)
     }
 
     fn invalid(&self, spans: &Spans, problems: &[Invalid]) -> LoadError {
         let first = &problems[0];
-        let mut message = first.message.clone();
-        if problems.len() > 1 {
-            message.push_str(&format!(
-                " (and {} more problem{})",
-                problems.len() - 1,
-                if problems.len() > 2 { "s" } else { "" }
-            ));
+        let mut e = self.err(
+            spans.of(&first.place),
+            first.place.to_string(),
+            first.message.clone(),
+        );
+        e.also = problems[1..]
+            .iter()
+            .map(|p| self.located(spans, p))
+            .collect();
+        e
+    }
+
+    /// `line:column: place: message` for a further problem.
+    fn located(&self, spans: &Spans, p: &Invalid) -> String {
+        let e = self.err(spans.of(&p.place), p.place.to_string(), p.message.clone());
+        match (e.line, e.column) {
+            (Some(l), Some(c)) => format!("{l}:{c}: {}: {}", p.place, p.message),
+            _ => p.to_string(),
         }
-        self.err(spans.of(&first.place), first.place.to_string(), message)
     }
 
     fn format(&self, format: Option<&Spanned<i64>>, whole: Span) -> Result<(), LoadError> {
@@ -100,6 +116,17 @@ impl Ctx<'_> {
             Some(_) => Ok(()),
         }
     }
+}
+
+/// The key of a `key = value` line when `offset` lies in its value.
+fn key_before(text: &str, offset: usize) -> Option<String> {
+    let start = text[..offset.min(text.len())]
+        .rfind('\n')
+        .map_or(0, |i| i + 1);
+    let (key, _) = text[start..offset.min(text.len())].split_once('=')?;
+    let key = key.trim();
+    (!key.is_empty() && !key.starts_with('[') && !key.contains(['{', ',', '"']))
+        .then(|| key.to_string())
 }
 
 fn put<T>(m: &mut HashMap<&'static str, Span>, key: &'static str, v: &Spanned<T>) {

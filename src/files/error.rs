@@ -14,6 +14,8 @@ pub struct LoadError {
     pub message: String,
     /// The offending source line, for a caret display.
     pub source_line: Option<String>,
+    /// Further problems found in the same file, one line each.
+    pub also: Vec<String>,
 }
 
 impl std::error::Error for LoadError {}
@@ -31,6 +33,7 @@ impl LoadError {
             key: None,
             message: format!("cannot read the file: {why}"),
             source_line: None,
+            also: Vec::new(),
         }
     }
 
@@ -61,6 +64,7 @@ impl LoadError {
             key,
             message,
             source_line,
+            also: Vec::new(),
         }
     }
 
@@ -74,6 +78,9 @@ impl LoadError {
                 " ".repeat(gutter.len()),
                 " ".repeat(col - 1)
             ));
+        }
+        for more in &self.also {
+            s.push_str(&format!("\nalso: {more}"));
         }
         s
     }
