@@ -1,6 +1,6 @@
 //! The command-line grammar (clap). Plain settings only; the engine never sees these types.
 
-use clap::{Parser, Subcommand};
+use clap::{Parser, Subcommand, ValueEnum};
 use std::path::PathBuf;
 
 /// Plan the hand winding of a small switch-mode transformer, layer by layer, in a real
@@ -31,6 +31,45 @@ pub enum Command {
         /// The build file to open (created from a chosen bobbin when it does not exist).
         file: PathBuf,
     },
+    /// Try wire sizes, strands and section orders for the build's windings on its bobbin and
+    /// list the best trade-offs of copper loss, leakage and spare height.
+    Search {
+        /// The build file; the bundled demo build when left out.
+        file: Option<PathBuf>,
+        /// Wire series to draw sizes from.
+        #[arg(long, value_enum, default_value = "metric")]
+        series: SeriesArg,
+        /// Most strands in parallel to try per winding.
+        #[arg(long, default_value_t = 4)]
+        max_strands: u32,
+        /// Lowest current density allowed (A/mm2 RMS).
+        #[arg(long, default_value_t = 2.0)]
+        j_min: f64,
+        /// Highest current density allowed (A/mm2 RMS).
+        #[arg(long, default_value_t = 6.0)]
+        j_max: f64,
+        /// Tape wraps between the primary side and the secondary side (default: as the build has).
+        #[arg(long)]
+        isolation_wraps: Option<u32>,
+        /// Highest leakage inductance allowed (uH, any primary pair).
+        #[arg(long)]
+        max_leakage_uh: Option<f64>,
+        /// Threads to use.
+        #[arg(long, default_value_t = 2)]
+        threads: usize,
+        /// Evaluate every combination (no pruning); slower, same answer.
+        #[arg(long)]
+        no_prune: bool,
+        /// Write the chosen candidate (see --pick) as a build file.
+        #[arg(long)]
+        out: Option<PathBuf>,
+        /// Which candidate --out writes, 1 = the first listed.
+        #[arg(long, default_value_t = 1)]
+        pick: usize,
+        /// Print JSON.
+        #[arg(long)]
+        json: bool,
+    },
     /// List the bobbins: bundled and your own.
     Bobbins {
         /// Print JSON.
@@ -43,6 +82,12 @@ pub enum Command {
         #[arg(long)]
         json: bool,
     },
+}
+
+#[derive(Debug, Clone, Copy, PartialEq, Eq, ValueEnum)]
+pub enum SeriesArg {
+    Metric,
+    Awg,
 }
 
 #[cfg(test)]

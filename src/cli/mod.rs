@@ -3,6 +3,7 @@
 
 mod args;
 mod lists;
+mod search;
 
 pub use args::{Cli, Command};
 
@@ -29,6 +30,40 @@ pub fn main() -> ExitCode {
         Some(Command::Bobbins { json }) => lists::bobbins(json),
         Some(Command::Wires { json }) => lists::wires(json),
         Some(Command::Edit { file }) => crate::cli::run_editor(Some(&file)),
+        Some(Command::Search {
+            file,
+            series,
+            max_strands,
+            j_min,
+            j_max,
+            isolation_wraps,
+            max_leakage_uh,
+            threads,
+            no_prune,
+            out,
+            pick,
+            json,
+        }) => search::run(&search::SearchArgs {
+            file: file.as_deref(),
+            settings: crate::engine::search::Settings {
+                series: match series {
+                    args::SeriesArg::Metric => crate::engine::search::Series::Metric,
+                    args::SeriesArg::Awg => crate::engine::search::Series::Awg,
+                },
+                max_strands,
+                min_strand_mm: 0.2,
+                j_min_a_mm2: j_min,
+                j_max_a_mm2: j_max,
+                isolation_wraps,
+                section_wraps: 1,
+                max_leakage_uh,
+                prune: !no_prune,
+                threads,
+            },
+            json,
+            out: out.as_deref(),
+            pick,
+        }),
     }
 }
 

@@ -9,6 +9,7 @@ pub mod geometry;
 pub mod layout;
 pub mod leakage;
 pub mod resistance;
+pub mod search;
 pub mod validate;
 mod warnings;
 

@@ -1,0 +1,163 @@
+//! `turnstack search`: let the planner try wires, strands and section orders, and report the
+//! Pareto set; `--out` writes the chosen candidate as a build file.
+
+use super::{EXIT_BAD_INPUT, emit, fail, load_or_demo};
+use crate::engine::search::{self, Outcome, Series, Settings};
+use crate::files::{build_to_toml, save_build};
+use crate::report::text::truncate;
+use serde_json::json;
+use std::fmt::Write as _;
+use std::io::IsTerminal;
+use std::path::Path;
+use std::process::ExitCode;
+
+pub struct SearchArgs<'a> {
+    pub file: Option<&'a Path>,
+    pub settings: Settings,
+    pub json: bool,
+    pub out: Option<&'a Path>,
+    pub pick: usize,
+}
+
+pub fn run(args: &SearchArgs) -> ExitCode {
+    let build = match load_or_demo(args.file) {
+        Ok(b) => b,
+        Err(e) => return fail(&e),
+    };
+    let tty = std::io::stderr().is_terminal();
+    let progress = move |done: usize, total: usize| {
+        if tty && total > 20_000 {
+            eprint!("\rsearching: {done} of {total}");
+            if done == total {
+                eprint!("\r{}\r", " ".repeat(40));
+            }
+        }
+    };
+    let outcome = match search::search(&build, &args.settings, &progress) {
+        Ok(o) => o,
+        Err(e) => {
+            eprintln!("turnstack: {e}");
+            return ExitCode::from(EXIT_BAD_INPUT);
+        }
+    };
+    if let Some(out) = args.out {
+        let Some(c) = outcome.candidates.get(args.pick.saturating_sub(1)) else {
+            eprintln!(
+                "turnstack: there is no candidate {} to write ({} found)",
+                args.pick,
+                outcome.candidates.len()
+            );
+            return ExitCode::from(EXIT_BAD_INPUT);
+        };
+        if let Err(e) = save_build(out, &c.build) {
+            eprintln!("turnstack: cannot write {}: {e}", out.display());
+            return ExitCode::from(EXIT_BAD_INPUT);
+        }
+        eprintln!(
+            "wrote candidate {} to {}: {}",
+            args.pick,
+            out.display(),
+            c.description
+        );
+    }
+    let text = if args.json {
+        json_text(&outcome)
+    } else {
+        report(&outcome, &args.settings)
+    };
+    if !emit(&text) {
+        return ExitCode::from(EXIT_BAD_INPUT);
+    }
+    if outcome.candidates.is_empty() {
+        ExitCode::from(1)
+    } else {
+        ExitCode::SUCCESS
+    }
+}
+
+fn json_text(o: &Outcome) -> String {
+    let list: Vec<_> = o
+        .candidates
+        .iter()
+        .map(|c| {
+            json!({
+                "description": c.description,
+                "fits": c.eval.fits,
+                "copper_loss_w": c.copper_loss_w,
+                "leakage_uh": c.objectives.leakage_uh,
+                "spare_height_mm": c.eval.spare_height_mm,
+                "height_with_allowance_mm": c.eval.height_with_allowance_mm,
+                "fill_factor": c.eval.fill_factor,
+                "build": build_to_toml(&c.build),
+            })
+        })
+        .collect();
+    let v = json!({
+        "space": o.space,
+        "evaluated": o.evaluated,
+        "pruned": o.pruned,
+        "feasible": o.feasible,
+        "candidates": list,
+        "binding": o.binding,
+        "notes": o.notes,
+    });
+    let mut s = serde_json::to_string_pretty(&v).unwrap_or_default();
+    s.push('\n');
+    s
+}
+
+fn report(o: &Outcome, settings: &Settings) -> String {
+    let mut s = String::new();
+    let series = match settings.series {
+        Series::Metric => "metric",
+        Series::Awg => "AWG",
+    };
+    let _ = writeln!(
+        s,
+        "Searched {} combinations ({series} wire, 1-{} strands, {:.1}-{:.1} A/mm2):",
+        o.space, settings.max_strands, settings.j_min_a_mm2, settings.j_max_a_mm2
+    );
+    let _ = writeln!(
+        s,
+        "  {} evaluated, {} skipped by pruning, {} fit and meet the constraints, {} on the front",
+        o.evaluated,
+        o.pruned,
+        o.feasible,
+        o.candidates.len()
+    );
+    for n in &o.notes {
+        let _ = writeln!(s, "  note: {n}");
+    }
+    if let Some(b) = &o.binding {
+        let _ = writeln!(s, "\nNothing fits within the constraints.");
+        for l in crate::report::wrap(b, 76, "  ") {
+            let _ = writeln!(s, "  {l}");
+        }
+        return s;
+    }
+    let _ = writeln!(s, "\n  #  copper W  leakage uH  spare mm  build");
+    for (i, c) in o.candidates.iter().enumerate() {
+        let lines = crate::report::wrap(&c.description, 43, "");
+        let _ = writeln!(
+            s,
+            "{:>3}  {:>8.3}  {:>10.3}  {:>8.2}  {}",
+            i + 1,
+            c.copper_loss_w,
+            c.objectives.leakage_uh,
+            c.eval.spare_height_mm,
+            truncate(&lines[0], 43)
+        );
+        for l in &lines[1..] {
+            let _ = writeln!(s, "{:>35}  {}", "", truncate(l, 43));
+        }
+    }
+    let _ = writeln!(
+        s,
+        "\nCopper loss is I^2 Rac over the windings with a current_rms_a."
+    );
+    let _ = writeln!(
+        s,
+        "Write one as a build file: turnstack search FILE --out NEW.toml --pick N"
+    );
+    s
+}

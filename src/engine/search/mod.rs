@@ -1,0 +1,250 @@
+//! Let the planner find the build: try wire sizes, strands in parallel and section orders for
+//! the build's windings on its bobbin, evaluate every candidate with the same `evaluate`, and
+//! keep the Pareto set over total loss, leakage and spare window height.
+//!
+//! Pure: no I/O. Deterministic: the same input gives the same ranked output, whatever the
+//! number of threads.
+
+mod pareto;
+mod space;
+
+pub use pareto::{Objectives, pareto_indices};
+pub use space::{Arrangement, ResetPlace, WireChoice};
+
+use super::{Evaluation, evaluate, validate};
+use crate::model::{Build, Role};
+use std::sync::atomic::{AtomicUsize, Ordering};
+
+/// Which wire series the search draws sizes from.
+#[derive(Debug, Clone, Copy, PartialEq, Eq)]
+pub enum Series {
+    Metric,
+    Awg,
+}
+
+#[derive(Debug, Clone, PartialEq)]
+pub struct Settings {
+    pub series: Series,
+    /// Strands in parallel tried per winding: 1..=max_strands, for wire of at least
+    /// `min_strand_mm` bare (finer wire is not paralleled by hand).
+    pub max_strands: u32,
+    pub min_strand_mm: f64,
+    /// Current density band (A/mm^2 RMS) a wire must fall in.
+    pub j_min_a_mm2: f64,
+    pub j_max_a_mm2: f64,
+    /// Tape wraps between the primary side (primary, reset) and the secondary side; `None`
+    /// takes the most the build has between those sides (at least 1).
+    pub isolation_wraps: Option<u32>,
+    /// Tape wraps between other adjacent sections.
+    pub section_wraps: u32,
+    pub max_leakage_uh: Option<f64>,
+    /// Skip candidates that cannot fit by a lower bound on their height, and wires outside
+    /// the band (turning it off gives the brute-force search the tests compare against).
+    pub prune: bool,
+    /// Threads to use (1 or more).
+    pub threads: usize,
+}
+
+impl Default for Settings {
+    fn default() -> Self {
+        Settings {
+            series: Series::Metric,
+            max_strands: 4,
+            min_strand_mm: 0.2,
+            // Small SMPS transformers typically run 3-6 A/mm^2 RMS with natural convection
+            // (common practice); the band is kept a little wider so a cool build is not missed.
+            j_min_a_mm2: 2.0,
+            j_max_a_mm2: 6.0,
+            isolation_wraps: None,
+            section_wraps: 1,
+            max_leakage_uh: None,
+            prune: true,
+            threads: 1,
+        }
+    }
+}
+
+/// One reported candidate.
+#[derive(Debug, Clone, PartialEq)]
+pub struct Candidate {
+    pub description: String,
+    pub build: Build,
+    pub eval: Evaluation,
+    pub objectives: Objectives,
+    pub copper_loss_w: f64,
+}
+
+/// What the search did and found.
+#[derive(Debug, Clone, PartialEq)]
+pub struct Outcome {
+    /// Combinations in the space.
+    pub space: usize,
+    /// Candidates that went through `evaluate`.
+    pub evaluated: usize,
+    /// Combinations skipped without evaluation (lower bound on height, current band).
+    pub pruned: usize,
+    /// Evaluated candidates that fit and meet every constraint.
+    pub feasible: usize,
+    /// The Pareto set, lowest loss first.
+    pub candidates: Vec<Candidate>,
+    /// Why nothing was found, when nothing was: the constraint that binds.
+    pub binding: Option<String>,
+    /// Remarks on how the space was built (windings held fixed, and why).
+    pub notes: Vec<String>,
+}
+
+/// Why a search cannot start.
+#[derive(Debug, Clone, PartialEq)]
+pub enum SearchError {
+    NeedsRoles,
+    Invalid(String),
+}
+
+impl std::fmt::Display for SearchError {
+    fn fmt(&self, f: &mut std::fmt::Formatter<'_>) -> std::fmt::Result {
+        match self {
+            SearchError::NeedsRoles => {
+                f.write_str("the search needs a primary and a secondary winding")
+            }
+            SearchError::Invalid(m) => write!(f, "the build is not valid: {m}"),
+        }
+    }
+}
+
+/// RMS current of each winding the search sizes wire for: the build's `current_rms_a`.
+pub fn winding_currents(build: &Build) -> Vec<Option<f64>> {
+    build.windings.iter().map(|w| w.current_rms_a).collect()
+}
+
+/// Copper loss (W) of an evaluated candidate: I^2 R per winding with a current, R the AC
+/// resistance where the build gives a frequency, else the DC resistance.
+pub fn copper_loss_w(build: &Build, eval: &Evaluation) -> f64 {
+    build
+        .windings
+        .iter()
+        .zip(&eval.windings)
+        .filter_map(|(w, e)| {
+            let i = w.current_rms_a?;
+            let r = e.ac.as_ref().map_or(e.dcr_ohm, |a| a.rac_ohm);
+            Some(i * i * r)
+        })
+        .sum()
+}
+
+/// Run the search. `progress` is called now and then with (done, total).
+pub fn search(
+    build: &Build,
+    settings: &Settings,
+    progress: &(dyn Fn(usize, usize) + Sync),
+) -> Result<Outcome, SearchError> {
+    if let Some(p) = validate(build).first() {
+        return Err(SearchError::Invalid(p.to_string()));
+    }
+    if build.first_of(Role::Primary).is_none() || build.first_of(Role::Secondary).is_none() {
+        return Err(SearchError::NeedsRoles);
+    }
+    let plan = space::Space::new(build, settings);
+    let total = plan.len();
+    let done = AtomicUsize::new(0);
+    let threads = settings.threads.max(1).min(total.max(1));
+
+    // Each thread takes every n-th combination; results are merged in index order, so the
+    // outcome does not depend on the thread count.
+    let run = |t: usize| {
+        let mut found: Vec<(usize, Candidate)> = Vec::new();
+        let mut evaluated = 0usize;
+        let mut pruned = 0usize;
+        let mut reasons = space::Reasons::default();
+        for index in (t..total).step_by(threads) {
+            let n = done.fetch_add(1, Ordering::Relaxed) + 1;
+            if n.is_multiple_of(4096) {
+                progress(n, total);
+            }
+            let combo = plan.combo(index);
+            if settings.prune && !plan.may_fit(&combo, &mut reasons) {
+                pruned += 1;
+                continue;
+            }
+            let candidate = plan.build_for(&combo);
+            let eval = evaluate(&candidate);
+            evaluated += 1;
+            if !reasons.accept(&eval, settings, plan.sized()) {
+                continue;
+            }
+            let copper = copper_loss_w(&candidate, &eval);
+            let objectives = Objectives {
+                loss_w: copper,
+                leakage_uh: primary_secondary_leakage_uh(&candidate, &eval),
+                spare_height_mm: eval.spare_height_mm,
+            };
+            found.push((
+                index,
+                Candidate {
+                    description: plan.describe(&combo),
+                    build: candidate,
+                    eval,
+                    objectives,
+                    copper_loss_w: copper,
+                },
+            ));
+        }
+        (found, evaluated, pruned, reasons)
+    };
+    let parts: Vec<_> = if threads == 1 {
+        vec![run(0)]
+    } else {
+        std::thread::scope(|s| {
+            let handles: Vec<_> = (0..threads).map(|t| s.spawn(move || run(t))).collect();
+            handles
+                .into_iter()
+                .map(|h| h.join().expect("search thread panicked"))
+                .collect()
+        })
+    };
+    progress(total, total);
+
+    let mut all: Vec<(usize, Candidate)> = Vec::new();
+    let (mut evaluated, mut pruned) = (0, 0);
+    let mut reasons = space::Reasons::default();
+    for (found, e, p, r) in parts {
+        all.extend(found);
+        evaluated += e;
+        pruned += p;
+        reasons.merge(&r);
+    }
+    all.sort_by_key(|(i, _)| *i);
+    let feasible = all.len();
+    let objectives: Vec<Objectives> = all.iter().map(|(_, c)| c.objectives.coarse()).collect();
+    let keep = pareto_indices(&objectives);
+    let mut candidates: Vec<Candidate> = keep.into_iter().map(|k| all[k].1.clone()).collect();
+    candidates.sort_by(|a, b| {
+        let (x, y) = (&a.objectives, &b.objectives);
+        x.loss_w
+            .total_cmp(&y.loss_w)
+            .then(x.leakage_uh.total_cmp(&y.leakage_uh))
+            .then(y.spare_height_mm.total_cmp(&x.spare_height_mm))
+            .then(a.description.cmp(&b.description))
+    });
+    let binding = candidates
+        .is_empty()
+        .then(|| reasons.binding(plan.len(), pruned, settings, build.bobbin.window.height_mm));
+    Ok(Outcome {
+        space: total,
+        evaluated,
+        pruned,
+        feasible,
+        candidates,
+        binding,
+        notes: plan.notes(),
+    })
+}
+
+/// Leakage between the first primary and the first secondary, referred to the primary.
+pub fn primary_secondary_leakage_uh(build: &Build, eval: &Evaluation) -> f64 {
+    let p = build.first_of(Role::Primary).map(|w| w.name.as_str());
+    let s = build.first_of(Role::Secondary).map(|w| w.name.as_str());
+    eval.leakage
+        .iter()
+        .find(|l| Some(l.from.as_str()) == p && Some(l.to.as_str()) == s)
+        .map_or(0.0, |l| l.uh)
+}

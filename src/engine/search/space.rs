@@ -1,0 +1,593 @@
+//! The space the search walks: a wire choice per winding times an arrangement of sections,
+//! numbered by a mixed radix so that any combination can be built from its index alone.
+
+use super::{Series, Settings};
+use crate::engine::Evaluation;
+use crate::engine::layout::{turns_per_layer, usable_width_mm};
+use crate::engine::resistance::area_mm2;
+use crate::library::wires::{self, AWG_RANGE};
+use crate::model::{Build, Role, Section, WindingSection, WireSize};
+
+/// A wire for one winding: size and strands in parallel.
+#[derive(Debug, Clone, Copy, PartialEq)]
+pub struct WireChoice {
+    pub size: WireSize,
+    pub strands: u32,
+    pub copper_area_mm2: f64,
+    pub od_mm: f64,
+}
+
+/// How the primary and secondary are ordered and split.
+#[derive(Debug, Clone, Copy, PartialEq, Eq)]
+pub enum Split {
+    /// Primary, then secondary.
+    PrimaryFirst,
+    /// Secondary, then primary.
+    SecondaryFirst,
+    /// Half the primary, the secondary, the other half.
+    PrimaryAround,
+    /// Half the secondary, the primary, the other half.
+    SecondaryAround,
+}
+
+/// Where the reset winding goes.
+#[derive(Debug, Clone, Copy, PartialEq, Eq)]
+pub enum ResetPlace {
+    /// Bifilar with every primary section (needs as many reset turns as primary turns).
+    BifilarWithPrimary,
+    /// Its own section, innermost.
+    Inside,
+    /// Its own section, just before the first primary section.
+    BesidePrimary,
+    /// Its own section, outermost of the main windings.
+    Outside,
+}
+
+#[derive(Debug, Clone, Copy, PartialEq, Eq)]
+pub struct Arrangement {
+    pub split: Split,
+    pub reset: Option<ResetPlace>,
+}
+
+/// One winding section of a planned stack: (winding index, turns, bifilar partner).
+type Piece = (usize, u32, Option<usize>);
+
+pub struct Space<'a> {
+    base: &'a Build,
+    p: usize,
+    s: usize,
+    r: Option<usize>,
+    /// Windings the search leaves as they are, wound outermost in file order.
+    others: Vec<usize>,
+    choices: Vec<Vec<WireChoice>>,
+    arrangements: Vec<(Arrangement, Vec<Piece>)>,
+    iso_wraps: u32,
+    section_wraps: u32,
+    outer_wraps: u32,
+    notes: Vec<String>,
+    currents: Vec<Option<f64>>,
+    /// True where the winding's wire is chosen from the series (false: held as it is).
+    sized: Vec<bool>,
+    j_band: (f64, f64),
+}
+
+/// An index decoded: the arrangement and one choice per winding.
+pub struct Combo {
+    pub arrangement: usize,
+    pub choice: Vec<usize>,
+}
+
+fn series_sizes(series: Series) -> Vec<WireSize> {
+    match series {
+        Series::Metric => wires::metric_rows()
+            .iter()
+            .map(|r| WireSize::Metric {
+                bare_mm: r.nominal_mm,
+            })
+            .collect(),
+        Series::Awg => AWG_RANGE.map(WireSize::Awg).collect(),
+    }
+}
+
+fn primary_side(build: &Build, k: usize) -> bool {
+    // The reset winding clamps to the input and an auxiliary winding usually feeds the
+    // controller: both sit on the primary side of the isolation.
+    build.windings[k].role != Role::Secondary
+}
+
+impl<'a> Space<'a> {
+    pub fn new(base: &'a Build, settings: &Settings) -> Self {
+        let p = base
+            .windings
+            .iter()
+            .position(|w| w.role == Role::Primary)
+            .unwrap_or(0);
+        let s = base
+            .windings
+            .iter()
+            .position(|w| w.role == Role::Secondary)
+            .unwrap_or(0);
+        let r = base.windings.iter().position(|w| w.role == Role::Reset);
+        let others: Vec<usize> = (0..base.windings.len())
+            .filter(|&k| k != p && k != s && Some(k) != r)
+            .collect();
+        let mut notes = Vec::new();
+        let w_u = usable_width_mm(base);
+        let currents: Vec<Option<f64>> = base.windings.iter().map(|w| w.current_rms_a).collect();
+
+        let sizes = series_sizes(settings.series);
+        let mut sized = vec![false; base.windings.len()];
+        let choices: Vec<Vec<WireChoice>> = base
+            .windings
+            .iter()
+            .enumerate()
+            .map(|(k, w)| {
+                let own = || {
+                    let rw = wires::resolve(&w.wire, w.insulation);
+                    vec![WireChoice {
+                        size: w.wire,
+                        strands: w.strands,
+                        copper_area_mm2: f64::from(w.strands) * area_mm2(rw.bare_mm),
+                        od_mm: rw.od_mm,
+                    }]
+                };
+                if others.contains(&k) {
+                    return own();
+                }
+                let Some(i) = currents[k].filter(|&i| i > 0.0) else {
+                    notes.push(format!(
+                        "\"{}\" has no current_rms_a: its wire is kept as it is",
+                        w.name
+                    ));
+                    return own();
+                };
+                // A range around the band: the brute-force search sees these too, and the
+                // band itself is a constraint (pruned before evaluation when pruning is on).
+                let (lo, hi) = (settings.j_min_a_mm2 / 2.0, settings.j_max_a_mm2 * 2.0);
+                let mut out = Vec::new();
+                for size in &sizes {
+                    let rw = wires::resolve(size, w.insulation);
+                    let most = if rw.bare_mm + 1e-9 >= settings.min_strand_mm {
+                        settings.max_strands.max(1)
+                    } else {
+                        1
+                    };
+                    for strands in 1..=most {
+                        let a = f64::from(strands) * area_mm2(rw.bare_mm);
+                        let j = i / a;
+                        if j < lo || j > hi || f64::from(strands) * rw.od_mm > w_u {
+                            continue;
+                        }
+                        out.push(WireChoice {
+                            size: *size,
+                            strands,
+                            copper_area_mm2: a,
+                            od_mm: rw.od_mm,
+                        });
+                    }
+                }
+                if out.is_empty() {
+                    notes.push(format!(
+                        "no wire in the series suits \"{}\" at {i} A: its wire is kept",
+                        w.name
+                    ));
+                    return own();
+                }
+                sized[k] = true;
+                out
+            })
+            .collect();
+
+        let iso_wraps = settings
+            .isolation_wraps
+            .unwrap_or_else(|| isolation_wraps_of(base))
+            .max(1);
+        let outer_wraps = match base.stack.last() {
+            Some(Section::Tape { wraps }) => *wraps,
+            _ => 0,
+        };
+        let np = base.windings[p].turns;
+        let mut arrangements: Vec<(Arrangement, Vec<Piece>)> = Vec::new();
+        let resets: Vec<Option<ResetPlace>> = match r {
+            None => vec![None],
+            Some(r) => {
+                let mut v = vec![
+                    Some(ResetPlace::Inside),
+                    Some(ResetPlace::BesidePrimary),
+                    Some(ResetPlace::Outside),
+                ];
+                if base.windings[r].turns == np {
+                    v.insert(0, Some(ResetPlace::BifilarWithPrimary));
+                } else {
+                    notes.push("reset and primary turns differ: the reset is not tried bifilar with the primary".into());
+                }
+                v
+            }
+        };
+        for split in [
+            Split::PrimaryFirst,
+            Split::SecondaryFirst,
+            Split::PrimaryAround,
+            Split::SecondaryAround,
+        ] {
+            let needs_two = |n: u32| n >= 2;
+            if split == Split::PrimaryAround && !needs_two(np)
+                || split == Split::SecondaryAround && !needs_two(base.windings[s].turns)
+            {
+                continue;
+            }
+            for reset in &resets {
+                let arrangement = Arrangement {
+                    split,
+                    reset: *reset,
+                };
+                let pieces = pieces_of(base, p, s, r, arrangement);
+                if !arrangements.iter().any(|(_, q)| *q == pieces) {
+                    arrangements.push((arrangement, pieces));
+                }
+            }
+        }
+        Space {
+            base,
+            p,
+            s,
+            r,
+            others,
+            choices,
+            arrangements,
+            iso_wraps,
+            section_wraps: settings.section_wraps,
+            outer_wraps,
+            notes,
+            currents,
+            sized,
+            j_band: (settings.j_min_a_mm2, settings.j_max_a_mm2),
+        }
+    }
+
+    /// Combinations in the space.
+    pub fn len(&self) -> usize {
+        self.choices.iter().map(Vec::len).product::<usize>() * self.arrangements.len()
+    }
+
+    /// True where the winding's wire is chosen from the series (false: held as it is).
+    pub fn sized(&self) -> &[bool] {
+        &self.sized
+    }
+
+    pub fn notes(&self) -> Vec<String> {
+        self.notes.clone()
+    }
+
+    pub fn combo(&self, mut index: usize) -> Combo {
+        let arrangement = index % self.arrangements.len();
+        index /= self.arrangements.len();
+        let choice = self
+            .choices
+            .iter()
+            .map(|c| {
+                let i = index % c.len();
+                index /= c.len();
+                i
+            })
+            .collect();
+        Combo {
+            arrangement,
+            choice,
+        }
+    }
+
+    fn in_band(&self, k: usize, c: &WireChoice) -> bool {
+        match self.currents[k] {
+            Some(i) if self.sized[k] => {
+                let j = i / c.copper_area_mm2;
+                j >= self.j_band.0 - 1e-12 && j <= self.j_band.1 + 1e-12
+            }
+            _ => true,
+        }
+    }
+
+    /// False when the combination cannot fit or breaks the current band, found without
+    /// evaluating it: every winding needs at least ceil(turns / turns per layer) layers of its
+    /// own wire, and the tape of the arrangement is known exactly.
+    pub fn may_fit(&self, combo: &Combo, reasons: &mut Reasons) -> bool {
+        for (k, &c) in combo.choice.iter().enumerate() {
+            if !self.in_band(k, &self.choices[k][c]) {
+                return false;
+            }
+        }
+        let w_u = usable_width_mm(self.base);
+        let (_, pieces) = &self.arrangements[combo.arrangement];
+        let bifilar_partner: Vec<usize> = pieces.iter().filter_map(|p| p.2).collect();
+        let mut height = 0.0;
+        for (k, &c) in combo.choice.iter().enumerate() {
+            if bifilar_partner.contains(&k) {
+                continue;
+            }
+            let ch = &self.choices[k][c];
+            let n_l = turns_per_layer(w_u, f64::from(ch.strands) * ch.od_mm);
+            if n_l == 0 {
+                return false;
+            }
+            height += f64::from(self.base.windings[k].turns.div_ceil(n_l)) * ch.od_mm;
+        }
+        height += f64::from(self.tape_wraps(pieces)) * self.base.setup.tape_mm;
+        let with_allowance = height * self.base.setup.bulge;
+        if reasons.least_bound_mm.is_none_or(|l| with_allowance < l) {
+            reasons.least_bound_mm = Some(with_allowance);
+        }
+        with_allowance <= self.base.bobbin.window.height_mm + 1e-9
+    }
+
+    fn tape_wraps(&self, pieces: &[Piece]) -> u32 {
+        let sides: Vec<bool> = self
+            .order(pieces)
+            .iter()
+            .map(|&(k, _, _)| primary_side(self.base, k))
+            .collect();
+        let between: u32 = sides
+            .windows(2)
+            .map(|w| {
+                if w[0] != w[1] {
+                    self.iso_wraps
+                } else {
+                    self.section_wraps
+                }
+            })
+            .sum();
+        between + self.outer_wraps
+    }
+
+    /// The pieces with the windings held fixed appended outermost.
+    fn order(&self, pieces: &[Piece]) -> Vec<Piece> {
+        let mut all = pieces.to_vec();
+        all.extend(
+            self.others
+                .iter()
+                .map(|&k| (k, self.base.windings[k].turns, None)),
+        );
+        all
+    }
+
+    /// The candidate build of a combination.
+    pub fn build_for(&self, combo: &Combo) -> Build {
+        let mut b = self.base.clone();
+        for (k, &c) in combo.choice.iter().enumerate() {
+            let ch = &self.choices[k][c];
+            b.windings[k].wire = ch.size;
+            b.windings[k].strands = ch.strands;
+        }
+        let (_, pieces) = &self.arrangements[combo.arrangement];
+        let order = self.order(pieces);
+        let mut stack = Vec::with_capacity(order.len() * 2 + 1);
+        for (n, &(k, turns, with)) in order.iter().enumerate() {
+            if n > 0 {
+                let cross = primary_side(self.base, order[n - 1].0) != primary_side(self.base, k);
+                let wraps = if cross {
+                    self.iso_wraps
+                } else {
+                    self.section_wraps
+                };
+                if wraps > 0 {
+                    stack.push(Section::Tape { wraps });
+                }
+            }
+            stack.push(Section::Winding(WindingSection {
+                winding: self.base.windings[k].name.clone(),
+                turns: Some(turns),
+                with: with.map(|w| self.base.windings[w].name.clone()),
+                layer_tape: 0,
+            }));
+        }
+        if self.outer_wraps > 0 {
+            stack.push(Section::Tape {
+                wraps: self.outer_wraps,
+            });
+        }
+        b.stack = stack;
+        b
+    }
+
+    /// A short description: "P 2x0.4 mm split around S 3x0.5 mm, R 0.25 mm bifilar with P".
+    pub fn describe(&self, combo: &Combo) -> String {
+        let name = |k: usize| self.base.windings[k].name.as_str();
+        let wire = |k: usize| {
+            let ch = &self.choices[k][combo.choice[k]];
+            let size = ch.size.to_string();
+            if ch.strands > 1 {
+                format!("{}x{size}", ch.strands)
+            } else {
+                size
+            }
+        };
+        let (a, _) = &self.arrangements[combo.arrangement];
+        let (p, s) = (self.p, self.s);
+        let mut d = match a.split {
+            Split::PrimaryFirst => format!("{} {} then {} {}", name(p), wire(p), name(s), wire(s)),
+            Split::SecondaryFirst => {
+                format!("{} {} then {} {}", name(s), wire(s), name(p), wire(p))
+            }
+            Split::PrimaryAround => format!(
+                "{} {} split around {} {}",
+                name(p),
+                wire(p),
+                name(s),
+                wire(s)
+            ),
+            Split::SecondaryAround => format!(
+                "{} {} split around {} {}",
+                name(s),
+                wire(s),
+                name(p),
+                wire(p)
+            ),
+        };
+        if let (Some(r), Some(place)) = (self.r, a.reset) {
+            let where_ = match place {
+                ResetPlace::BifilarWithPrimary => format!("bifilar with {}", name(p)),
+                ResetPlace::Inside => "innermost".to_string(),
+                ResetPlace::BesidePrimary => format!("just inside {}", name(p)),
+                ResetPlace::Outside => "outermost".to_string(),
+            };
+            d.push_str(&format!(", {} {} {where_}", name(r), wire(r)));
+        }
+        d
+    }
+}
+
+/// The most tape wraps the build has between a primary-side and a secondary-side section.
+fn isolation_wraps_of(build: &Build) -> u32 {
+    let mut best = 0;
+    let mut last_side: Option<bool> = None;
+    let mut wraps_since = 0;
+    for s in &build.stack {
+        match s {
+            Section::Tape { wraps } => wraps_since += wraps,
+            Section::Winding(ws) => {
+                let side = build
+                    .winding_index(&ws.winding)
+                    .map(|k| primary_side(build, k));
+                if let (Some(a), Some(b)) = (last_side, side)
+                    && a != b
+                {
+                    best = best.max(wraps_since);
+                }
+                last_side = side.or(last_side);
+                wraps_since = 0;
+            }
+        }
+    }
+    best
+}
+
+fn pieces_of(build: &Build, p: usize, s: usize, r: Option<usize>, a: Arrangement) -> Vec<Piece> {
+    let np = build.windings[p].turns;
+    let ns = build.windings[s].turns;
+    let bifilar = a.reset == Some(ResetPlace::BifilarWithPrimary);
+    let with = if bifilar { r } else { None };
+    let (p1, p2) = (np / 2, np - np / 2);
+    let (s1, s2) = (ns / 2, ns - ns / 2);
+    let mut pieces: Vec<Piece> = match a.split {
+        Split::PrimaryFirst => vec![(p, np, with), (s, ns, None)],
+        Split::SecondaryFirst => vec![(s, ns, None), (p, np, with)],
+        Split::PrimaryAround => vec![(p, p1, with), (s, ns, None), (p, p2, with)],
+        Split::SecondaryAround => vec![(s, s1, None), (p, np, with), (s, s2, None)],
+    };
+    if let (Some(r), Some(place)) = (r, a.reset) {
+        let nr = build.windings[r].turns;
+        match place {
+            ResetPlace::BifilarWithPrimary => {}
+            ResetPlace::Inside => pieces.insert(0, (r, nr, None)),
+            ResetPlace::BesidePrimary => {
+                let at = pieces.iter().position(|q| q.0 == p).unwrap_or(0);
+                pieces.insert(at, (r, nr, None));
+            }
+            ResetPlace::Outside => pieces.push((r, nr, None)),
+        }
+    }
+    pieces
+}
+
+/// Counts of why evaluated candidates were turned down, for the "nothing fits" answer.
+#[derive(Debug, Clone, Default, PartialEq)]
+pub struct Reasons {
+    pub too_tall: usize,
+    pub out_of_band: usize,
+    pub leakage: usize,
+    pub invalid: usize,
+    /// The least height with allowance seen, and the window height.
+    pub least_height_mm: Option<(f64, f64)>,
+    /// The least lower bound on the height with allowance among in-band combinations.
+    pub least_bound_mm: Option<f64>,
+}
+
+impl Reasons {
+    /// Does the evaluated candidate meet every constraint? Counts the reason when not.
+    pub fn accept(&mut self, eval: &Evaluation, settings: &Settings, sized: &[bool]) -> bool {
+        if eval.warnings.iter().any(|w| w.code == "invalid") {
+            self.invalid += 1;
+            return false;
+        }
+        let h = eval.height_with_allowance_mm;
+        if self.least_height_mm.is_none_or(|(l, _)| h < l) {
+            self.least_height_mm = Some((h, eval.window_height_mm));
+        }
+        if !eval.fits {
+            self.too_tall += 1;
+            return false;
+        }
+        let band = settings.j_min_a_mm2 - 1e-12..=settings.j_max_a_mm2 + 1e-12;
+        let outside = eval.windings.iter().zip(sized).any(|(w, &sized)| {
+            sized && w.current_density_a_mm2.is_some_and(|j| !band.contains(&j))
+        });
+        if outside {
+            self.out_of_band += 1;
+            return false;
+        }
+        if let Some(max) = settings.max_leakage_uh
+            && eval.leakage.iter().any(|l| l.uh > max)
+        {
+            self.leakage += 1;
+            return false;
+        }
+        true
+    }
+
+    pub fn merge(&mut self, o: &Reasons) {
+        self.too_tall += o.too_tall;
+        self.out_of_band += o.out_of_band;
+        self.leakage += o.leakage;
+        self.invalid += o.invalid;
+        if let Some((h, w)) = o.least_height_mm
+            && self.least_height_mm.is_none_or(|(l, _)| h < l)
+        {
+            self.least_height_mm = Some((h, w));
+        }
+        if let Some(b) = o.least_bound_mm
+            && self.least_bound_mm.is_none_or(|l| b < l)
+        {
+            self.least_bound_mm = Some(b);
+        }
+    }
+
+    /// The constraint that binds when nothing survived.
+    pub fn binding(
+        &self,
+        space: usize,
+        pruned: usize,
+        settings: &Settings,
+        window_mm: f64,
+    ) -> String {
+        let band = format!(
+            "{:.1}-{:.1} A/mm2",
+            settings.j_min_a_mm2, settings.j_max_a_mm2
+        );
+        if space == 0 {
+            return "the space is empty: no wire in the series suits the windings".into();
+        }
+        if self.too_tall + self.out_of_band + self.leakage + self.invalid == 0 {
+            let least = self
+                .least_bound_mm
+                .map(|b| format!(": the thinnest needs at least {b:.2} mm with the allowance against a {window_mm:.2} mm window"))
+                .unwrap_or_default();
+            return format!(
+                "the window height binds: none of the {space} combinations with wire inside the {band} \
+                 current-density band can fit ({pruned} ruled out before evaluation){least}"
+            );
+        }
+        if self.too_tall >= self.out_of_band.max(self.leakage) {
+            let least = self
+                .least_height_mm
+                .map(|(h, w)| format!("; the shortest needs {h:.2} mm with the allowance against a {w:.2} mm window"))
+                .unwrap_or_default();
+            format!("the window height binds: no combination within the {band} band fits{least}")
+        } else if self.out_of_band >= self.leakage {
+            format!(
+                "the current-density band ({band}) binds: the builds that fit run their wire outside it"
+            )
+        } else {
+            "the leakage limit binds: the builds that fit leave more leakage than allowed"
+                .to_string()
+        }
+    }
+}
