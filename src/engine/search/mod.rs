@@ -148,13 +148,16 @@ pub fn search(
     let done = AtomicUsize::new(0);
     let threads = settings.threads.max(1).min(total.max(1));
 
-    // Each thread takes every n-th combination; results are merged in index order, so the
-    // outcome does not depend on the thread count.
+    // Each thread takes every n-th combination and keeps its own front; the fronts are merged
+    // in index order, so the outcome does not depend on the thread count. The arrangement is
+    // the slowest digit of the index, so a thread rebuilds its candidate's stack rarely and
+    // otherwise only swaps wires.
     let run = |t: usize| {
-        let mut found: Vec<(usize, Candidate)> = Vec::new();
-        let mut evaluated = 0usize;
-        let mut pruned = 0usize;
+        let mut front: Vec<(usize, Objectives, Candidate)> = Vec::new();
+        let (mut evaluated, mut pruned, mut feasible) = (0usize, 0usize, 0usize);
         let mut reasons = space::Reasons::default();
+        let mut candidate = build.clone();
+        let mut laid_arrangement = None;
         for index in (t..total).step_by(threads) {
             let n = done.fetch_add(1, Ordering::Relaxed) + 1;
             if n.is_multiple_of(4096) {
@@ -165,30 +168,45 @@ pub fn search(
                 pruned += 1;
                 continue;
             }
-            let candidate = plan.build_for(&combo);
+            if laid_arrangement != Some(combo.arrangement) {
+                plan.set_stack(&mut candidate, combo.arrangement);
+                laid_arrangement = Some(combo.arrangement);
+            }
+            plan.set_wires(&mut candidate, &combo);
             let eval = evaluate(&candidate);
             evaluated += 1;
             if !reasons.accept(&eval, settings, plan.sized()) {
                 continue;
             }
+            feasible += 1;
             let copper = copper_loss_w(&candidate, &eval);
             let objectives = Objectives {
                 loss_w: copper,
                 leakage_uh: primary_secondary_leakage_uh(&candidate, &eval),
                 spare_height_mm: eval.spare_height_mm,
             };
-            found.push((
+            let coarse = objectives.coarse();
+            // Indices rise within a thread, so of equal candidates the first stays.
+            if front
+                .iter()
+                .any(|(_, o, _)| o.dominates(&coarse) || *o == coarse)
+            {
+                continue;
+            }
+            front.retain(|(_, o, _)| !coarse.dominates(o));
+            front.push((
                 index,
+                coarse,
                 Candidate {
                     description: plan.describe(&combo),
-                    build: candidate,
+                    build: candidate.clone(),
                     eval,
                     objectives,
                     copper_loss_w: copper,
                 },
             ));
         }
-        (found, evaluated, pruned, reasons)
+        (front, evaluated, pruned, feasible, reasons)
     };
     let parts: Vec<_> = if threads == 1 {
         vec![run(0)]
@@ -203,20 +221,20 @@ pub fn search(
     };
     progress(total, total);
 
-    let mut all: Vec<(usize, Candidate)> = Vec::new();
-    let (mut evaluated, mut pruned) = (0, 0);
+    let mut all: Vec<(usize, Objectives, Candidate)> = Vec::new();
+    let (mut evaluated, mut pruned, mut feasible) = (0, 0, 0);
     let mut reasons = space::Reasons::default();
-    for (found, e, p, r) in parts {
-        all.extend(found);
+    for (front, e, p, f, r) in parts {
+        all.extend(front);
         evaluated += e;
         pruned += p;
+        feasible += f;
         reasons.merge(&r);
     }
-    all.sort_by_key(|(i, _)| *i);
-    let feasible = all.len();
-    let objectives: Vec<Objectives> = all.iter().map(|(_, c)| c.objectives.coarse()).collect();
-    let keep = pareto_indices(&objectives);
-    let mut candidates: Vec<Candidate> = keep.into_iter().map(|k| all[k].1.clone()).collect();
+    all.sort_by_key(|(i, _, _)| *i);
+    let coarse: Vec<Objectives> = all.iter().map(|(_, o, _)| *o).collect();
+    let keep = pareto_indices(&coarse);
+    let mut candidates: Vec<Candidate> = keep.into_iter().map(|k| all[k].2.clone()).collect();
     candidates.sort_by(|a, b| {
         let (x, y) = (&a.objectives, &b.objectives);
         x.loss_w

@@ -349,17 +349,20 @@ impl<'a> Space<'a> {
         all
     }
 
-    /// The candidate build of a combination.
-    pub fn build_for(&self, combo: &Combo) -> Build {
-        let mut b = self.base.clone();
+    /// Put a combination's wires on a candidate build.
+    pub fn set_wires(&self, b: &mut Build, combo: &Combo) {
         for (k, &c) in combo.choice.iter().enumerate() {
             let ch = &self.choices[k][c];
             b.windings[k].wire = ch.size;
             b.windings[k].strands = ch.strands;
         }
-        let (_, pieces) = &self.arrangements[combo.arrangement];
+    }
+
+    /// Lay an arrangement's stack on a candidate build.
+    pub fn set_stack(&self, b: &mut Build, arrangement: usize) {
+        let (_, pieces) = &self.arrangements[arrangement];
         let order = self.order(pieces);
-        let mut stack = Vec::with_capacity(order.len() * 2 + 1);
+        b.stack.clear();
         for (n, &(k, turns, with)) in order.iter().enumerate() {
             if n > 0 {
                 let cross = primary_side(self.base, order[n - 1].0) != primary_side(self.base, k);
@@ -369,10 +372,10 @@ impl<'a> Space<'a> {
                     self.section_wraps
                 };
                 if wraps > 0 {
-                    stack.push(Section::Tape { wraps });
+                    b.stack.push(Section::Tape { wraps });
                 }
             }
-            stack.push(Section::Winding(WindingSection {
+            b.stack.push(Section::Winding(WindingSection {
                 winding: self.base.windings[k].name.clone(),
                 turns: Some(turns),
                 with: with.map(|w| self.base.windings[w].name.clone()),
@@ -380,12 +383,10 @@ impl<'a> Space<'a> {
             }));
         }
         if self.outer_wraps > 0 {
-            stack.push(Section::Tape {
+            b.stack.push(Section::Tape {
                 wraps: self.outer_wraps,
             });
         }
-        b.stack = stack;
-        b
     }
 
     /// A short description: "P 2x0.4 mm split around S 3x0.5 mm, R 0.25 mm bifilar with P".
