@@ -55,7 +55,9 @@ pub fn render(build: &Build, eval: &Evaluation) -> String {
     for l in wrap(title, WIDTH, "  ") {
         let _ = writeln!(o, "{l}");
     }
-    let _ = writeln!(o, "{}", bobbin_line(build));
+    for l in wrap(&bobbin_line(build), WIDTH, "  ") {
+        let _ = writeln!(o, "{l}");
+    }
     if !build.bobbin.name.is_empty() {
         for l in wrap(&format!("  {}", build.bobbin.name), WIDTH, "  ") {
             let _ = writeln!(o, "{l}");
@@ -65,21 +67,28 @@ pub fn render(build: &Build, eval: &Evaluation) -> String {
     let freq = s
         .frequency_khz
         .map_or("no frequency".to_string(), |f| format!("{f} kHz"));
-    let _ = writeln!(
-        o,
+    let setup = format!(
         "setup: {} C, allowance x{:.2}, margins {:.2} mm, tape {:.3} mm/wrap, {freq}",
         s.temperature_c, s.bulge, s.margin_mm, s.tape_mm
     );
-    let _ = writeln!(o, "\n{}", verdict(eval));
-    let _ = writeln!(
-        o,
-        "  build {:.3} mm, x{:.2} = {:.3} mm; usable width {:.2} mm; fill factor {:.3}",
+    for l in wrap(&setup, WIDTH, "  ") {
+        let _ = writeln!(o, "{l}");
+    }
+    let _ = writeln!(o);
+    for l in wrap(&verdict(eval), WIDTH, "  ") {
+        let _ = writeln!(o, "{l}");
+    }
+    let summary = format!(
+        "build {:.3} mm, x{:.2} = {:.3} mm; usable width {:.2} mm; fill factor {:.3}",
         eval.build_height_mm,
         s.bulge,
         eval.height_with_allowance_mm,
         eval.usable_width_mm,
         eval.fill_factor
     );
+    for l in wrap(&summary, WIDTH - 2, "  ") {
+        let _ = writeln!(o, "  {l}");
+    }
 
     let _ = writeln!(o, "\nStack, from the tube outward");
     let _ = writeln!(
@@ -197,11 +206,13 @@ pub fn render(build: &Build, eval: &Evaluation) -> String {
     if !eval.leakage.is_empty() {
         let _ = writeln!(o, "\nLeakage inductance (1-D field across the build)");
         for l in &eval.leakage {
-            let _ = writeln!(
-                o,
-                "  {} - {}: {:.3} uH referred to {}",
+            let line = format!(
+                "{} - {}: {:.3} uH referred to {}",
                 l.from, l.to, l.uh, l.referred_to
             );
+            for l in wrap(&line, WIDTH - 2, "    ") {
+                let _ = writeln!(o, "  {l}");
+            }
         }
     }
 
