@@ -68,7 +68,7 @@ pub fn bobbins(as_json: bool) -> ExitCode {
                     b.window.height_mm,
                     tube,
                     ae,
-                    truncate(&b.name, 20)
+                    truncate(&b.name, 16)
                 );
             }
             Err(err) => {
@@ -103,7 +103,7 @@ pub fn bobbins(as_json: bool) -> ExitCode {
     }
     let _ = writeln!(
         o,
-        "bundled figures are typical for the size: measure your own bobbin before trusting a fit"
+        "bundled figures are typical for the size:\nmeasure your own bobbin before trusting a fit"
     );
     if !emit(&o) {
         return ExitCode::from(EXIT_BAD_INPUT);
@@ -165,11 +165,9 @@ pub fn wires(as_json: bool) -> ExitCode {
     }
     let _ = writeln!(
         o,
-        "\nAWG bare diameters: ASTM B258 formula. Metric overall diameters: IEC 60317-0-1 maxima;"
-    );
-    let _ = writeln!(
-        o,
-        "* = row read in the standard's table, others from memory; AWG and in-between sizes by rule."
+        "\nAWG bare diameters: ASTM B258 formula. Metric overall diameters: IEC 60317-0-1\n\
+         maxima; * = row read in the standard's table, others from memory; AWG and\n\
+         in-between sizes by rule."
     );
     let _ = writeln!(
         o,
