@@ -30,6 +30,7 @@ impl fmt::Display for Place {
             Place::Setup(k) => write!(f, "setup.{k}"),
             Place::Winding(i, k) => write!(f, "winding #{} {k}", i + 1),
             Place::Section(i, k) => write!(f, "stack #{} {k}", i + 1),
+            Place::Operating("") => write!(f, "operating"),
             Place::Operating(k) => write!(f, "operating.{k}"),
             Place::Material(k) => write!(f, "material.{k}"),
         }
@@ -48,6 +49,12 @@ impl fmt::Display for Invalid {
         write!(f, "{}: {}", self.place, self.message)
     }
 }
+
+/// Upper bounds that keep a typing slip (an extra digit or three) from laying out millions
+/// of layers: far beyond anything wound by hand on a small bobbin.
+pub const MAX_TURNS: u32 = 10_000;
+pub const MAX_STRANDS: u32 = 100;
+pub const MAX_WRAPS: u32 = 100;
 
 fn positive(v: f64) -> bool {
     v.is_finite() && v > 0.0
@@ -203,9 +210,25 @@ pub fn validate(build: &Build) -> Vec<Invalid> {
         }
         if w.turns == 0 {
             bad(Place::Winding(i, "turns"), "must be at least 1".into());
+        } else if w.turns > MAX_TURNS {
+            bad(
+                Place::Winding(i, "turns"),
+                format!(
+                    "{} turns is beyond hand winding (at most {MAX_TURNS})",
+                    w.turns
+                ),
+            );
         }
         if w.strands == 0 {
             bad(Place::Winding(i, "strands"), "must be at least 1".into());
+        } else if w.strands > MAX_STRANDS {
+            bad(
+                Place::Winding(i, "strands"),
+                format!(
+                    "{} strands is beyond hand winding (at most {MAX_STRANDS})",
+                    w.strands
+                ),
+            );
         }
         match w.wire {
             WireSize::Awg(n) if !AWG_RANGE.contains(&n) => bad(
@@ -263,6 +286,11 @@ pub fn validate(build: &Build) -> Vec<Invalid> {
             Section::Tape { wraps } => {
                 if *wraps == 0 {
                     bad(Place::Section(i, "tape"), "must be at least 1 wrap".into());
+                } else if *wraps > MAX_WRAPS {
+                    bad(
+                        Place::Section(i, "tape"),
+                        format!("{wraps} wraps is more than {MAX_WRAPS}"),
+                    );
                 }
             }
             Section::Winding(ws) => {
@@ -294,6 +322,12 @@ pub fn validate(build: &Build) -> Vec<Invalid> {
                     }
                     None => None,
                 };
+                if ws.layer_tape > MAX_WRAPS {
+                    bad(
+                        Place::Section(i, "layer_tape"),
+                        format!("{} wraps is more than {MAX_WRAPS}", ws.layer_tape),
+                    );
+                }
                 if turns[i] == 0 {
                     let why = if ws.turns.is_some() {
                         "must be at least 1".to_string()
@@ -343,8 +377,9 @@ pub fn validate(build: &Build) -> Vec<Invalid> {
     if let Some(op) = &build.operating {
         if s.frequency_khz.is_none() {
             bad(
-                Place::Setup("frequency_khz"),
-                "an [operating] point needs the switching frequency".into(),
+                Place::Operating(""),
+                "an [operating] point needs the switching frequency: add frequency_khz to [setup]"
+                    .into(),
             );
         }
         for role in [Role::Primary, Role::Secondary, Role::Reset] {
