@@ -6,7 +6,7 @@ use std::path::PathBuf;
 /// Plan the hand winding of a small switch-mode transformer, layer by layer, in a real
 /// bobbin window. With no command, opens the interactive planner on the bundled demo build.
 #[derive(Debug, Parser)]
-#[command(name = "turnstack", version, about, long_about = None)]
+#[command(name = "turnstack", version, about, long_about = None, max_term_width = 80)]
 #[command(
     after_help = "Exit codes: 0 the build fits, 1 it is valid but does not fit, 2 the input is wrong.\n\
 User bobbins: $TURNSTACK_BOBBINS, else the data directory's turnstack/bobbins (~/.local/share/turnstack/bobbins on Linux)."
