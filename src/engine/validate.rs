@@ -275,8 +275,14 @@ pub fn validate(build: &Build) -> Vec<Invalid> {
             "a build needs at least one [[stack]] section".into(),
         );
     }
-    let names: Vec<&str> = build.windings.iter().map(|w| w.name.as_str()).collect();
-    let list = names.join(", ");
+    let list = || {
+        build
+            .windings
+            .iter()
+            .map(|w| w.name.as_str())
+            .collect::<Vec<_>>()
+            .join(", ")
+    };
     let turns = build.section_turns();
     let mut sums = vec![0u64; build.windings.len()];
     let wires = resolved_wires(build);
@@ -299,8 +305,9 @@ pub fn validate(build: &Build) -> Vec<Invalid> {
                     bad(
                         Place::Section(i, "winding"),
                         format!(
-                            "unknown winding \"{}\"; the windings are {list}",
-                            ws.winding
+                            "unknown winding \"{}\"; the windings are {}",
+                            ws.winding,
+                            list()
                         ),
                     );
                 }
@@ -310,7 +317,7 @@ pub fn validate(build: &Build) -> Vec<Invalid> {
                         if c.is_none() {
                             bad(
                                 Place::Section(i, "with"),
-                                format!("unknown winding \"{n}\"; the windings are {list}"),
+                                format!("unknown winding \"{n}\"; the windings are {}", list()),
                             );
                         } else if c == a {
                             bad(

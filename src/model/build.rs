@@ -118,18 +118,21 @@ impl Build {
     /// its winding after every section that states turns for that winding (anywhere in the
     /// stack, bifilar `with` sections included) and every earlier section that did not.
     pub fn section_turns(&self) -> Vec<u32> {
-        let mut explicit: std::collections::HashMap<&str, u64> = Default::default();
+        // Indexed by winding; a name no winding has (refused by validation) counts nowhere.
+        let n = self.windings.len();
+        let mut explicit = vec![0u64; n];
         for s in &self.stack {
             if let Section::Winding(ws) = s
                 && let Some(t) = ws.turns
             {
-                *explicit.entry(ws.winding.as_str()).or_default() += u64::from(t);
-                if let Some(w) = &ws.with {
-                    *explicit.entry(w.as_str()).or_default() += u64::from(t);
+                for k in [Some(&ws.winding), ws.with.as_ref()].into_iter().flatten() {
+                    if let Some(i) = self.winding_index(k) {
+                        explicit[i] += u64::from(t);
+                    }
                 }
             }
         }
-        let mut defaulted: std::collections::HashMap<&str, u64> = Default::default();
+        let mut defaulted = vec![0u64; n];
         self.stack
             .iter()
             .map(|s| match s {
@@ -137,13 +140,14 @@ impl Build {
                 Section::Winding(ws) => match ws.turns {
                     Some(t) => t,
                     None => {
-                        let total = self.winding(&ws.winding).map_or(0, |w| u64::from(w.turns));
-                        let used = explicit.get(ws.winding.as_str()).copied().unwrap_or(0)
-                            + defaulted.get(ws.winding.as_str()).copied().unwrap_or(0);
-                        let left = total.saturating_sub(used);
-                        *defaulted.entry(ws.winding.as_str()).or_default() += left;
-                        if let Some(w) = &ws.with {
-                            *defaulted.entry(w.as_str()).or_default() += left;
+                        let Some(i) = self.winding_index(&ws.winding) else {
+                            return 0;
+                        };
+                        let total = u64::from(self.windings[i].turns);
+                        let left = total.saturating_sub(explicit[i] + defaulted[i]);
+                        defaulted[i] += left;
+                        if let Some(j) = ws.with.as_deref().and_then(|w| self.winding_index(w)) {
+                            defaulted[j] += left;
                         }
                         u32::try_from(left).unwrap_or(u32::MAX)
                     }
