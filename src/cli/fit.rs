@@ -80,7 +80,7 @@ fn render(title: &str, source: &BobbinSource, rows: &[FitRow]) -> String {
     };
     let _ = writeln!(
         o,
-        "Same windings and stack on every bobbin; fitting ones first, most spare height first.\n"
+        "Same windings and stack on every bobbin: fitting first, most spare height first.\n"
     );
     let _ = writeln!(
         o,
@@ -150,11 +150,11 @@ fn render(title: &str, source: &BobbinSource, rows: &[FitRow]) -> String {
     );
     let _ = writeln!(
         o,
-        "DCR summed over the windings at the build's temperature; leakage primary-secondary."
+        "DCR: sum of the windings at the build's temperature. Leakage: primary-secondary."
     );
     let _ = writeln!(
         o,
-        "Bundled figures are typical for the size: measure the bobbin you have before winding."
+        "Bundled figures are typical for the size: measure your bobbin before winding."
     );
     o
 }

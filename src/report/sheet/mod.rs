@@ -70,6 +70,8 @@ pub struct Step {
 #[derive(Debug, Clone, PartialEq)]
 pub struct Check {
     pub what: String,
+    /// The expected figure in the unit of its kind (ohm for resistance, uH for inductance).
+    pub value: Option<f64>,
     pub expected: String,
     pub how: String,
 }
@@ -500,6 +502,7 @@ fn checks(build: &Build, eval: &Evaluation, measure_at_c: f64) -> Vec<Check> {
         };
         out.push(Check {
             what: format!("DC resistance of {}", w.name),
+            value: Some(r),
             expected: format!(
                 "{} at {measure_at_c:.0} C ({} to {}, +/-{:.0} %)",
                 ohms(r),
@@ -518,6 +521,7 @@ fn checks(build: &Build, eval: &Evaluation, measure_at_c: f64) -> Vec<Check> {
         let l = core_test::inductance_uh(al, p.turns);
         out.push(Check {
             what: format!("Magnetising inductance of {}", p.name),
+            value: Some(l),
             expected: format!(
                 "{} (AL {al:.0} nH x {}^2; {} to {} for the usual +/-{:.0} % of AL)",
                 henries(l),
@@ -540,6 +544,7 @@ fn checks(build: &Build, eval: &Evaluation, measure_at_c: f64) -> Vec<Check> {
     {
         out.push(Check {
             what: format!("Leakage inductance {} - {}", p.name, s.name),
+            value: Some(l.uh),
             expected: format!(
                 "about {} (an estimate from a 1-D field; leads and end turns add to it)",
                 henries(l.uh)
@@ -558,6 +563,7 @@ fn checks(build: &Build, eval: &Evaluation, measure_at_c: f64) -> Vec<Check> {
         .collect();
     out.push(Check {
         what: "Polarity".into(),
+        value: None,
         expected: format!(
             "every start pin in phase with the primary's start ({})",
             if starts.is_empty() {
@@ -576,6 +582,7 @@ fn checks(build: &Build, eval: &Evaluation, measure_at_c: f64) -> Vec<Check> {
     {
         out.push(Check {
             what: "Electric strength (hipot), primary side to secondary side".into(),
+            value: None,
             expected: format!(
                 "no breakdown at the test voltage and time the applicable standard sets for \
                  {} insulation{}",

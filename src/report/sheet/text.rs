@@ -53,15 +53,15 @@ pub fn blocks(s: &Sheet) -> Vec<Vec<String>> {
     let mut bom = Vec::new();
     block_title(&mut bom, "Bill of materials");
     bom.push(format!(
-        "  {:<6} {:<10} {:<16} {:>7} {:>5} {:>9} {:>10} {:>10}",
+        "  {:<6} {:<10} {:<15} {:>7} {:>5} {:>8} {:>10} {:>10}",
         "wind.", "role", "wire", "strands", "turns", "wound m", "cut each", "cut total"
     ));
     for w in &s.wires {
         bom.push(format!(
-            "  {:<6} {:<10} {:<16} {:>7} {:>5} {:>9.3} {:>7.0} mm {:>7.0} mm",
+            "  {:<6} {:<10} {:<15} {:>7} {:>5} {:>8.3} {:>7.0} mm {:>7.0} mm",
             crate::report::text::truncate(&w.winding, 6),
             w.role.key(),
-            crate::report::text::truncate(&format!("{} {}", w.wire, w.grade), 16),
+            crate::report::text::truncate(&format!("{} {}", w.wire, w.grade), 15),
             w.strands,
             w.turns,
             w.length_m,
