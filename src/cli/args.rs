@@ -70,6 +70,36 @@ pub enum Command {
         #[arg(long)]
         json: bool,
     },
+    /// Print the technician's winding sheet of a build (text), or write it as one HTML page.
+    Sheet {
+        /// The build file; the bundled demo build when left out.
+        file: Option<PathBuf>,
+        /// Write a self-contained, printable HTML page (with the cross-section) to this file.
+        #[arg(long, value_name = "OUT.html")]
+        html: Option<PathBuf>,
+        /// Temperature (C) at which the DC resistance will be measured.
+        #[arg(long, value_name = "C", default_value_t = 20.0)]
+        measure_at_c: f64,
+        /// Lines per printed page of the text sheet; 0 for no page breaks.
+        #[arg(long, value_name = "N", default_value_t = 60)]
+        page_lines: usize,
+    },
+    /// Lay a build's windings and stack onto every bobbin in the library and rank them.
+    Fit {
+        /// The build file.
+        file: PathBuf,
+        /// Another folder of bobbin files to try as well.
+        #[arg(long, value_name = "DIR")]
+        bobbins: Vec<PathBuf>,
+        /// Print a JSON array, best first.
+        #[arg(long)]
+        json: bool,
+    },
+    /// Turn calliper readings and a test winding into a bobbin file with core data.
+    Measure {
+        #[command(subcommand)]
+        what: MeasureWhat,
+    },
     /// List the bobbins: bundled and your own.
     Bobbins {
         /// Print JSON.
@@ -88,6 +118,91 @@ pub enum Command {
 pub enum SeriesArg {
     Metric,
     Awg,
+}
+
+#[derive(Debug, Subcommand)]
+pub enum MeasureWhat {
+    /// A salvaged bobbin (and its core): window, tube, centre leg, and optionally a test winding.
+    Bobbin(MeasureBobbin),
+}
+
+/// `WxH` in millimetres, e.g. `10.8x3.0`.
+fn pair_mm(s: &str) -> Result<(f64, f64), String> {
+    let (a, b) = s
+        .split_once(['x', 'X', '*'])
+        .ok_or_else(|| format!("expected two lengths in mm like 10.8x3.0, got \"{s}\""))?;
+    let num = |t: &str| {
+        t.trim()
+            .parse::<f64>()
+            .ok()
+            .filter(|v| v.is_finite() && *v > 0.0)
+            .ok_or_else(|| format!("\"{t}\" is not a positive length in mm"))
+    };
+    Ok((num(a)?, num(b)?))
+}
+
+fn positive(s: &str) -> Result<f64, String> {
+    s.trim()
+        .parse::<f64>()
+        .ok()
+        .filter(|v| v.is_finite() && *v > 0.0)
+        .ok_or_else(|| format!("\"{s}\" is not a positive number"))
+}
+
+#[derive(Debug, clap::Args)]
+#[command(group(clap::ArgGroup::new("tube").required(true).args(["tube_rect", "tube_round"])))]
+#[command(group(clap::ArgGroup::new("leg").args(["leg_rect", "leg_round"])))]
+#[command(group(clap::ArgGroup::new("path").args(["le", "le_path"])))]
+pub struct MeasureBobbin {
+    /// The bobbin id: the file name in your bobbin folder (letters, digits, - _ .).
+    #[arg(long)]
+    pub id: String,
+    /// Free-text name shown in lists.
+    #[arg(long)]
+    pub name: Option<String>,
+    /// Window: width between the flanges x height from the tube surface to the usable limit (mm).
+    #[arg(long, value_name = "WxH", value_parser = pair_mm)]
+    pub window: (f64, f64),
+    /// Rectangular tube, outer width x depth (mm).
+    #[arg(long, value_name = "WxD", value_parser = pair_mm)]
+    pub tube_rect: Option<(f64, f64)>,
+    /// Corner radius of a rectangular tube (mm).
+    #[arg(long, value_name = "MM", requires = "tube_rect", value_parser = positive)]
+    pub corner: Option<f64>,
+    /// Round tube, outer diameter (mm).
+    #[arg(long, value_name = "D", value_parser = positive)]
+    pub tube_round: Option<f64>,
+    /// Rectangular centre leg of the core, width x depth (mm): gives Ae = w x d.
+    #[arg(long, value_name = "WxD", value_parser = pair_mm)]
+    pub leg_rect: Option<(f64, f64)>,
+    /// Round centre leg, diameter (mm): gives Ae = pi d^2 / 4.
+    #[arg(long, value_name = "D", value_parser = positive)]
+    pub leg_round: Option<f64>,
+    /// Effective path length le (mm), from the size family's table.
+    #[arg(long, value_name = "MM", value_parser = positive)]
+    pub le: Option<f64>,
+    /// Estimate le from the mean path round one window, centreline to centreline:
+    /// along the legs x across the window (mm); le = 2 (along + across).
+    #[arg(long, value_name = "ALONGxACROSS", value_parser = pair_mm)]
+    pub le_path: Option<(f64, f64)>,
+    /// Turns of the test winding.
+    #[arg(long, value_name = "N", requires = "inductance_uh")]
+    pub turns: Option<u32>,
+    /// Inductance measured on the test winding, core assembled and clamped (uH).
+    #[arg(long, value_name = "UH", requires = "turns", value_parser = positive)]
+    pub inductance_uh: Option<f64>,
+    /// The material's initial permeability, as you believe it (for the equivalent gap).
+    #[arg(long, value_name = "MU", value_parser = positive)]
+    pub mu_i: Option<f64>,
+    /// Pin count.
+    #[arg(long, value_name = "N")]
+    pub pins: Option<u32>,
+    /// Save to your bobbin folder.
+    #[arg(long)]
+    pub save: bool,
+    /// With --save: replace a bobbin file of the same id.
+    #[arg(long, requires = "save")]
+    pub force: bool,
 }
 
 #[cfg(test)]

@@ -2,10 +2,13 @@
 //! use (0 fits, 1 valid but does not fit, 2 the input is wrong).
 
 mod args;
+mod fit;
 mod lists;
+mod measure;
 mod search;
+mod sheet;
 
-pub use args::{Cli, Command};
+pub use args::{Cli, Command, MeasureBobbin, MeasureWhat};
 
 use crate::engine::evaluate;
 use crate::files::{LoadError, load_build};
@@ -27,6 +30,20 @@ pub fn main() -> ExitCode {
     match cli.command {
         None => crate::cli::run_editor(None),
         Some(Command::Check { file, json }) => check(file.as_deref(), json),
+        Some(Command::Sheet {
+            file,
+            html,
+            measure_at_c,
+            page_lines,
+        }) => sheet::sheet(file.as_deref(), html.as_deref(), measure_at_c, page_lines),
+        Some(Command::Fit {
+            file,
+            bobbins,
+            json,
+        }) => fit::fit(&file, &bobbins, json),
+        Some(Command::Measure {
+            what: MeasureWhat::Bobbin(m),
+        }) => measure::bobbin(&m),
         Some(Command::Bobbins { json }) => lists::bobbins(json),
         Some(Command::Wires { json }) => lists::wires(json),
         Some(Command::Edit { file }) => crate::cli::run_editor(Some(&file)),

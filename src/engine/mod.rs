@@ -4,8 +4,10 @@
 pub mod ac;
 pub mod constants;
 pub mod converter;
+pub mod core_test;
 mod evaluation;
 pub mod geometry;
+pub mod isolation;
 pub mod layout;
 pub mod leakage;
 pub mod resistance;
@@ -25,5 +27,8 @@ use crate::model::Build;
 /// Every figure of a build. Total: never panics; a build that `validate` refuses still gets
 /// an evaluation (with an `invalid` warning) so that an editor can keep showing something.
 pub fn evaluate(build: &Build) -> Evaluation {
-    evaluation::evaluate(build)
+    let mut eval = evaluation::evaluate(build);
+    let isolation = isolation::warnings(build, &eval);
+    eval.warnings.extend(isolation);
+    eval
 }

@@ -3,10 +3,10 @@
 
 use super::raw::{self, BobbinBody, BobbinField, BuildFile, WireField};
 use super::{BobbinLibrary, LoadError};
-use crate::engine::{Invalid, Place, validate, validate_bobbin};
+use crate::engine::{Invalid, Place, isolation, validate, validate_bobbin};
 use crate::model::{
-    Bobbin, BobbinSource, Build, Core, Insulation, Material, Operating, ResetSide, Role, Section,
-    Setup, Steinmetz, Tube, Winding, WindingSection, Window, WireSize,
+    Bobbin, BobbinSource, Build, Core, Insulation, Isolation, IsolationClass, Material, Operating,
+    ResetSide, Role, Section, Setup, Steinmetz, Tube, Winding, WindingSection, Window, WireSize,
 };
 use std::collections::HashMap;
 use std::ops::Range;
@@ -486,6 +486,36 @@ pub(super) fn build(
         }
     });
 
+    let isolation = match file.isolation {
+        None => None,
+        Some(i) => {
+            spans.top.insert("isolation", i.span());
+            let i = i.into_inner();
+            put(&mut spans.top, "isolation.class", &i.class);
+            put_opt(
+                &mut spans.top,
+                "isolation.working_voltage_v",
+                &i.working_voltage_v,
+            );
+            put_opt(&mut spans.top, "isolation.creepage_mm", &i.creepage_mm);
+            let class = IsolationClass::from_key(i.class.get_ref()).ok_or_else(|| {
+                cx.err(
+                    Some(i.class.span()),
+                    "isolation.class",
+                    format!(
+                        "unknown isolation class \"{}\"; expected \"functional\", \"basic\" or \"reinforced\"",
+                        i.class.get_ref()
+                    ),
+                )
+            })?;
+            Some(Isolation {
+                class,
+                working_voltage_v: i.working_voltage_v.map(Spanned::into_inner),
+                creepage_mm: i.creepage_mm.map(Spanned::into_inner),
+            })
+        }
+    };
+
     let build = Build {
         title: file.title.unwrap_or_default(),
         bobbin_source,
@@ -495,8 +525,10 @@ pub(super) fn build(
         stack,
         operating,
         material,
+        isolation,
     };
-    let problems = validate(&build);
+    let mut problems = validate(&build);
+    problems.extend(isolation::validate(&build));
     if !problems.is_empty() {
         return Err(cx.invalid(&spans, &problems));
     }

@@ -64,6 +64,16 @@ pub struct BuildFile {
     pub stack: Vec<Spanned<SectionRaw>>,
     pub operating: Option<Spanned<OperatingRaw>>,
     pub material: Option<Spanned<MaterialRaw>>,
+    pub isolation: Option<Spanned<IsolationRaw>>,
+}
+
+/// `[isolation]`: the declared class between primary and secondary sides.
+#[derive(Debug, Deserialize)]
+#[serde(deny_unknown_fields)]
+pub struct IsolationRaw {
+    pub class: Spanned<String>,
+    pub working_voltage_v: Option<Spanned<f64>>,
+    pub creepage_mm: Option<Spanned<f64>>,
 }
 
 /// `bobbin = "id"` or an inline `[bobbin]` table.

@@ -194,5 +194,15 @@ pub fn build_to_toml(build: &Build) -> String {
             );
         }
     }
+    if let Some(i) = &build.isolation {
+        let _ = writeln!(out, "\n[isolation]");
+        let _ = writeln!(out, "class = \"{}\"", i.class.key());
+        if let Some(v) = i.working_voltage_v {
+            let _ = writeln!(out, "working_voltage_v = {}", num(v));
+        }
+        if let Some(c) = i.creepage_mm {
+            let _ = writeln!(out, "creepage_mm = {}", num(c));
+        }
+    }
     out
 }

@@ -1,6 +1,6 @@
 //! A winding build: the bobbin, the setup, the windings and the stack from the tube outward.
 
-use super::{Bobbin, Insulation, Material, Operating, WireSize};
+use super::{Bobbin, Insulation, Isolation, Material, Operating, WireSize};
 
 #[derive(Debug, Clone, Copy, PartialEq, Eq, Hash)]
 pub enum Role {
@@ -96,6 +96,8 @@ pub struct Build {
     pub stack: Vec<Section>,
     pub operating: Option<Operating>,
     pub material: Option<Material>,
+    /// The declared insulation between primary and secondary sides, when the file gives one.
+    pub isolation: Option<Isolation>,
 }
 
 impl Build {

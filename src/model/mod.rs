@@ -3,10 +3,12 @@
 
 mod bobbin;
 mod build;
+mod isolation;
 mod operating;
 mod wire;
 
 pub use bobbin::{Bobbin, Core, Tube, Window};
 pub use build::{BobbinSource, Build, Role, Section, Setup, Winding, WindingSection};
+pub use isolation::{Isolation, IsolationClass};
 pub use operating::{Material, Operating, ResetSide, Steinmetz};
 pub use wire::{Insulation, WireSize, trim_mm};

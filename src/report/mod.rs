@@ -1,7 +1,9 @@
 //! Renderings of an Evaluation: the readable check report, the JSON report and the lists.
 //! They read the Evaluation; they compute no figure of their own.
 
+pub mod fit;
 pub mod json;
+pub mod sheet;
 pub mod text;
 mod wrap;
 

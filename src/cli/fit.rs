@@ -1,0 +1,160 @@
+//! `turnstack fit FILE [--bobbins DIR] [--json]`: which bobbin of the library fits the build.
+
+use super::{EXIT_BAD_INPUT, EXIT_DOES_NOT_FIT, EXIT_FITS, emit, fail};
+use crate::files::{BobbinLibrary, load_build};
+use crate::model::BobbinSource;
+use crate::report::fit::{FitRow, rank};
+use crate::report::text::truncate;
+use crate::report::wrap;
+use serde_json::json;
+use std::fmt::Write as _;
+use std::path::{Path, PathBuf};
+use std::process::ExitCode;
+
+/// Id shown for a bobbin written inline in the build file.
+pub const INLINE_ID: &str = "(this build's)";
+
+pub fn fit(file: &Path, folders: &[PathBuf], as_json: bool) -> ExitCode {
+    let build = match load_build(file) {
+        Ok(b) => b,
+        Err(e) => return fail(&e),
+    };
+    for d in folders {
+        if !d.is_dir() {
+            eprintln!("turnstack: --bobbins {}: no such folder", d.display());
+            return ExitCode::from(EXIT_BAD_INPUT);
+        }
+    }
+    let mut library = BobbinLibrary::for_build(file);
+    for d in folders {
+        library = library.with_folder(d.clone());
+    }
+    let mut bobbins = Vec::new();
+    if build.bobbin_source == BobbinSource::Inline {
+        bobbins.push((INLINE_ID.to_string(), build.bobbin.clone()));
+    }
+    for e in library.entries() {
+        match e.bobbin {
+            Ok(b) => bobbins.push((e.id, b)),
+            Err(err) => eprintln!("turnstack: skipped bobbin {}: {err}", e.id),
+        }
+    }
+    let rows = rank(&build, &bobbins);
+    let text = if as_json {
+        let list: Vec<_> = rows.iter().map(row_json).collect();
+        let mut s = serde_json::to_string_pretty(&list).unwrap_or_default();
+        s.push('\n');
+        s
+    } else {
+        render(&build.title, &build.bobbin_source, &rows)
+    };
+    if !emit(&text) {
+        return ExitCode::from(EXIT_BAD_INPUT);
+    }
+    ExitCode::from(if rows.iter().any(|r| r.fits) {
+        EXIT_FITS
+    } else {
+        EXIT_DOES_NOT_FIT
+    })
+}
+
+fn row_json(r: &FitRow) -> serde_json::Value {
+    json!({
+        "bobbin": r.bobbin, "name": r.name, "fits": r.fits, "valid": r.valid,
+        "height_with_allowance_mm": r.height_with_allowance_mm,
+        "window_height_mm": r.window_height_mm,
+        "spare_height_mm": r.spare_height_mm, "fill_factor": r.fill_factor,
+        "dcr_total_ohm": r.dcr_total_ohm, "leakage_uh": r.leakage_uh,
+        "reasons": r.reasons,
+    })
+}
+
+fn render(title: &str, source: &BobbinSource, rows: &[FitRow]) -> String {
+    let mut o = String::new();
+    for l in wrap(&format!("Which bobbin fits: {title}"), 80, "  ") {
+        let _ = writeln!(o, "{l}");
+    }
+    let current = match source {
+        BobbinSource::Id(id) => id.as_str(),
+        BobbinSource::Inline => INLINE_ID,
+    };
+    let _ = writeln!(
+        o,
+        "Same windings and stack on every bobbin: fitting first, most spare height first.\n"
+    );
+    let _ = writeln!(
+        o,
+        "   {:<16} {:<4} {:>13} {:>7} {:>6} {:>9} {:>9}",
+        "bobbin", "fits", "used / window", "spare", "fill", "DCR sum", "leakage"
+    );
+    let _ = writeln!(
+        o,
+        "   {:<16} {:<4} {:>13} {:>7} {:>6} {:>9} {:>9}",
+        "", "", "mm", "mm", "", "ohm", "uH"
+    );
+    for r in rows {
+        let mark = if r.bobbin == current { "*" } else { " " };
+        let fits = if r.fits {
+            "yes"
+        } else if r.valid {
+            "no"
+        } else {
+            "no!"
+        };
+        let used = if r.valid {
+            format!(
+                "{:.2} / {:.2}",
+                r.height_with_allowance_mm, r.window_height_mm
+            )
+        } else {
+            format!("- / {:.2}", r.window_height_mm)
+        };
+        let spare = if r.valid {
+            format!("{:+.2}", r.spare_height_mm)
+        } else {
+            "-".into()
+        };
+        let (fill, dcr, leak) = if r.valid {
+            (
+                format!("{:.2}", r.fill_factor),
+                format!("{:.3}", r.dcr_total_ohm),
+                r.leakage_uh.map_or("-".into(), |l| format!("{l:.2}")),
+            )
+        } else {
+            ("-".into(), "-".into(), "-".into())
+        };
+        let _ = writeln!(
+            o,
+            " {mark} {:<16} {:<4} {:>13} {:>7} {:>6} {:>9} {:>9}",
+            truncate(&r.bobbin, 16),
+            fits,
+            used,
+            spare,
+            fill,
+            dcr,
+            leak
+        );
+        if !r.fits {
+            for reason in &r.reasons {
+                for l in wrap(reason, 72, "        ") {
+                    let _ = writeln!(o, "      {l}");
+                }
+            }
+        }
+    }
+    let n = rows.iter().filter(|r| r.fits).count();
+    let _ = writeln!(
+        o,
+        "\n* the build's own bobbin. {n} of {} fit. no! = cannot be laid at all.",
+        rows.len()
+    );
+    let _ = writeln!(
+        o,
+        "DCR: sum of the windings at the build's temperature. Leakage: primary-secondary."
+    );
+    let _ = writeln!(
+        o,
+        "Bundled figures are typical for the size: measure your bobbin before winding."
+    );
+    o
+}
