@@ -31,9 +31,30 @@ pub fn write_atomic(path: &Path, text: &str) -> std::io::Result<()> {
         .suffix(".tmp")
         .tempfile_in(dir)?;
     tmp.write_all(text.as_bytes())?;
+    // The temporary file is private (0600); the saved file keeps the old file's permissions,
+    // or gets the usual ones for a document the user may share.
+    let permissions = match std::fs::metadata(path) {
+        Ok(m) => Some(m.permissions()),
+        Err(_) => default_permissions(),
+    };
+    if let Some(p) = permissions {
+        tmp.as_file().set_permissions(p)?;
+    }
     tmp.as_file().sync_all()?;
     tmp.persist(path).map_err(|e| e.error)?;
     Ok(())
+}
+
+#[cfg(unix)]
+fn default_permissions() -> Option<std::fs::Permissions> {
+    use std::os::unix::fs::PermissionsExt;
+    // rw-r--r--: what an editor gives a new document under the usual umask of 022.
+    Some(std::fs::Permissions::from_mode(0o644))
+}
+
+#[cfg(not(unix))]
+fn default_permissions() -> Option<std::fs::Permissions> {
+    None
 }
 
 fn bobbin_keys(out: &mut String, b: &Bobbin, prefix: &str) {
@@ -205,4 +226,37 @@ pub fn build_to_toml(build: &Build) -> String {
         }
     }
     out
+}
+
+#[cfg(all(test, unix))]
+mod tests {
+    use super::*;
+    use std::os::unix::fs::PermissionsExt;
+
+    #[test]
+    fn saving_keeps_the_old_files_permissions_and_gives_new_files_the_usual_ones() {
+        let dir = tempfile::tempdir().unwrap();
+        let old = dir.path().join("old.toml");
+        std::fs::write(&old, "x").unwrap();
+        std::fs::set_permissions(&old, std::fs::Permissions::from_mode(0o640)).unwrap();
+        write_atomic(&old, "new text").unwrap();
+        assert_eq!(std::fs::read_to_string(&old).unwrap(), "new text");
+        assert_eq!(
+            std::fs::metadata(&old).unwrap().permissions().mode() & 0o777,
+            0o640
+        );
+
+        let new = dir.path().join("new.toml");
+        write_atomic(&new, "y").unwrap();
+        assert_eq!(
+            std::fs::metadata(&new).unwrap().permissions().mode() & 0o777,
+            0o644
+        );
+        // No temporary file is left behind.
+        let left: Vec<_> = std::fs::read_dir(dir.path())
+            .unwrap()
+            .filter_map(|e| e.ok())
+            .collect();
+        assert_eq!(left.len(), 2);
+    }
 }

@@ -3,6 +3,7 @@
 
 use super::{Series, Settings};
 use crate::engine::Evaluation;
+use crate::engine::isolation::{Side, side_of};
 use crate::engine::layout::{turns_per_layer, usable_width_mm};
 use crate::engine::resistance::area_mm2;
 use crate::library::wires::{self, AWG_RANGE};
@@ -89,10 +90,9 @@ fn series_sizes(series: Series) -> Vec<WireSize> {
     }
 }
 
+/// Which side of the isolation a winding sits on, as the isolation checks see it.
 fn primary_side(build: &Build, k: usize) -> bool {
-    // The reset winding clamps to the input and an auxiliary winding usually feeds the
-    // controller: both sit on the primary side of the isolation.
-    build.windings[k].role != Role::Secondary
+    side_of(build, build.windings[k].role) == Side::Primary
 }
 
 impl<'a> Space<'a> {
