@@ -1,6 +1,6 @@
 //! `turnstack fit FILE [--bobbins DIR] [--json]`: which bobbin of the library fits the build.
 
-use super::{EXIT_BAD_INPUT, EXIT_DOES_NOT_FIT, EXIT_FITS, emit, fail};
+use super::{EXIT_BAD_INPUT, EXIT_DOES_NOT_FIT, EXIT_FITS, emit, fail, json_text};
 use crate::files::{BobbinLibrary, load_build};
 use crate::model::BobbinSource;
 use crate::report::fit::{FitRow, rank};
@@ -42,9 +42,7 @@ pub fn fit(file: &Path, folders: &[PathBuf], as_json: bool) -> ExitCode {
     let rows = rank(&build, &bobbins);
     let text = if as_json {
         let list: Vec<_> = rows.iter().map(row_json).collect();
-        let mut s = serde_json::to_string_pretty(&list).unwrap_or_default();
-        s.push('\n');
-        s
+        json_text(&list)
     } else {
         render(&build.title, &build.bobbin_source, &rows)
     };

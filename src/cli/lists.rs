@@ -1,6 +1,6 @@
 //! `turnstack bobbins` and `turnstack wires`.
 
-use super::{EXIT_BAD_INPUT, emit};
+use super::{EXIT_BAD_INPUT, emit, emit_listing, json_text};
 use crate::engine::resistance::ohm_per_m;
 use crate::files::{BobbinLibrary, BobbinOrigin, user_bobbin_dir};
 use crate::library::wires::catalogue;
@@ -26,13 +26,7 @@ pub fn bobbins(as_json: bool) -> ExitCode {
                 }
             })
             .collect();
-        let mut s = serde_json::to_string_pretty(&list).unwrap_or_default();
-        s.push('\n');
-        return if emit(&s) {
-            ExitCode::SUCCESS
-        } else {
-            ExitCode::from(EXIT_BAD_INPUT)
-        };
+        return emit_listing(&json_text(&list));
     }
     let mut o = String::new();
     let _ = writeln!(
@@ -130,13 +124,7 @@ pub fn wires(as_json: bool) -> ExitCode {
                 })
             })
             .collect();
-        let mut s = serde_json::to_string_pretty(&list).unwrap_or_default();
-        s.push('\n');
-        return if emit(&s) {
-            ExitCode::SUCCESS
-        } else {
-            ExitCode::from(EXIT_BAD_INPUT)
-        };
+        return emit_listing(&json_text(&list));
     }
     let mut o = String::new();
     let _ = writeln!(
@@ -173,9 +161,5 @@ pub fn wires(as_json: bool) -> ExitCode {
         o,
         "TIW: typical figures (bare + 0.2 mm). Resistance: IEC 60028 annealed copper."
     );
-    if emit(&o) {
-        ExitCode::SUCCESS
-    } else {
-        ExitCode::from(EXIT_BAD_INPUT)
-    }
+    emit_listing(&o)
 }

@@ -97,6 +97,22 @@ pub(crate) fn emit(text: &str) -> bool {
     }
 }
 
+/// Pretty JSON with a final newline, for `--json`.
+pub(crate) fn json_text<T: serde::Serialize>(v: &T) -> String {
+    let mut s = serde_json::to_string_pretty(v).unwrap_or_default();
+    s.push('\n');
+    s
+}
+
+/// Print, and the exit code of a listing: 0, or 2 when the output could not be written.
+pub(crate) fn emit_listing(text: &str) -> ExitCode {
+    if emit(text) {
+        ExitCode::SUCCESS
+    } else {
+        ExitCode::from(EXIT_BAD_INPUT)
+    }
+}
+
 pub(crate) fn fail(e: &LoadError) -> ExitCode {
     eprintln!("turnstack: {}", e.with_snippet());
     ExitCode::from(EXIT_BAD_INPUT)
@@ -117,10 +133,7 @@ fn check(file: Option<&Path>, json: bool) -> ExitCode {
     };
     let eval = evaluate(&build);
     let text = if json {
-        let mut s =
-            serde_json::to_string_pretty(&report::json::report(&build, &eval)).unwrap_or_default();
-        s.push('\n');
-        s
+        json_text(&report::json::report(&build, &eval))
     } else {
         report::text::render(&build, &eval)
     };

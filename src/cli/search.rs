@@ -61,7 +61,7 @@ pub fn run(args: &SearchArgs) -> ExitCode {
         );
     }
     let text = if args.json {
-        json_text(&outcome)
+        outcome_json(&outcome)
     } else {
         report(&outcome, &args.settings)
     };
@@ -75,7 +75,7 @@ pub fn run(args: &SearchArgs) -> ExitCode {
     }
 }
 
-fn json_text(o: &Outcome) -> String {
+fn outcome_json(o: &Outcome) -> String {
     let list: Vec<_> = o
         .candidates
         .iter()
@@ -101,9 +101,7 @@ fn json_text(o: &Outcome) -> String {
         "binding": o.binding,
         "notes": o.notes,
     });
-    let mut s = serde_json::to_string_pretty(&v).unwrap_or_default();
-    s.push('\n');
-    s
+    super::json_text(&v)
 }
 
 fn report(o: &Outcome, settings: &Settings) -> String {
