@@ -367,3 +367,44 @@ fn material_grade_with_overrides_round_trips() {
     .unwrap_err();
     assert!(err.to_string().contains("mnzn-power-100c"), "{err}");
 }
+
+/// `evaluate` stays total: over a grid of extreme turns, both reset sides and no load, no
+/// figure is NaN and the limits are still ranked (an invariant of the engine, no source).
+#[test]
+fn evaluate_is_total_over_extreme_turns() {
+    for side in ["primary", "secondary"] {
+        for np in [1, 7, 200] {
+            for ns in [1, 10, 150] {
+                for nr in [1, 20, 300] {
+                    for load in [2.0, 0.0] {
+                        let extra = format!("reset_side = \"{side}\"");
+                        let mut b = build(np, ns, nr, &extra, MATERIAL);
+                        b.operating.as_mut().unwrap().iout_a = load;
+                        let e = engine::evaluate(&b);
+                        let c = e.converter.as_ref().unwrap();
+                        for x in [
+                            c.reset_duty_limit,
+                            c.switch_voltage_v,
+                            c.duty_margin,
+                            c.reset_time_us,
+                            c.flux_swing_worst_mt.unwrap(),
+                            c.flux_swing_steady_mt.unwrap(),
+                        ] {
+                            assert!(!x.is_nan(), "{side} {np}/{ns}/{nr} {load}");
+                        }
+                        let l = e.losses.as_ref().unwrap();
+                        assert!(
+                            !l.total_loss_w.is_nan() && !l.temperature_rise_c.unwrap().is_nan()
+                        );
+                        for w in &e.windings {
+                            if let Some(a) = &w.ac {
+                                assert!(a.ac_factor_waveform.is_none_or(|f| f >= 1.0 - 1e-9));
+                            }
+                        }
+                        assert!(e.limits.windows(2).all(|p| p[0].margin <= p[1].margin));
+                    }
+                }
+            }
+        }
+    }
+}
