@@ -48,6 +48,25 @@ pub fn layer_factor(d: f64, f_a: f64, f_b: f64) -> f64 {
     d * (g1 * (f_a * f_a + f_b * f_b) - 4.0 * g2 * f_a * f_b) / (df * df)
 }
 
+/// `layer_factor` with G1 and G2 from one `exp` and one `sin_cos` by the double-angle
+/// identities: the same formula, about five times cheaper, for the harmonic sums.
+pub fn layer_factor_fast(d: f64, f_a: f64, f_b: f64) -> f64 {
+    let df = f_b - f_a;
+    if d < D_SMALL || df == 0.0 || !d.is_finite() {
+        return 1.0;
+    }
+    let (g1, g2) = if d > D_LARGE {
+        (1.0, 0.0)
+    } else {
+        let e = d.exp();
+        let (sh, ch) = (0.5 * (e - 1.0 / e), 0.5 * (e + 1.0 / e));
+        let (s, c) = d.sin_cos();
+        let den = (ch * ch + sh * sh) - (c * c - s * s);
+        ((2.0 * sh * ch + 2.0 * s * c) / den, (sh * c + ch * s) / den)
+    };
+    d * (g1 * (f_a * f_a + f_b * f_b) - 4.0 * g2 * f_a * f_b) / (df * df)
+}
+
 /// Dowell's m-layer formula for a portion whose MMF starts at zero:
 /// `F_R = D [M(D) + 2 (m^2 - 1) / 3 D'(D)]`, M = G1, D' = (sinh D - sin D)/(cosh D + cos D).
 pub fn dowell_fr(d: f64, m: u32) -> f64 {

@@ -1,6 +1,7 @@
 //! Single-switch forward converter figures from the operating point: reset duty limit,
-//! switch voltage, duty needed, worst-case flux swing (definitions in the format spec).
+//! switch voltage, duty needed, flux swing, magnetising and reset currents (format spec).
 
+use super::magnetics::{self, AlSource};
 use crate::model::{Build, ResetSide, Role};
 
 #[derive(Debug, Clone, PartialEq)]
@@ -11,18 +12,51 @@ pub struct ConverterEval {
     pub nr: u32,
     /// Largest duty at which the core fully resets within a period at `vin_max_v`.
     pub reset_duty_limit: f64,
+    /// `Np / (Np + Nr)`: the limit the same turns would give with the reset clamped to the
+    /// input (equal to `reset_duty_limit` for primary-side reset).
+    pub reset_duty_limit_primary_side: f64,
     /// The duty the converter may use: min(duty_limit, reset_duty_limit).
     pub duty_max: f64,
+    /// `duty_max`, and for secondary-side reset also at most `1 - Nr/Ns`.
+    pub duty_available: f64,
     /// Switch off-state voltage at `vin_max_v` (no leakage spike).
     pub switch_voltage_v: f64,
     /// Duty needed at `vin_min_v`, continuous conduction, ideal switch.
     pub duty_needed_at_vin_min: f64,
+    /// Duty needed at `vin_max_v`, the same way.
+    pub duty_needed_at_vin_max: f64,
+    /// `duty_available - duty_needed_at_vin_min`; negative when the output is out of reach.
+    pub duty_margin: f64,
     /// Secondary-side reset only: the steady-state duty must stay below `1 - Nr/Ns`.
     pub steady_duty_ceiling: Option<f64>,
+    /// Reset time in steady state at `vin_min_v` (the longest on-time there is).
+    pub reset_time_us: f64,
+    /// Reset time after the longest on-time at `vin_max_v` (`duty_max`).
+    pub reset_time_worst_us: f64,
     /// `vin_max_v x duty_max / (f Np Ae)`, when the bobbin has core data.
     pub flux_swing_worst_mt: Option<f64>,
+    /// Steady state: `vin_min_v x D / (f Np Ae)`, D the duty used at `vin_min_v`.
+    pub flux_swing_steady_mt: Option<f64>,
     /// `bsat_mt - br_mt`, when the build gives a material.
     pub flux_headroom_mt: Option<f64>,
+    /// AL used for the magnetising inductance, and where it came from.
+    pub al_nh: Option<f64>,
+    pub al_source: Option<AlSource>,
+    /// `AL Np^2`.
+    pub magnetising_uh: Option<f64>,
+    /// Peak magnetising current in steady state at `vin_min_v`.
+    pub magnetising_peak_a: Option<f64>,
+    /// Peak magnetising current after the worst-case on-time (`vin_max_v`, `duty_max`).
+    pub magnetising_peak_worst_a: Option<f64>,
+    /// The reset winding's current: `Np/Nr` times the magnetising peak, falling to zero
+    /// over the reset time (steady state at `vin_min_v`).
+    pub reset_peak_a: Option<f64>,
+    pub reset_peak_worst_a: Option<f64>,
+    pub reset_rms_a: Option<f64>,
+    /// `reset_rms_a` over the first reset winding's copper area (set by the evaluation).
+    pub reset_current_density_a_mm2: Option<f64>,
+    /// The duty used at `vin_min_v` for the currents: min(needed, available).
+    pub duty_used_at_vin_min: f64,
 }
 
 /// `None` when the build has no operating point or lacks what it needs (validation refuses
@@ -33,6 +67,10 @@ pub fn evaluate(build: &Build) -> Option<ConverterEval> {
     let ns = build.first_of(Role::Secondary)?.turns;
     let nr = build.first_of(Role::Reset)?.turns;
     let f_hz = build.setup.frequency_khz? * 1e3;
+    if np == 0 || ns == 0 || nr == 0 || f_hz <= 0.0 {
+        return None;
+    }
+    let period_s = 1.0 / f_hz;
     let (npf, nsf, nrf) = (f64::from(np), f64::from(ns), f64::from(nr));
     let vo = op.vout_v + op.rectifier_drop_v;
     let (reset_duty_limit, switch_voltage_v, steady_duty_ceiling) = match op.reset_side {
@@ -46,22 +84,54 @@ pub fn evaluate(build: &Build) -> Option<ConverterEval> {
     let duty_max = op
         .duty_limit
         .map_or(reset_duty_limit, |d| d.min(reset_duty_limit));
-    let flux_swing_worst_mt = build
-        .bobbin
-        .core
-        .as_ref()
-        .map(|core| op.vin_max_v * duty_max / (f_hz * npf * core.ae_mm2 * 1e-6) * 1e3);
+    let duty_available = steady_duty_ceiling.map_or(duty_max, |c| duty_max.min(c.max(0.0)));
+    let duty_needed_at_vin_min = vo * npf / (nsf * op.vin_min_v);
+    let duty_needed_at_vin_max = vo * npf / (nsf * op.vin_max_v);
+    let duty_used = duty_needed_at_vin_min.min(duty_available).max(0.0);
+    // Volt-second balance: the reset voltage on the primary is Vin Np/Nr (clamped to the
+    // input) or Vo' Np/Nr (clamped to the output).
+    let reset_fraction = |vin: f64, duty: f64| match op.reset_side {
+        ResetSide::Primary => duty * nrf / npf,
+        ResetSide::Secondary => vin * duty * nrf / (vo * npf),
+    };
+    let reset_used = reset_fraction(op.vin_min_v, duty_used);
+    let core = build.bobbin.core.as_ref();
+    let swing_mt =
+        |vin: f64, duty: f64| core.map(|c| vin * duty / (f_hz * npf * c.ae_mm2 * 1e-6) * 1e3);
+    let al = core.and_then(|c| magnetics::al_nh(c, build.material.as_ref()));
+    let lm_h = al.map(|(al, _)| al * 1e-9 * npf * npf).filter(|l| *l > 0.0);
+    let im_steady = lm_h.map(|l| op.vin_min_v * duty_used * period_s / l);
+    let im_worst = lm_h.map(|l| op.vin_max_v * duty_max * period_s / l);
+    let reset_peak_a = im_steady.map(|i| i * npf / nrf);
     Some(ConverterEval {
         reset_side: op.reset_side,
         np,
         ns,
         nr,
         reset_duty_limit,
+        reset_duty_limit_primary_side: npf / (npf + nrf),
         duty_max,
+        duty_available,
         switch_voltage_v,
-        duty_needed_at_vin_min: vo * npf / (nsf * op.vin_min_v),
+        duty_needed_at_vin_min,
+        duty_needed_at_vin_max,
+        duty_margin: duty_available - duty_needed_at_vin_min,
         steady_duty_ceiling,
-        flux_swing_worst_mt,
+        reset_time_us: reset_used * period_s * 1e6,
+        reset_time_worst_us: reset_fraction(op.vin_max_v, duty_max) * period_s * 1e6,
+        flux_swing_worst_mt: swing_mt(op.vin_max_v, duty_max),
+        flux_swing_steady_mt: swing_mt(op.vin_min_v, duty_used),
         flux_headroom_mt: build.material.as_ref().map(|m| m.bsat_mt - m.br_mt),
+        al_nh: al.map(|a| a.0),
+        al_source: al.map(|a| a.1),
+        magnetising_uh: lm_h.map(|l| l * 1e6),
+        magnetising_peak_a: im_steady,
+        magnetising_peak_worst_a: im_worst,
+        reset_peak_a,
+        reset_peak_worst_a: im_worst.map(|i| i * npf / nrf),
+        // A triangle from the peak to zero over the reset time.
+        reset_rms_a: reset_peak_a.map(|i| i * (reset_used.min(1.0) / 3.0).sqrt()),
+        reset_current_density_a_mm2: None,
+        duty_used_at_vin_min: duty_used,
     })
 }

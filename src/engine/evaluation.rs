@@ -3,8 +3,12 @@
 use super::ac;
 use super::constants::{FIT_TOLERANCE_MM, MM};
 use super::converter::{self, ConverterEval};
+use super::currents::{self, CurrentSource, WindingCurrent};
+use super::harmonics::{self, HARMONICS};
 use super::layout::{self, Laid, LaidKind};
 use super::leakage;
+use super::limits::{self, CURRENT_DENSITY_BAND_A_MM2, Constraint, Limit};
+use super::losses::{self, LossEval};
 use super::resistance::{area_mm2, ohm_per_m, rho_ohm_m};
 use super::validate::validate;
 use super::warnings;
@@ -27,6 +31,10 @@ pub struct Evaluation {
     pub windings: Vec<WindingEval>,
     pub leakage: Vec<LeakageEval>,
     pub converter: Option<ConverterEval>,
+    /// Copper, core, total loss and temperature rise (with an operating point).
+    pub losses: Option<LossEval>,
+    /// What limits the design, the binding constraint first.
+    pub limits: Vec<Limit>,
     pub warnings: Vec<Warning>,
     /// Remarks that are not warnings (e.g. what the 1-D leakage model cannot see).
     pub notes: Vec<String>,
@@ -77,8 +85,12 @@ pub struct SectionEval {
 #[derive(Debug, Clone, PartialEq)]
 pub struct AcFigures {
     pub skin_depth_mm: f64,
+    /// Sinusoid at `frequency_khz` (the format contract's `ac_factor`).
     pub ac_factor: f64,
     pub rac_ohm: f64,
+    /// Summed over the harmonics of the winding's own waveform, when it has one.
+    pub ac_factor_waveform: Option<f64>,
+    pub rac_waveform_ohm: Option<f64>,
 }
 
 #[derive(Debug, Clone, PartialEq)]
@@ -95,8 +107,16 @@ pub struct WindingEval {
     pub mlt_mm: f64,
     pub dcr_ohm: f64,
     pub ac: Option<AcFigures>,
-    /// Current density from `current_rms_a`, when given.
+    /// Current density from the RMS current used (given, or from the operating point).
     pub current_density_a_mm2: Option<f64>,
+    /// RMS current used: `current_rms_a` when given, else the operating point's.
+    pub current_rms_a: Option<f64>,
+    pub current_source: Option<CurrentSource>,
+    /// What the operating point gives, shown beside a given current for comparison.
+    pub current_model_rms_a: Option<f64>,
+    /// `I_rms^2 x` the waveform AC resistance (or the sinusoidal one, or DC, when that is
+    /// all there is; see the format document).
+    pub copper_loss_w: Option<f64>,
 }
 
 #[derive(Debug, Clone, PartialEq)]
@@ -179,7 +199,11 @@ pub(super) fn evaluate(build: &Build) -> Evaluation {
                 dcr_ohm: ohm_per_m(wires[i].bare_mm, w.strands, build.setup.temperature_c)
                     * length_m,
                 ac: None,
-                current_density_a_mm2: w.current_rms_a.map(|a| a / copper_area_mm2),
+                current_density_a_mm2: None,
+                current_rms_a: None,
+                current_source: None,
+                current_model_rms_a: None,
+                copper_loss_w: None,
             }
         })
         .collect();
@@ -198,16 +222,52 @@ pub(super) fn evaluate(build: &Build) -> Evaluation {
     };
 
     let leakage = leakage_pairs(build, &laid);
-    let mut ac_warnings = Vec::new();
-    if let Some(f_khz) = build.setup.frequency_khz {
-        ac_figures(build, &laid, &wires, f_khz, &mut windings, &mut ac_warnings);
-    }
-
-    let converter = if validate(build).is_empty() {
+    let mut converter = if validate(build).is_empty() {
         converter::evaluate(build)
     } else {
         None
     };
+    if let Some(c) = converter.as_mut()
+        && let Some(r) = windings.iter().find(|w| w.role == Role::Reset)
+        && r.copper_area_mm2 > 0.0
+    {
+        c.reset_current_density_a_mm2 = c.reset_rms_a.map(|i| i / r.copper_area_mm2);
+    }
+    let currents = currents::winding_currents(build, converter.as_ref());
+    for (w, c) in windings.iter_mut().zip(&currents) {
+        w.current_rms_a = c.rms_a;
+        w.current_source = c.source;
+        w.current_model_rms_a = c.model_rms_a;
+        w.current_density_a_mm2 = c
+            .rms_a
+            .filter(|_| w.copper_area_mm2 > 0.0)
+            .map(|a| a / w.copper_area_mm2);
+    }
+    let mut ac_warnings = Vec::new();
+    if let Some(f_khz) = build.setup.frequency_khz {
+        ac_figures(
+            build,
+            &laid,
+            &wires,
+            f_khz,
+            &currents,
+            &mut windings,
+            &mut ac_warnings,
+        );
+    }
+    for w in windings.iter_mut() {
+        let r =
+            w.ac.as_ref()
+                .map_or(w.dcr_ohm, |a| a.rac_waveform_ohm.unwrap_or(a.rac_ohm));
+        w.copper_loss_w = w.current_rms_a.map(|i| i * i * r);
+    }
+    let losses = converter.as_ref().map(|c| {
+        let copper: Vec<(String, Option<f64>)> = windings
+            .iter()
+            .map(|w| (w.name.clone(), w.copper_loss_w))
+            .collect();
+        losses::evaluate(build, c, &copper)
+    });
 
     let mut eval = Evaluation {
         usable_width_mm: layout::usable_width_mm(build),
@@ -221,10 +281,13 @@ pub(super) fn evaluate(build: &Build) -> Evaluation {
         sections,
         windings,
         leakage,
+        limits: Vec::new(),
         converter,
+        losses,
         warnings: Vec::new(),
         notes: Vec::new(),
     };
+    eval.limits = design_limits(&eval);
     warnings::collect(build, &mut eval);
     eval.warnings.extend(ac_warnings);
     eval
@@ -333,6 +396,7 @@ fn ac_figures(
     laid: &[Laid],
     wires: &[crate::library::wires::ResolvedWire],
     f_khz: f64,
+    currents: &[WindingCurrent],
     windings: &mut [WindingEval],
     warnings: &mut Vec<Warning>,
 ) {
@@ -345,13 +409,12 @@ fn ac_figures(
         .iter()
         .position(|w| w.role == Role::Secondary);
 
-    // Per winding: sum of (layer length x factor) and sum of layer lengths.
-    let mut weighted = vec![0.0; n];
-    let mut total = vec![0.0; n];
+    // Per winding, every layer it has: (D at the switching frequency, F_a, F_b, length).
+    // D is found once; the n-th harmonic's is D sqrt(n).
+    let mut layers_of: Vec<Vec<(f64, f64, f64, f64)>> = vec![Vec::new(); n];
     let mut skip = vec![false; n];
     let mut layer_into = |k: usize, d: f64, f_a: f64, f_b: f64, length: f64| {
-        weighted[k] += ac::layer_factor(d, f_a, f_b) * length;
-        total[k] += length;
+        layers_of[k].push((d, f_a, f_b, length));
     };
     let d_of = |k: usize, turns: u32| {
         let conductors = f64::from(turns) * f64::from(build.windings[k].strands.max(1));
@@ -433,14 +496,86 @@ fn ac_figures(
         }
     }
     for (k, w) in windings.iter_mut().enumerate() {
-        if skip[k] || total[k] <= 0.0 {
+        let layers = &layers_of[k];
+        let total: f64 = layers.iter().map(|l| l.3).sum();
+        if skip[k] || total <= 0.0 {
             continue;
         }
-        let ac_factor = weighted[k] / total[k];
+        let ac_factor = layers
+            .iter()
+            .map(|&(d, f_a, f_b, length)| ac::layer_factor(d, f_a, f_b) * length)
+            .sum::<f64>()
+            / total;
+        let ac_factor_waveform = currents[k].waveform.as_ref().map(|wave| {
+            let spectrum = harmonics::spectrum(wave, HARMONICS);
+            harmonics::waveform_factor(&spectrum, |h| {
+                let root_n = (h as f64).sqrt();
+                layers
+                    .iter()
+                    .map(|&(d, f_a, f_b, length)| {
+                        ac::layer_factor_fast(d * root_n, f_a, f_b) * length
+                    })
+                    .sum::<f64>()
+                    / total
+            })
+        });
         w.ac = Some(AcFigures {
             skin_depth_mm: delta_mm,
             ac_factor,
             rac_ohm: ac_factor * w.dcr_ohm,
+            ac_factor_waveform,
+            rac_waveform_ohm: ac_factor_waveform.map(|f| f * w.dcr_ohm),
         });
     }
+}
+
+/// Fit, duty, saturation, temperature and current density, binding first.
+fn design_limits(eval: &Evaluation) -> Vec<Limit> {
+    let mut out = vec![Limit::new(
+        Constraint::Fit,
+        eval.height_with_allowance_mm,
+        eval.window_height_mm,
+        "mm",
+        None,
+    )];
+    if let Some(c) = &eval.converter {
+        out.push(Limit::new(
+            Constraint::ResetDuty,
+            c.duty_needed_at_vin_min,
+            c.duty_available,
+            "duty",
+            None,
+        ));
+        if let (Some(swing), Some(head)) = (c.flux_swing_worst_mt, c.flux_headroom_mt) {
+            out.push(Limit::new(Constraint::Saturation, swing, head, "mT", None));
+        }
+    }
+    if let Some(rise) = eval
+        .losses
+        .as_ref()
+        .and_then(|l| l.temperature_rise_c.map(|r| (r, l.rise_limit_c)))
+    {
+        out.push(Limit::new(
+            Constraint::TemperatureRise,
+            rise.0,
+            rise.1,
+            "C",
+            None,
+        ));
+    }
+    if let Some((name, j)) = eval
+        .windings
+        .iter()
+        .filter_map(|w| w.current_density_a_mm2.map(|j| (&w.name, j)))
+        .max_by(|a, b| a.1.total_cmp(&b.1))
+    {
+        out.push(Limit::new(
+            Constraint::CurrentDensity,
+            j,
+            CURRENT_DENSITY_BAND_A_MM2.1,
+            "A/mm2",
+            Some(name.clone()),
+        ));
+    }
+    limits::rank(out)
 }

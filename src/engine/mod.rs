@@ -4,22 +4,33 @@
 pub mod ac;
 pub mod constants;
 pub mod converter;
+pub mod core_loss;
 pub mod core_test;
+pub mod currents;
 mod evaluation;
 pub mod geometry;
+pub mod harmonics;
 pub mod isolation;
 pub mod layout;
 pub mod leakage;
+pub mod limits;
+pub mod losses;
+pub mod magnetics;
 pub mod resistance;
 pub mod search;
+pub mod thermal;
 pub mod validate;
 mod warnings;
 
 pub use converter::ConverterEval;
+pub use currents::CurrentSource;
 pub use evaluation::{
     AcFigures, Evaluation, LayerEval, LeakageEval, SectionEval, SectionKind, Warning, WarningAt,
     WindingEval,
 };
+pub use limits::{Constraint, Limit};
+pub use losses::LossEval;
+pub use magnetics::AlSource;
 pub use validate::{Invalid, Place, validate, validate_bobbin};
 
 use crate::model::Build;

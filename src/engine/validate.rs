@@ -438,6 +438,16 @@ pub fn validate(build: &Build) -> Vec<Invalid> {
                 format!("expected a fraction between 0 and 1, got {d}"),
             );
         }
+        for (key, v) in [
+            ("rise_limit_c", op.rise_limit_c),
+            ("surface_area_cm2", op.surface_area_cm2),
+        ] {
+            if let Some(v) = v
+                && !positive(v)
+            {
+                bad(Place::Operating(key), format!("must be positive, got {v}"));
+            }
+        }
     }
     if let Some(m) = &build.material {
         if !positive(m.bsat_mt) {
@@ -466,6 +476,14 @@ pub fn validate(build: &Build) -> Vec<Invalid> {
             bad(
                 Place::Material("steinmetz"),
                 "k, alpha and beta must all be positive".into(),
+            );
+        }
+        if let Some(g) = m.gap_mm
+            && !(g.is_finite() && g >= 0.0)
+        {
+            bad(
+                Place::Material("gap_mm"),
+                format!("must be zero or a positive length in mm, got {g}"),
             );
         }
     }

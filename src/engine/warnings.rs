@@ -1,6 +1,7 @@
 //! Warnings as data: what a winder should know about a build that is valid but risky.
 
 use super::evaluation::{Evaluation, SectionKind, Warning, WarningAt};
+use super::limits::CURRENT_DENSITY_BAND_A_MM2;
 use super::validate::validate;
 use crate::model::{Build, Insulation};
 
@@ -112,8 +113,25 @@ pub(super) fn collect(build: &Build, eval: &mut Evaluation) {
     }
     if let Some(c) = &eval.converter {
         converter_warnings(c, &mut warn);
+        if let Some(op) = &build.operating
+            && op.duty_limit.is_some_and(|d| d > c.reset_duty_limit)
+        {
+            warn(
+                "reset-below-controller",
+                WarningAt::Converter,
+                format!(
+                    "the controller may command {:.0} % but the core resets only up to {:.0} %: in a load step at \
+                     high input it walks up the B-H loop into saturation (lower duty_limit, or fewer reset turns)",
+                    op.duty_limit.unwrap_or(0.0) * 100.0,
+                    c.reset_duty_limit * 100.0
+                ),
+            );
+        }
     }
+    let mut notes = Vec::new();
+    operating_warnings(build, eval, &mut warn, &mut notes);
     eval.warnings = out;
+    eval.notes.extend(notes);
 
     let mut bifilar: Vec<String> = eval
         .sections
@@ -197,5 +215,86 @@ fn converter_warnings(
                  the core saturates (more primary turns, a larger core or a lower duty limit)"
             ),
         );
+    }
+}
+
+/// Current density, temperature rise, and what the operating-point figures had to leave out.
+fn operating_warnings(
+    build: &Build,
+    eval: &Evaluation,
+    warn: &mut impl FnMut(&'static str, WarningAt, String),
+    notes: &mut Vec<String>,
+) {
+    use crate::model::Role;
+    let band = CURRENT_DENSITY_BAND_A_MM2;
+    for (k, w) in eval.windings.iter().enumerate() {
+        let Some(j) = w.current_density_a_mm2 else {
+            continue;
+        };
+        if j <= band.1 {
+            continue;
+        }
+        let message = if w.role == Role::Reset {
+            format!(
+                "\"{}\" runs at {j:.1} A/mm2: a reset winding is thin because it carries only the magnetising \
+                 current, but this one is large (a low AL, a gapped core, or few primary turns): use a thicker wire",
+                w.name
+            )
+        } else {
+            format!(
+                "\"{}\" runs at {j:.1} A/mm2 RMS, above the {:.0}-{:.0} A/mm2 that small transformers usually run at \
+                 (common practice): expect it to run hot",
+                w.name, band.0, band.1
+            )
+        };
+        warn("current-density", WarningAt::Winding(k), message);
+    }
+    if let Some(l) = &eval.losses
+        && let Some(rise) = l.temperature_rise_c
+        && rise > l.rise_limit_c
+    {
+        warn(
+            "temperature-rise",
+            WarningAt::Build,
+            format!(
+                "estimated temperature rise {rise:.0} C is above the {:.0} C limit ({:.2} W over {:.1} cm2): \
+                 less loss (thinner strands, interleaving, more copper) or a larger core",
+                l.rise_limit_c,
+                l.total_loss_w,
+                l.surface_area_cm2.unwrap_or(0.0)
+            ),
+        );
+    }
+    let Some(c) = &eval.converter else {
+        return;
+    };
+    if build.bobbin.core.is_none() {
+        notes.push(
+            "the bobbin has no [core] data (ae_mm2, le_mm): flux swing, magnetising current, core loss and the \
+             surface-area estimate for the temperature rise are left out"
+                .into(),
+        );
+    } else if c.al_nh.is_none() {
+        notes.push(
+            "no al_nh in [core] and no mu_i in [material]: the magnetising current is taken as zero".into(),
+        );
+    }
+    if build.bobbin.core.is_some() && build.material.as_ref().and_then(|m| m.steinmetz).is_none() {
+        notes.push("no steinmetz coefficients in [material]: core loss is left out".into());
+    }
+    if let Some(l) = &eval.losses {
+        if l.surface_estimated {
+            notes.push(format!(
+                "surface area estimated as {:.1} x sqrt(Wa Ae) with the bobbin window as Wa (McLyman; errs toward a \
+                 higher rise); give [operating] surface_area_cm2 to use a measured one",
+                super::thermal::SURFACE_KS
+            ));
+        }
+        if !l.windings_without_current.is_empty() {
+            notes.push(format!(
+                "no current for {}: its copper loss is not counted (give current_rms_a)",
+                l.windings_without_current.join(", ")
+            ));
+        }
     }
 }

@@ -4,6 +4,7 @@
 use super::raw::{self, BobbinBody, BobbinField, BuildFile, WireField};
 use super::{BobbinLibrary, LoadError};
 use crate::engine::{Invalid, Place, isolation, validate, validate_bobbin};
+use crate::library::materials;
 use crate::model::{
     Bobbin, BobbinSource, Build, Core, Insulation, Isolation, IsolationClass, Material, Operating,
     ResetSide, Role, Section, Setup, Steinmetz, Tube, Winding, WindingSection, Window, WireSize,
@@ -431,6 +432,8 @@ pub(super) fn build(
             put(sp, "iout_a", &o.iout_a);
             put_opt(sp, "rectifier_drop_v", &o.rectifier_drop_v);
             put_opt(sp, "duty_limit", &o.duty_limit);
+            put_opt(sp, "rise_limit_c", &o.rise_limit_c);
+            put_opt(sp, "surface_area_cm2", &o.surface_area_cm2);
             if let Some(c) = &o.converter
                 && c.get_ref() != "forward"
             {
@@ -461,30 +464,15 @@ pub(super) fn build(
                 iout_a: o.iout_a.into_inner(),
                 rectifier_drop_v: o.rectifier_drop_v.map_or(0.0, Spanned::into_inner),
                 duty_limit: o.duty_limit.map(Spanned::into_inner),
+                rise_limit_c: o.rise_limit_c.map(Spanned::into_inner),
+                surface_area_cm2: o.surface_area_cm2.map(Spanned::into_inner),
             })
         }
     };
-    let material = file.material.map(|m| {
-        spans.top.insert("material", m.span());
-        let m = m.into_inner();
-        put(&mut spans.material, "bsat_mt", &m.bsat_mt);
-        put(&mut spans.material, "br_mt", &m.br_mt);
-        put_opt(&mut spans.material, "mu_i", &m.mu_i);
-        put_opt(&mut spans.material, "steinmetz", &m.steinmetz);
-        Material {
-            bsat_mt: m.bsat_mt.into_inner(),
-            br_mt: m.br_mt.into_inner(),
-            mu_i: m.mu_i.map(Spanned::into_inner),
-            steinmetz: m.steinmetz.map(|s| {
-                let s: raw::SteinmetzRaw = s.into_inner();
-                Steinmetz {
-                    k: s.k,
-                    alpha: s.alpha,
-                    beta: s.beta,
-                }
-            }),
-        }
-    });
+    let material = match file.material {
+        None => None,
+        Some(m) => Some(material(&cx, m, &mut spans)?),
+    };
 
     let isolation = match file.isolation {
         None => None,
@@ -533,4 +521,63 @@ pub(super) fn build(
         return Err(cx.invalid(&spans, &problems));
     }
     Ok(build)
+}
+
+/// `[material]`: a bundled grade's typical figures, with the file's explicit keys over them.
+fn material(
+    cx: &Ctx,
+    m: Spanned<raw::MaterialRaw>,
+    spans: &mut Spans,
+) -> Result<Material, LoadError> {
+    let whole = m.span();
+    spans.top.insert("material", whole.clone());
+    let m = m.into_inner();
+    let sp = &mut spans.material;
+    put_opt(sp, "grade", &m.grade);
+    put_opt(sp, "bsat_mt", &m.bsat_mt);
+    put_opt(sp, "br_mt", &m.br_mt);
+    put_opt(sp, "mu_i", &m.mu_i);
+    put_opt(sp, "steinmetz", &m.steinmetz);
+    put_opt(sp, "gap_mm", &m.gap_mm);
+    let grade = match &m.grade {
+        None => None,
+        Some(g) => Some(materials::find(g.get_ref()).ok_or_else(|| {
+            cx.err(
+                Some(g.span()),
+                "material.grade",
+                format!(
+                    "unknown grade \"{}\"; the bundled grades are: {}",
+                    g.get_ref(),
+                    materials::ids().join(", ")
+                ),
+            )
+        })?),
+    };
+    let need = |v: Option<Spanned<f64>>, key: &str, typical: Option<f64>| {
+        v.map(Spanned::into_inner).or(typical).ok_or_else(|| {
+            cx.err(
+                Some(whole.start..whole.start),
+                format!("material.{key}"),
+                format!("missing key `{key}`; give it, or a `grade` that supplies it"),
+            )
+        })
+    };
+    Ok(Material {
+        bsat_mt: need(m.bsat_mt, "bsat_mt", grade.map(|g| g.bsat_mt))?,
+        br_mt: need(m.br_mt, "br_mt", grade.map(|g| g.br_mt))?,
+        mu_i: m.mu_i.map(Spanned::into_inner).or(grade.map(|g| g.mu_i)),
+        steinmetz: m
+            .steinmetz
+            .map(|s| {
+                let s: raw::SteinmetzRaw = s.into_inner();
+                Steinmetz {
+                    k: s.k,
+                    alpha: s.alpha,
+                    beta: s.beta,
+                }
+            })
+            .or(grade.map(|g| g.steinmetz)),
+        gap_mm: m.gap_mm.map(Spanned::into_inner),
+        grade: grade.map(|g| g.id.to_string()),
+    })
 }

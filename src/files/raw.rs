@@ -212,15 +212,20 @@ pub struct OperatingRaw {
     pub iout_a: Spanned<f64>,
     pub rectifier_drop_v: Option<Spanned<f64>>,
     pub duty_limit: Option<Spanned<f64>>,
+    pub rise_limit_c: Option<Spanned<f64>>,
+    pub surface_area_cm2: Option<Spanned<f64>>,
 }
 
 #[derive(Debug, Deserialize)]
 #[serde(deny_unknown_fields)]
 pub struct MaterialRaw {
-    pub bsat_mt: Spanned<f64>,
-    pub br_mt: Spanned<f64>,
+    /// A generic grade from the bundled library; explicit keys override its values.
+    pub grade: Option<Spanned<String>>,
+    pub bsat_mt: Option<Spanned<f64>>,
+    pub br_mt: Option<Spanned<f64>>,
     pub mu_i: Option<Spanned<f64>>,
     pub steinmetz: Option<Spanned<SteinmetzRaw>>,
+    pub gap_mm: Option<Spanned<f64>>,
 }
 
 #[derive(Debug, Deserialize)]

@@ -197,15 +197,35 @@ pub fn build_to_toml(build: &Build) -> String {
         if let Some(d) = o.duty_limit {
             let _ = writeln!(out, "duty_limit = {}", num(d));
         }
+        if let Some(v) = o.rise_limit_c {
+            let _ = writeln!(out, "rise_limit_c = {}", num(v));
+        }
+        if let Some(v) = o.surface_area_cm2 {
+            let _ = writeln!(out, "surface_area_cm2 = {}", num(v));
+        }
     }
     if let Some(m) = &build.material {
         let _ = writeln!(out, "\n[material]");
-        let _ = writeln!(out, "bsat_mt = {}", num(m.bsat_mt));
-        let _ = writeln!(out, "br_mt = {}", num(m.br_mt));
-        if let Some(mu) = m.mu_i {
+        // With a grade, only the values that differ from it are written: they are the
+        // user's overrides, and reading the file back gives the same material.
+        let grade = m.grade.as_deref().and_then(crate::library::materials::find);
+        if let Some(g) = grade {
+            let _ = writeln!(out, "grade = {}", quote(g.id));
+        }
+        if grade.is_none_or(|g| g.bsat_mt != m.bsat_mt) {
+            let _ = writeln!(out, "bsat_mt = {}", num(m.bsat_mt));
+        }
+        if grade.is_none_or(|g| g.br_mt != m.br_mt) {
+            let _ = writeln!(out, "br_mt = {}", num(m.br_mt));
+        }
+        if let Some(mu) = m.mu_i
+            && grade.is_none_or(|g| g.mu_i != mu)
+        {
             let _ = writeln!(out, "mu_i = {}", num(mu));
         }
-        if let Some(st) = m.steinmetz {
+        if let Some(st) = m.steinmetz
+            && grade.is_none_or(|g| g.steinmetz != st)
+        {
             let _ = writeln!(
                 out,
                 "steinmetz = {{ k = {}, alpha = {}, beta = {} }}",
@@ -213,6 +233,9 @@ pub fn build_to_toml(build: &Build) -> String {
                 num(st.alpha),
                 num(st.beta)
             );
+        }
+        if let Some(g) = m.gap_mm {
+            let _ = writeln!(out, "gap_mm = {}", num(g));
         }
     }
     if let Some(i) = &build.isolation {

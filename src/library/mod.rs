@@ -1,5 +1,7 @@
-//! Reference data compiled into the program: wire tables and the bundled bobbins.
+//! Reference data compiled into the program: wire tables, the bundled bobbins and the
+//! generic ferrite grades.
 
 pub mod bobbins;
 pub mod demo;
+pub mod materials;
 pub mod wires;

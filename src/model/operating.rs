@@ -17,6 +17,10 @@ pub struct Operating {
     pub iout_a: f64,
     pub rectifier_drop_v: f64,
     pub duty_limit: Option<f64>,
+    /// Temperature rise the user accepts; `None` takes the engine's default.
+    pub rise_limit_c: Option<f64>,
+    /// Outer surface of the wound transformer; `None` lets the engine estimate it.
+    pub surface_area_cm2: Option<f64>,
 }
 
 /// Steinmetz coefficients: P in kW/m^3 with f in kHz and B in T.
@@ -27,10 +31,15 @@ pub struct Steinmetz {
     pub beta: f64,
 }
 
+/// The core's ferrite. With a `grade`, the values are that grade's typical figures with the
+/// file's explicit keys written over them; the values here are always the resolved ones.
 #[derive(Debug, Clone, PartialEq)]
 pub struct Material {
+    pub grade: Option<String>,
     pub bsat_mt: f64,
     pub br_mt: f64,
     pub mu_i: Option<f64>,
     pub steinmetz: Option<Steinmetz>,
+    /// Total air gap in the magnetic path of the assembled core; with `mu_i` it sets AL.
+    pub gap_mm: Option<f64>,
 }

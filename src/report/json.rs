@@ -51,9 +51,27 @@ pub fn report(build: &Build, eval: &Evaluation) -> Value {
                 v["ac_factor"] = json!(a.ac_factor);
                 v["rac_ohm"] = json!(a.rac_ohm);
                 v["skin_depth_mm"] = json!(a.skin_depth_mm);
+                if let Some(f) = a.ac_factor_waveform {
+                    v["ac_factor_waveform"] = json!(f);
+                }
+                if let Some(r) = a.rac_waveform_ohm {
+                    v["rac_waveform_ohm"] = json!(r);
+                }
             }
             if let Some(j) = w.current_density_a_mm2 {
                 v["current_density_a_mm2"] = json!(j);
+            }
+            if let Some(i) = w.current_rms_a {
+                v["current_rms_a"] = json!(i);
+            }
+            if let Some(src) = w.current_source {
+                v["current_source"] = json!(src.key());
+            }
+            if let Some(i) = w.current_model_rms_a {
+                v["current_model_rms_a"] = json!(i);
+            }
+            if let Some(p) = w.copper_loss_w {
+                v["copper_loss_w"] = json!(p);
             }
             v
         })
@@ -115,7 +133,65 @@ pub fn report(build: &Build, eval: &Evaluation) -> Value {
         if let Some(v) = c.flux_headroom_mt {
             conv["flux_headroom_mt"] = json!(v);
         }
+        conv["reset_duty_limit_primary_side"] = json!(c.reset_duty_limit_primary_side);
+        conv["duty_available"] = json!(c.duty_available);
+        conv["duty_needed_at_vin_max"] = json!(c.duty_needed_at_vin_max);
+        conv["duty_margin"] = json!(c.duty_margin);
+        conv["duty_used_at_vin_min"] = json!(c.duty_used_at_vin_min);
+        conv["reset_time_us"] = json!(c.reset_time_us);
+        conv["reset_time_worst_us"] = json!(c.reset_time_worst_us);
+        for (key, v) in [
+            ("flux_swing_steady_mt", c.flux_swing_steady_mt),
+            ("al_nh", c.al_nh),
+            ("magnetising_uh", c.magnetising_uh),
+            ("magnetising_peak_a", c.magnetising_peak_a),
+            ("magnetising_peak_worst_a", c.magnetising_peak_worst_a),
+            ("reset_peak_a", c.reset_peak_a),
+            ("reset_peak_worst_a", c.reset_peak_worst_a),
+            ("reset_rms_a", c.reset_rms_a),
+            ("reset_current_density_a_mm2", c.reset_current_density_a_mm2),
+        ] {
+            if let Some(v) = v {
+                conv[key] = json!(v);
+            }
+        }
+        if let Some(s) = c.al_source {
+            conv["al_source"] = json!(s.key());
+        }
         out["converter"] = conv;
     }
+    if let Some(l) = &eval.losses {
+        let mut v = json!({
+            "copper_loss_w": l.copper_loss_w,
+            "total_loss_w": l.total_loss_w,
+            "rise_limit_c": l.rise_limit_c,
+            "surface_estimated": l.surface_estimated,
+            "windings_without_current": l.windings_without_current,
+        });
+        for (key, x) in [
+            ("core_loss_w", l.core_loss_w),
+            ("core_loss_kw_m3", l.core_loss_kw_m3),
+            ("core_volume_mm3", l.core_volume_mm3),
+            ("core_swing_mt", l.core_swing_mt),
+            ("core_duty", l.core_duty),
+            ("core_reset_fraction", l.core_reset_fraction),
+            ("surface_area_cm2", l.surface_area_cm2),
+            ("temperature_rise_c", l.temperature_rise_c),
+        ] {
+            if let Some(x) = x {
+                v[key] = json!(x);
+            }
+        }
+        out["losses"] = v;
+    }
+    out["limits"] = json!(
+        eval.limits
+            .iter()
+            .map(|l| json!({
+                "constraint": l.constraint.key(), "margin": l.margin, "used": l.used,
+                "allowed": l.allowed, "unit": l.unit, "about": l.about, "broken": l.broken(),
+            }))
+            .collect::<Vec<_>>()
+    );
     out
 }

@@ -2,7 +2,9 @@
 //! the windings, leakage, converter figures, the verdict and the warnings, in 80 columns.
 
 use super::wrap;
-use crate::engine::{Evaluation, SectionKind, WarningAt};
+use crate::engine::{
+    AlSource, ConverterEval, CurrentSource, Evaluation, Limit, LossEval, SectionKind, WarningAt,
+};
 use crate::model::{BobbinSource, Build, ResetSide, Tube};
 use std::fmt::Write as _;
 
@@ -216,35 +218,14 @@ pub fn render(build: &Build, eval: &Evaluation) -> String {
         }
     }
 
+    currents_block(&mut o, eval);
     if let Some(c) = &eval.converter {
-        let _ = writeln!(o, "\nConverter (single-switch forward)");
-        let side = match c.reset_side {
-            ResetSide::Primary => "reset to the input",
-            ResetSide::Secondary => "reset to the output",
-        };
-        let _ = writeln!(o, "  Np {} : Ns {} : Nr {}, {side}", c.np, c.ns, c.nr);
-        let _ = writeln!(
-            o,
-            "  reset duty limit       {:>7.1} %",
-            c.reset_duty_limit * 100.0
-        );
-        let _ = writeln!(
-            o,
-            "  duty needed at vin min {:>7.1} %",
-            c.duty_needed_at_vin_min * 100.0
-        );
-        let _ = writeln!(
-            o,
-            "  switch off-state       {:>7.1} V (plus the leakage spike)",
-            c.switch_voltage_v
-        );
-        if let Some(b) = c.flux_swing_worst_mt {
-            let head = c
-                .flux_headroom_mt
-                .map_or(String::new(), |h| format!(" of {h:.0} mT headroom"));
-            let _ = writeln!(o, "  worst-case flux swing  {b:>7.1} mT{head}");
-        }
+        converter_block(&mut o, c);
     }
+    if let Some(l) = &eval.losses {
+        losses_block(&mut o, l);
+    }
+    limits_block(&mut o, eval);
 
     let _ = writeln!(o, "\nWarnings");
     if eval.warnings.is_empty() {
@@ -303,5 +284,285 @@ pub fn wire_label(wire: &crate::model::WireSize, strands: u32) -> String {
         format!("{strands}x{base}")
     } else {
         base
+    }
+}
+
+fn currents_block(o: &mut String, eval: &Evaluation) {
+    if eval.windings.iter().all(|w| w.current_rms_a.is_none()) {
+        return;
+    }
+    let _ = writeln!(
+        o,
+        "\nCurrents and copper loss (RMS; AC factor over the waveform's harmonics)"
+    );
+    let _ = writeln!(
+        o,
+        "  name    I rms A  from       model A  AC factor   Rac ohm    loss W"
+    );
+    for w in &eval.windings {
+        let Some(i) = w.current_rms_a else {
+            let _ = writeln!(o, "  {:<6}  no current given", truncate(&w.name, 6));
+            continue;
+        };
+        let from = match w.current_source {
+            Some(CurrentSource::Given) => "given",
+            _ => "op. point",
+        };
+        let model = w
+            .current_model_rms_a
+            .map_or("-".to_string(), |m| format!("{m:.3}"));
+        let (fac, rac) = match &w.ac {
+            Some(a) => match (a.ac_factor_waveform, a.rac_waveform_ohm) {
+                (Some(f), Some(r)) => (format!("{f:.2}"), format!("{r:.4}")),
+                _ => (
+                    format!("{:.2} sin", a.ac_factor),
+                    format!("{:.4}", a.rac_ohm),
+                ),
+            },
+            None => ("DC".to_string(), format!("{:.4}", w.dcr_ohm)),
+        };
+        let loss = w
+            .copper_loss_w
+            .map_or("-".to_string(), |l| format!("{l:.3}"));
+        let _ = writeln!(
+            o,
+            "  {:<6} {:>8.3}  {:<9} {:>8}  {:>9}  {:>8}  {:>8}",
+            truncate(&w.name, 6),
+            i,
+            from,
+            model,
+            fac,
+            rac,
+            loss
+        );
+    }
+    let band = crate::engine::limits::CURRENT_DENSITY_BAND_A_MM2;
+    let _ = writeln!(
+        o,
+        "  current density band {:.0}-{:.0} A/mm2 RMS (common practice, natural convection)",
+        band.0, band.1
+    );
+}
+
+fn converter_block(o: &mut String, c: &ConverterEval) {
+    let _ = writeln!(o, "\nConverter (single-switch forward)");
+    let side = match c.reset_side {
+        ResetSide::Primary => "reset to the input",
+        ResetSide::Secondary => "reset to the output",
+    };
+    let _ = writeln!(o, "  Np {} : Ns {} : Nr {}, {side}", c.np, c.ns, c.nr);
+    let pct = |x: f64| x * 100.0;
+    let _ = writeln!(
+        o,
+        "  reset duty limit       {:>7.1} %",
+        pct(c.reset_duty_limit)
+    );
+    if c.reset_side == ResetSide::Secondary {
+        let _ = writeln!(
+            o,
+            "    reset to the input, these turns would allow {:.1} % ({:.1} points more)",
+            pct(c.reset_duty_limit_primary_side),
+            pct(c.reset_duty_limit_primary_side - c.reset_duty_limit)
+        );
+        if let Some(ceil) = c.steady_duty_ceiling {
+            let _ = writeln!(
+                o,
+                "    steady state: the reset takes Nr/Ns = {:.1} % of every period",
+                pct(1.0 - ceil)
+            );
+        }
+    }
+    let _ = writeln!(
+        o,
+        "  duty available         {:>7.1} %",
+        pct(c.duty_available)
+    );
+    let _ = writeln!(
+        o,
+        "  duty needed at vin min {:>7.1} %   margin {:+.1} points",
+        pct(c.duty_needed_at_vin_min),
+        pct(c.duty_margin)
+    );
+    let _ = writeln!(
+        o,
+        "  duty needed at vin max {:>7.1} %",
+        pct(c.duty_needed_at_vin_max)
+    );
+    let _ = writeln!(
+        o,
+        "  reset time             {:>7.2} us steady at vin min, {:.2} us worst case",
+        c.reset_time_us, c.reset_time_worst_us
+    );
+    let _ = writeln!(
+        o,
+        "  switch off-state       {:>7.1} V (plus the leakage spike)",
+        c.switch_voltage_v
+    );
+    match c.flux_swing_worst_mt {
+        Some(b) => {
+            let head = c
+                .flux_headroom_mt
+                .map_or(String::new(), |h| format!(" of {h:.0} mT headroom"));
+            let _ = writeln!(o, "  worst-case flux swing  {b:>7.1} mT{head}");
+            if let Some(s) = c.flux_swing_steady_mt {
+                let _ = writeln!(o, "  steady-state swing     {s:>7.1} mT");
+            }
+        }
+        None => {
+            let _ = writeln!(
+                o,
+                "  flux, magnetising current, core loss: no [core] data for this bobbin"
+            );
+        }
+    }
+    if let (Some(al), Some(src), Some(lm)) = (c.al_nh, c.al_source, c.magnetising_uh) {
+        let src = match src {
+            AlSource::Core => "the core's figure",
+            AlSource::Gapped => "from mu_i and the gap",
+            AlSource::Ungapped => "from mu_i, no gap",
+        };
+        let _ = writeln!(
+            o,
+            "  AL {al:.0} nH ({src}): magnetising inductance {lm:.0} uH"
+        );
+    } else if c.flux_swing_worst_mt.is_some() {
+        let _ = writeln!(
+            o,
+            "  no AL and no mu_i: magnetising current not computed (taken as zero)"
+        );
+    }
+    if let (Some(im), Some(iw)) = (c.magnetising_peak_a, c.magnetising_peak_worst_a) {
+        let _ = writeln!(
+            o,
+            "  magnetising current    {:>7.1} mA peak steady, {:.1} mA worst case",
+            im * 1e3,
+            iw * 1e3
+        );
+    }
+    if let (Some(pk), Some(rms), Some(w)) = (c.reset_peak_a, c.reset_rms_a, c.reset_peak_worst_a) {
+        let _ = writeln!(
+            o,
+            "  reset winding          {:>7.1} mA peak, {:.1} mA RMS ({:.1} mA peak worst)",
+            pk * 1e3,
+            rms * 1e3,
+            w * 1e3
+        );
+        if let Some(j) = c.reset_current_density_a_mm2 {
+            let why = if j <= crate::engine::limits::CURRENT_DENSITY_BAND_A_MM2.1 {
+                "only magnetising current: thin wire is fine"
+            } else {
+                "too much for a thin wire (see warnings)"
+            };
+            let _ = writeln!(o, "    {j:.2} A/mm2 in the reset wire, {why}");
+        }
+    }
+}
+
+fn losses_block(o: &mut String, l: &LossEval) {
+    let _ = writeln!(o, "\nLosses and temperature rise");
+    let _ = writeln!(
+        o,
+        "  copper                 {:>7.3} W at vin min",
+        l.copper_loss_w
+    );
+    if !l.windings_without_current.is_empty() {
+        let _ = writeln!(
+            o,
+            "    not counted (no current): {}",
+            l.windings_without_current.join(", ")
+        );
+    }
+    match (l.core_loss_w, l.core_loss_kw_m3) {
+        (Some(w), Some(p)) => {
+            let _ = writeln!(
+                o,
+                "  core (iGSE)            {w:>7.3} W at vin max: {p:.1} kW/m3 x {:.0} mm3",
+                l.core_volume_mm3.unwrap_or(0.0)
+            );
+            if let (Some(b), Some(d), Some(r)) =
+                (l.core_swing_mt, l.core_duty, l.core_reset_fraction)
+            {
+                let _ = writeln!(
+                    o,
+                    "    swing {b:.1} mT, rising over {:.1} %, reset over {:.1} % of the period",
+                    d * 100.0,
+                    r * 100.0
+                );
+            }
+        }
+        _ => {
+            let why = if l.core_volume_mm3.is_none() {
+                "no [core] data"
+            } else {
+                "no steinmetz coefficients in [material]"
+            };
+            let _ = writeln!(o, "  core                   not computed: {why}");
+        }
+    }
+    let _ = writeln!(o, "  total                  {:>7.3} W", l.total_loss_w);
+    match (l.surface_area_cm2, l.temperature_rise_c) {
+        (Some(a), Some(t)) => {
+            let how = if l.surface_estimated {
+                "estimated from Wa x Ae"
+            } else {
+                "given"
+            };
+            let _ = writeln!(
+                o,
+                "  surface {a:.1} cm2 ({how}): {:.3} W/cm2",
+                l.total_loss_w / a
+            );
+            let _ = writeln!(
+                o,
+                "  temperature rise       {t:>7.1} C (McLyman) against a {:.0} C limit",
+                l.rise_limit_c
+            );
+        }
+        _ => {
+            let _ = writeln!(
+                o,
+                "  temperature rise: not computed (no core data to estimate the surface;"
+            );
+            let _ = writeln!(o, "    give [operating] surface_area_cm2)");
+        }
+    }
+}
+
+fn limit_figure(l: &Limit, x: f64) -> String {
+    match l.unit {
+        "duty" => format!("{:.1} %", x * 100.0),
+        "mm" => format!("{x:.2} mm"),
+        "mT" => format!("{x:.0} mT"),
+        "C" => format!("{x:.1} C"),
+        u => format!("{x:.1} {u}"),
+    }
+}
+
+fn limits_block(o: &mut String, eval: &Evaluation) {
+    if eval.limits.is_empty() {
+        return;
+    }
+    let _ = writeln!(o, "\nWhat limits the design (binding first)");
+    let _ = writeln!(o, "  constraint            used        allowed     margin");
+    for (i, l) in eval.limits.iter().enumerate() {
+        let name = match &l.about {
+            Some(a) => format!("{} ({})", l.constraint.key(), a),
+            None => l.constraint.key().to_string(),
+        };
+        let tag = if l.broken() {
+            "  BROKEN"
+        } else if i == 0 {
+            "  binding"
+        } else {
+            ""
+        };
+        let _ = writeln!(
+            o,
+            "  {:<20} {:>11}  {:>11}  {:>7.0} %{tag}",
+            truncate(&name, 20),
+            limit_figure(l, l.used),
+            limit_figure(l, l.allowed),
+            l.margin * 100.0
+        );
     }
 }

@@ -1,0 +1,94 @@
+//! Each winding's current waveform over one period from the operating point, and the RMS
+//! current used for its losses (the user's `current_rms_a` wins, the shape stays).
+//!
+//! Assumptions, in the format document too: continuous conduction, output inductor ripple
+//! neglected (flat-topped pulses), ideal switch and diodes, at `vin_min_v` where the duty
+//! and so the RMS currents are largest.
+
+use super::converter::ConverterEval;
+use super::harmonics::Waveform;
+use crate::model::{Build, Role};
+
+#[derive(Debug, Clone, Copy, PartialEq, Eq)]
+pub enum CurrentSource {
+    /// The winding's `current_rms_a`.
+    Given,
+    /// Computed from the operating point.
+    OperatingPoint,
+}
+
+impl CurrentSource {
+    pub fn key(self) -> &'static str {
+        match self {
+            CurrentSource::Given => "given",
+            CurrentSource::OperatingPoint => "operating point",
+        }
+    }
+}
+
+#[derive(Debug, Clone, PartialEq, Default)]
+pub struct WindingCurrent {
+    /// The RMS current used for the winding's figures.
+    pub rms_a: Option<f64>,
+    pub source: Option<CurrentSource>,
+    /// What the operating point gives (first winding of each power role only).
+    pub model_rms_a: Option<f64>,
+    /// The waveform's shape, scaled to `rms_a` when there is one.
+    pub waveform: Option<Waveform>,
+}
+
+/// The shape of each role's current, in amperes, at `vin_min_v`:
+/// primary `Iout Ns/Np` plus the magnetising ramp over D; secondary `Iout` over D; reset a
+/// triangle from `Im Np/Nr` to zero over the reset time.
+fn role_waveform(build: &Build, c: &ConverterEval, role: Role) -> Option<Waveform> {
+    let op = build.operating.as_ref()?;
+    let d = c.duty_used_at_vin_min;
+    let f_hz = build.setup.frequency_khz? * 1e3;
+    match role {
+        Role::Primary => {
+            let reflected = op.iout_a * f64::from(c.ns) / f64::from(c.np);
+            let im = c.magnetising_peak_a.unwrap_or(0.0);
+            Some(Waveform::ramp(reflected, reflected + im, 0.0, d))
+        }
+        Role::Secondary => Some(Waveform::pulse(op.iout_a, d)),
+        Role::Reset => {
+            let r = c.reset_time_us * 1e-6 * f_hz;
+            // Without an inductance the size is unknown but the shape still sets the AC factor.
+            let peak = c.reset_peak_a.unwrap_or(1.0);
+            Some(Waveform::ramp(peak, 0.0, d, d + r))
+        }
+        Role::Auxiliary => None,
+    }
+}
+
+pub fn winding_currents(build: &Build, conv: Option<&ConverterEval>) -> Vec<WindingCurrent> {
+    build
+        .windings
+        .iter()
+        .enumerate()
+        .map(|(k, w)| {
+            let shape = conv.and_then(|c| role_waveform(build, c, w.role));
+            let first = build.windings.iter().position(|x| x.role == w.role) == Some(k);
+            let sized = w.role != Role::Reset || conv.is_some_and(|c| c.reset_peak_a.is_some());
+            let model_rms_a = shape.as_ref().filter(|_| first && sized).map(Waveform::rms);
+            let (rms_a, source) = match (w.current_rms_a, model_rms_a) {
+                (Some(a), _) => (Some(a), Some(CurrentSource::Given)),
+                (None, Some(a)) => (Some(a), Some(CurrentSource::OperatingPoint)),
+                (None, None) => (None, None),
+            };
+            let waveform = shape.map(|s| {
+                let r = s.rms();
+                match rms_a {
+                    Some(a) if r > 0.0 => s.scaled(a / r),
+                    _ => s,
+                }
+            });
+            WindingCurrent {
+                rms_a,
+                source,
+                model_rms_a,
+                waveform,
+            }
+        })
+        .collect()
+}

@@ -1,0 +1,80 @@
+//! What limits the design: each constraint's margin as a fraction of what it allows,
+//! sorted so the binding one (the smallest margin) comes first.
+
+/// Current density that small switch-mode transformers run at with natural convection,
+/// 3-6 A/mm^2 RMS (common practice; 500 circular mils per ampere is 3.95 A/mm^2).
+pub const CURRENT_DENSITY_BAND_A_MM2: (f64, f64) = (3.0, 6.0);
+
+#[derive(Debug, Clone, Copy, PartialEq, Eq)]
+pub enum Constraint {
+    /// Height with allowance against the window height.
+    Fit,
+    /// Duty needed at the lowest input against the duty available.
+    ResetDuty,
+    /// Worst-case flux swing against Bsat - Br.
+    Saturation,
+    /// Temperature rise against the limit.
+    TemperatureRise,
+    /// The highest winding current density against the band's upper end.
+    CurrentDensity,
+}
+
+impl Constraint {
+    pub fn key(self) -> &'static str {
+        match self {
+            Constraint::Fit => "fit",
+            Constraint::ResetDuty => "reset-duty",
+            Constraint::Saturation => "saturation",
+            Constraint::TemperatureRise => "temperature-rise",
+            Constraint::CurrentDensity => "current-density",
+        }
+    }
+}
+
+#[derive(Debug, Clone, PartialEq)]
+pub struct Limit {
+    pub constraint: Constraint,
+    /// `1 - used / allowed`: 0.25 means a quarter of the allowance is left; negative
+    /// means the constraint is broken.
+    pub margin: f64,
+    pub used: f64,
+    pub allowed: f64,
+    /// Unit of `used` and `allowed` ("mm", "duty", "mT", "C", "A/mm2").
+    pub unit: &'static str,
+    /// What it is about, e.g. the winding with the highest current density.
+    pub about: Option<String>,
+}
+
+impl Limit {
+    pub fn new(
+        constraint: Constraint,
+        used: f64,
+        allowed: f64,
+        unit: &'static str,
+        about: Option<String>,
+    ) -> Self {
+        let margin = if allowed > 0.0 {
+            1.0 - used / allowed
+        } else {
+            f64::NEG_INFINITY
+        };
+        Limit {
+            constraint,
+            margin,
+            used,
+            allowed,
+            unit,
+            about,
+        }
+    }
+
+    pub fn broken(&self) -> bool {
+        self.margin < 0.0
+    }
+}
+
+/// Smallest margin first; the order of the input breaks ties.
+pub fn rank(mut limits: Vec<Limit>) -> Vec<Limit> {
+    limits.sort_by(|a, b| a.margin.total_cmp(&b.margin));
+    limits
+}

@@ -1,0 +1,96 @@
+//! Copper and core loss of the whole transformer and the temperature rise they cause.
+
+use super::converter::ConverterEval;
+use super::core_loss;
+use super::magnetics;
+use super::thermal::{self, DEFAULT_RISE_LIMIT_C};
+use crate::model::{Build, ResetSide};
+
+#[derive(Debug, Clone, PartialEq)]
+pub struct LossEval {
+    /// Sum of the windings' copper losses (those that have a current).
+    pub copper_loss_w: f64,
+    /// Windings with no current to count (auxiliary windings without `current_rms_a`).
+    pub windings_without_current: Vec<String>,
+    /// Core loss density by the iGSE, steady state at `vin_max_v`.
+    pub core_loss_kw_m3: Option<f64>,
+    pub core_loss_w: Option<f64>,
+    pub core_volume_mm3: Option<f64>,
+    /// The flux swing, duty and reset fraction the core loss is taken at.
+    pub core_swing_mt: Option<f64>,
+    pub core_duty: Option<f64>,
+    pub core_reset_fraction: Option<f64>,
+    /// Copper (at `vin_min_v`) plus core (at `vin_max_v`): the worst of each, together.
+    pub total_loss_w: f64,
+    pub surface_area_cm2: Option<f64>,
+    /// The surface area was estimated from the area product, not given.
+    pub surface_estimated: bool,
+    pub temperature_rise_c: Option<f64>,
+    pub rise_limit_c: f64,
+}
+
+pub fn evaluate(build: &Build, c: &ConverterEval, copper: &[(String, Option<f64>)]) -> LossEval {
+    let op = build.operating.as_ref();
+    let copper_loss_w = copper.iter().filter_map(|(_, w)| *w).sum();
+    let windings_without_current = copper
+        .iter()
+        .filter(|(_, w)| w.is_none())
+        .map(|(n, _)| n.clone())
+        .collect();
+    let core = build.bobbin.core.as_ref();
+    let f_khz = build.setup.frequency_khz.unwrap_or(0.0);
+
+    // Core loss is largest at the highest input: the same swing (CCM), over a shorter,
+    // steeper on-time.
+    let mut core_figures = None;
+    if let (Some(op), Some(core)) = (op, core) {
+        let duty = c.duty_needed_at_vin_max.min(c.duty_available).max(0.0);
+        let swing_t = op.vin_max_v * duty / (f_khz * 1e3 * f64::from(c.np) * core.ae_mm2 * 1e-6);
+        let vo = op.vout_v + op.rectifier_drop_v;
+        let reset = match c.reset_side {
+            ResetSide::Primary => duty * f64::from(c.nr) / f64::from(c.np),
+            ResetSide::Secondary => op.vin_max_v * duty * f64::from(c.nr) / (vo * f64::from(c.np)),
+        }
+        .min(1.0 - duty);
+        let volume = magnetics::volume_mm3(core);
+        let density = build
+            .material
+            .as_ref()
+            .and_then(|m| m.steinmetz)
+            .filter(|_| duty > 0.0 && reset > 0.0 && f_khz > 0.0)
+            .map(|s| core_loss::forward_kw_m3(s.k, s.alpha, s.beta, f_khz, swing_t, duty, reset));
+        core_figures = Some((density, volume, swing_t * 1e3, duty, reset));
+    }
+    let core_loss_kw_m3 = core_figures.and_then(|f| f.0);
+    // kW/m^3 x mm^3: 1e3 W/m^3 x 1e-9 m^3.
+    let core_loss_w = core_loss_kw_m3
+        .zip(core_figures.map(|f| f.1))
+        .map(|(p, v)| p * v * 1e-6);
+    let total_loss_w = copper_loss_w + core_loss_w.unwrap_or(0.0);
+
+    let given = op.and_then(|o| o.surface_area_cm2);
+    let estimated = core.map(|c| {
+        thermal::surface_from_area_product_cm2(
+            build.bobbin.window.width_mm * build.bobbin.window.height_mm,
+            c.ae_mm2,
+        )
+    });
+    let surface_area_cm2 = given.or(estimated);
+    LossEval {
+        copper_loss_w,
+        windings_without_current,
+        core_loss_kw_m3,
+        core_loss_w,
+        core_volume_mm3: core_figures.map(|f| f.1),
+        core_swing_mt: core_figures.map(|f| f.2),
+        core_duty: core_figures.map(|f| f.3),
+        core_reset_fraction: core_figures.map(|f| f.4),
+        total_loss_w,
+        surface_area_cm2,
+        surface_estimated: given.is_none() && estimated.is_some(),
+        temperature_rise_c: surface_area_cm2.map(|a| thermal::rise_c(total_loss_w, a)),
+        rise_limit_c: op
+            .and_then(|o| o.rise_limit_c)
+            .unwrap_or(DEFAULT_RISE_LIMIT_C),
+    }
+}
