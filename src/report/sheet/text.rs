@@ -3,6 +3,7 @@
 use super::Sheet;
 use crate::report::text::WIDTH;
 use crate::report::wrap;
+use unicode_width::UnicodeWidthStr;
 
 /// Lines on a printed page at 6 lines an inch inside the margins of A4 or Letter.
 pub const PAGE_LINES: usize = 60;
@@ -25,7 +26,9 @@ fn labelled(o: &mut Vec<String>, label: &str, text: &str, label_w: usize) {
 }
 
 fn para(o: &mut Vec<String>, text: &str, first: &str, rest: &str) {
-    for (k, l) in wrap(text, WIDTH - first.len(), "").into_iter().enumerate() {
+    // Wrapped for the wider of the two indents, so no line passes the width.
+    let room = WIDTH - first.width().max(rest.width());
+    for (k, l) in wrap(text, room, "").into_iter().enumerate() {
         o.push(format!("{}{l}", if k == 0 { first } else { rest }));
     }
 }
