@@ -48,23 +48,42 @@ pub fn layer_factor(d: f64, f_a: f64, f_b: f64) -> f64 {
     d * (g1 * (f_a * f_a + f_b * f_b) - 4.0 * g2 * f_a * f_b) / (df * df)
 }
 
-/// `layer_factor` with G1 and G2 from one `exp` and one `sin_cos` by the double-angle
-/// identities: the same formula, about five times cheaper, for the harmonic sums.
-pub fn layer_factor_fast(d: f64, f_a: f64, f_b: f64) -> f64 {
+/// `(D G1(D), D G2(D))`, the two terms of a layer's factor, from one `exp` and one `sin_cos`
+/// by the double-angle identities. At D -> 0 they tend to (1, 1/2), a resistive layer; at
+/// large D to (D, 0).
+pub fn d_terms(d: f64) -> (f64, f64) {
+    if d < D_SMALL || !d.is_finite() {
+        return (1.0, 0.5);
+    }
+    if d > D_LARGE {
+        return (d, 0.0);
+    }
+    let e = d.exp();
+    let (sh, ch) = (0.5 * (e - 1.0 / e), 0.5 * (e + 1.0 / e));
+    let (s, c) = d.sin_cos();
+    let den = (ch * ch + sh * sh) - (c * c - s * s);
+    (
+        d * (2.0 * sh * ch + 2.0 * s * c) / den,
+        d * (sh * c + ch * s) / den,
+    )
+}
+
+/// A layer's factor from its two terms: `[a (Fa^2 + Fb^2) - 4 b Fa Fb] / (Fb - Fa)^2`; the
+/// terms may be sums over harmonics, since the factor is linear in them.
+pub fn layer_factor_from(terms: (f64, f64), f_a: f64, f_b: f64) -> f64 {
     let df = f_b - f_a;
-    if d < D_SMALL || df == 0.0 || !d.is_finite() {
+    if df == 0.0 {
+        return terms.0;
+    }
+    (terms.0 * (f_a * f_a + f_b * f_b) - 4.0 * terms.1 * f_a * f_b) / (df * df)
+}
+
+/// `layer_factor` by [`d_terms`]: the same formula, about five times cheaper.
+pub fn layer_factor_fast(d: f64, f_a: f64, f_b: f64) -> f64 {
+    if f_b == f_a || d < D_SMALL || !d.is_finite() {
         return 1.0;
     }
-    let (g1, g2) = if d > D_LARGE {
-        (1.0, 0.0)
-    } else {
-        let e = d.exp();
-        let (sh, ch) = (0.5 * (e - 1.0 / e), 0.5 * (e + 1.0 / e));
-        let (s, c) = d.sin_cos();
-        let den = (ch * ch + sh * sh) - (c * c - s * s);
-        ((2.0 * sh * ch + 2.0 * s * c) / den, (sh * c + ch * s) / den)
-    };
-    d * (g1 * (f_a * f_a + f_b * f_b) - 4.0 * g2 * f_a * f_b) / (df * df)
+    layer_factor_from(d_terms(d), f_a, f_b)
 }
 
 /// Dowell's m-layer formula for a portion whose MMF starts at zero:

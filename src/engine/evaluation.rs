@@ -508,16 +508,31 @@ fn ac_figures(
             / total;
         let ac_factor_waveform = currents[k].waveform.as_ref().map(|wave| {
             let spectrum = harmonics::spectrum(wave, HARMONICS);
-            harmonics::waveform_factor(&spectrum, |h| {
-                let root_n = (h as f64).sqrt();
-                layers
-                    .iter()
-                    .map(|&(d, f_a, f_b, length)| {
-                        ac::layer_factor_fast(d * root_n, f_a, f_b) * length
-                    })
-                    .sum::<f64>()
-                    / total
-            })
+            if spectrum.rms_sq <= 0.0 {
+                return 1.0;
+            }
+            // Hurley's sum is linear in each layer's two Dowell terms, and layers of the same
+            // turns share their D: sum the harmonics once per distinct D.
+            let mut terms: Vec<(f64, (f64, f64))> = Vec::new();
+            let mut loss = spectrum.dc * spectrum.dc * total;
+            for &(d, f_a, f_b, length) in layers {
+                let t = match terms.iter().find(|(x, _)| *x == d) {
+                    Some((_, t)) => *t,
+                    None => {
+                        let t = harmonics::summed_terms(&spectrum, d);
+                        terms.push((d, t));
+                        t
+                    }
+                };
+                let ac_power = spectrum.rms_sq - spectrum.dc * spectrum.dc;
+                let share = if f_b == f_a || d < 1e-3 {
+                    ac_power
+                } else {
+                    ac::layer_factor_from(t, f_a, f_b)
+                };
+                loss += share * length;
+            }
+            loss / (spectrum.rms_sq * total)
         });
         w.ac = Some(AcFigures {
             skin_depth_mm: delta_mm,

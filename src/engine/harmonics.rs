@@ -119,16 +119,69 @@ pub struct Spectrum {
 }
 
 pub fn spectrum(w: &Waveform, count: usize) -> Spectrum {
+    // c_n for every n at once: each piece end's phasor e^(-j 2 pi t) is raised to the n-th
+    // power by one complex product per harmonic instead of a sin_cos.
+    let ends: Vec<(f64, f64, f64, f64, f64)> = w
+        .pieces
+        .iter()
+        .filter(|p| p.t1 > p.t0)
+        .flat_map(|p| {
+            let s = (p.y1 - p.y0) / (p.t1 - p.t0);
+            // (t, y, slope, sign): the integral is [..] at t1 minus [..] at t0.
+            [(p.t1, p.y1, s, 1.0, 0.0), (p.t0, p.y0, s, -1.0, 0.0)]
+        })
+        .collect();
+    let step: Vec<(f64, f64)> = ends
+        .iter()
+        .map(|e| {
+            let (sn, c) = (2.0 * PI * e.0).sin_cos();
+            (c, -sn)
+        })
+        .collect();
+    let mut z: Vec<(f64, f64)> = vec![(1.0, 0.0); ends.len()];
+    let harmonic_rms_sq = (1..=count)
+        .map(|n| {
+            let w = 2.0 * PI * n as f64;
+            let (mut re, mut im) = (0.0, 0.0);
+            for (k, e) in ends.iter().enumerate() {
+                let (zr, zi) = z[k];
+                let (sr, si) = step[k];
+                let (c, ms) = (zr * sr - zi * si, zr * si + zi * sr);
+                z[k] = (c, ms);
+                // e^(-j w t) (s / w^2 + j y / w), with e^(-j w t) = c + j ms.
+                let (a, b) = (e.2 / (w * w), e.1 / w);
+                re += e.3 * (c * a - ms * b);
+                im += e.3 * (c * b + ms * a);
+            }
+            2.0 * (re * re + im * im)
+        })
+        .collect();
     Spectrum {
         dc: w.dc(),
-        harmonic_rms_sq: (1..=count)
-            .map(|n| {
-                let a = w.amplitude(n);
-                a * a / 2.0
-            })
-            .collect(),
+        harmonic_rms_sq,
         rms_sq: w.rms().powi(2),
     }
+}
+
+/// The two Dowell terms of a layer of D `d` (at the fundamental) summed over a spectrum:
+/// `sum_n I_n^2 (D_n G1(D_n), D_n G2(D_n))` with `D_n = d sqrt(n)`, and what Parseval leaves
+/// above the last harmonic taken at the last one's terms. With [`crate::engine::ac::layer_factor_from`]
+/// this gives a layer's share of `waveform_factor` without a loop over harmonics per layer.
+pub fn summed_terms(s: &Spectrum, d: f64) -> (f64, f64) {
+    let (mut a, mut b) = (0.0, 0.0);
+    let mut summed = s.dc * s.dc;
+    let mut last = (1.0, 0.5);
+    for (k, &p) in s.harmonic_rms_sq.iter().enumerate() {
+        if p <= 1e-12 * s.rms_sq {
+            continue;
+        }
+        last = crate::engine::ac::d_terms(d * ((k + 1) as f64).sqrt());
+        a += p * last.0;
+        b += p * last.1;
+        summed += p;
+    }
+    let rest = (s.rms_sq - summed).max(0.0);
+    (a + rest * last.0, b + rest * last.1)
 }
 
 /// `R_eff / R_dc = [I_dc^2 + sum_n I_n^2 F_R(n)] / I_rms^2` (Hurley, Gath and Breslin, IEEE
