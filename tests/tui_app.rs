@@ -429,3 +429,52 @@ fn help_lists_every_binding_and_closes() {
     press(&mut app, "<down><esc>");
     assert!(app.overlays.is_empty());
 }
+
+/// The technician's run: on the demo, wind the primary plainly, split it around the
+/// secondary, put the reset winding on thinner wire, wind it bifilar with both primary
+/// halves, undo the last step, save and reopen: the same build comes back.
+#[test]
+fn demo_scenario_split_thin_bifilar_undo_save_reopen() {
+    let mut app = demo_app();
+    // Unwind the demo's interleaving: both P+R sections alone, then join the primary.
+    press(&mut app, "balone<enter><up><up><up><up>balone<enter>dd");
+    assert_eq!(stack_words(&app), ["P24", "t1", "S16", "t1", "R24", "t2"]);
+    let plain_ps = leakage_uh(&app, "S");
+    press(&mut app, "p<down><down><down><down><down><down>s<enter>");
+    assert_eq!(
+        stack_words(&app),
+        ["P12", "t1", "S16", "t1", "P12", "t1", "R24", "t2"]
+    );
+    assert!(leakage_uh(&app, "S") < plain_ps / 2.0);
+    press(&mut app, "<tab><down><down>w0.2mm<enter><tab>");
+    assert_eq!(
+        app.build.windings[2].wire,
+        WireSize::Metric { bare_mm: 0.2 }
+    );
+    app.stack_sel = 0;
+    press(&mut app, "bwith R<enter><up><up><up><up>bwith R<enter>");
+    assert_eq!(
+        stack_words(&app),
+        ["P12+R", "t1", "S16", "t1", "P12+R", "t1", "t2"]
+    );
+    assert_eq!(leakage_uh(&app, "R"), 0.0);
+    let fitted = app.eval.height_with_allowance_mm;
+    press(&mut app, "u");
+    assert_eq!(
+        stack_words(&app),
+        ["P12+R", "t1", "S16", "t1", "P12", "t1", "R12", "t2"]
+    );
+    assert!(app.eval.height_with_allowance_mm > fitted);
+    let dir = tempfile::tempdir().unwrap();
+    let path = dir.path().join("forward.toml");
+    let e = press(
+        &mut app,
+        &format!("W{}{}<enter>", "<bs>".repeat(13), path.display()),
+    );
+    assert_eq!(e, [Effect::Save(path.clone())]);
+    perform(&mut app, e[0].clone());
+    assert_eq!(press(&mut app, "q"), [Effect::Quit]);
+    let reopened = App::new(load_build(&path).unwrap(), Some(path));
+    assert_eq!(reopened.build, app.build);
+    assert_eq!(reopened.eval, app.eval);
+}

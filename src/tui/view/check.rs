@@ -12,14 +12,12 @@ use ratatui::widgets::Paragraph;
 
 /// (label, value) pairs of the figures compared; same labels in both evaluations line up.
 fn figures(e: &Evaluation) -> Vec<(String, f64, usize)> {
-    let mut v = vec![
-        ("height mm".to_string(), e.height_with_allowance_mm, 3),
-        ("spare mm".to_string(), e.spare_height_mm, 3),
-        ("fill".to_string(), e.fill_factor, 3),
-    ];
+    // Leakage right under the height: at 80x24 only the first rows show.
+    let mut v = vec![("height mm".to_string(), e.height_with_allowance_mm, 3)];
     for l in &e.leakage {
         v.push((format!("L {}-{} uH", l.from, l.to), l.uh, 3));
     }
+    v.push(("fill".to_string(), e.fill_factor, 3));
     for w in &e.windings {
         v.push((format!("DCR {} ohm", w.name), w.dcr_ohm, 4));
     }

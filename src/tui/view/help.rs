@@ -2,7 +2,7 @@
 
 use super::super::app::App;
 use super::super::keymap::{BINDINGS, Context, keys_label};
-use super::{fit, pad};
+use super::{pad, wrap};
 use ratatui::Frame;
 use ratatui::layout::Rect;
 use ratatui::text::{Line, Span};
@@ -22,26 +22,31 @@ const ORDER: [Context; 7] = [
 pub fn lines(app: &App, width: usize) -> Vec<Line<'static>> {
     let t = &app.theme;
     let key_w = 20.min(width / 3);
-    let mut out = vec![
-        Line::from(fit(
-            "turnstack edits the build; every figure comes from the engine and updates at once.",
-            width,
-        ))
-        .style(t.dim()),
-        Line::from(fit(
-            "Letters in the drawing are the windings (case alternates turn by turn); ═ tape.",
-            width,
-        ))
-        .style(t.dim()),
-    ];
+    let mut out: Vec<Line<'static>> = [
+        "turnstack edits the build; every figure comes from the engine and updates at once.",
+        "In the drawing each winding is its letter (case alternates turn by turn where a turn \
+         is wide enough), ═ is tape, ─ tape between layers, ░ margin, · empty width.",
+    ]
+    .iter()
+    .flat_map(|p| wrap(p, width))
+    .map(|l| Line::from(l).style(t.dim()))
+    .collect();
+    let desc_w = width.saturating_sub(key_w + 2).max(10);
     for c in ORDER {
         out.push(Line::from(""));
         out.push(Line::from(Span::styled(c.title().to_string(), t.title())));
         for bd in BINDINGS.iter().filter(|bd| bd.context == c) {
-            out.push(Line::from(vec![
-                Span::styled(format!("  {}", pad(&keys_label(bd), key_w)), t.key()),
-                Span::raw(fit(bd.help, width.saturating_sub(key_w + 3))),
-            ]));
+            for (i, part) in wrap(bd.help, desc_w).into_iter().enumerate() {
+                let keys = if i == 0 {
+                    keys_label(bd)
+                } else {
+                    String::new()
+                };
+                out.push(Line::from(vec![
+                    Span::styled(format!("  {}", pad(&keys, key_w)), t.key()),
+                    Span::raw(part),
+                ]));
+            }
         }
     }
     out

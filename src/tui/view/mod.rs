@@ -63,7 +63,7 @@ pub fn draw(app: &App, frame: &mut Frame) {
     let window_need = window::rows_wanted(app) + 2;
     let check_h = (rows.len() as u16 + 2)
         .min(right.height.saturating_sub(window_need))
-        .max(5);
+        .max(8);
     let [window_area, check_area] =
         Layout::vertical([Constraint::Fill(1), Constraint::Length(check_h)]).areas(right);
     frame.render_widget(window::WindowView { app }, window_area);
@@ -117,4 +117,23 @@ pub(crate) fn pad(s: &str, width: usize) -> String {
     let s = fit(s, width);
     let w = s.width();
     format!("{s}{}", " ".repeat(width.saturating_sub(w)))
+}
+
+/// Word-wrap text to a display width (a word longer than the width is cut).
+pub(crate) fn wrap(text: &str, width: usize) -> Vec<String> {
+    let mut lines = Vec::new();
+    let mut line = String::new();
+    for word in text.split_whitespace() {
+        if !line.is_empty() && line.width() + 1 + word.width() > width {
+            lines.push(std::mem::take(&mut line));
+        }
+        if !line.is_empty() {
+            line.push(' ');
+        }
+        line.push_str(&fit(word, width));
+    }
+    if !line.is_empty() {
+        lines.push(line);
+    }
+    lines
 }

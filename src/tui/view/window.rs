@@ -1,7 +1,7 @@
 //! The window cross-section drawn to scale: flange to flange across, tube (bottom) to the
 //! window limit (a marked line) and beyond, every layer, tape wrap and margin in its place.
 //! Positions are read from the Evaluation's sections and layers; each winding has a letter
-//! (upper and lower case alternate turn by turn), tape is a line pattern, margins are shaded,
+//! (upper and lower case alternate turn by turn where a turn is two cells wide or more), tape is a line pattern, margins are shaded,
 //! so it reads without colour. Layers thinner than a text row are widened to one row, and
 //! the rest of the height shares what is left in proportion.
 
@@ -345,7 +345,8 @@ impl WindowView<'_> {
                             _ => a,
                         };
                         let mut ch = letter(app, k);
-                        if turn % 2 == 1 {
+                        // Case tells turns apart only where a turn spans two cells or more.
+                        if turn % 2 == 1 && pitch >= 2.0 * cell_mm {
                             ch = ch.to_ascii_lowercase();
                         }
                         let style = if over { t.bad() } else { t.winding(k) };
