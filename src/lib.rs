@@ -10,3 +10,4 @@ pub mod files;
 pub mod library;
 pub mod model;
 pub mod report;
+pub mod tui;

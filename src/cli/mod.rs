@@ -147,7 +147,28 @@ fn check(file: Option<&Path>, json: bool) -> ExitCode {
     })
 }
 
-/// Placeholder until the interactive planner lands: print the check report of the build.
+/// The interactive planner: on the demo build, on a build file, or on a new build for a file
+/// that does not exist yet (its bobbin picked first).
 pub fn run_editor(file: Option<&Path>) -> ExitCode {
-    check(file, false)
+    use std::io::IsTerminal;
+    if !std::io::stdout().is_terminal() || !std::io::stdin().is_terminal() {
+        eprintln!(
+            "turnstack: the planner needs a terminal; for a report use `turnstack check [FILE]`"
+        );
+        return ExitCode::from(EXIT_BAD_INPUT);
+    }
+    let app = match file {
+        Some(p) if !p.exists() => crate::tui::App::new_file(p.to_path_buf()),
+        _ => match load_or_demo(file) {
+            Ok(b) => crate::tui::App::new(b, file.map(Path::to_path_buf)),
+            Err(e) => return fail(&e),
+        },
+    };
+    match crate::tui::run::run(app) {
+        Ok(()) => ExitCode::SUCCESS,
+        Err(e) => {
+            eprintln!("turnstack: terminal error: {e}");
+            ExitCode::from(EXIT_BAD_INPUT)
+        }
+    }
 }

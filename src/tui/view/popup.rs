@@ -1,0 +1,197 @@
+//! Pop-ups over the main screen: pick lists, forms, the line editor and questions.
+
+use super::super::app::{App, Form, Picker, Prompt, Question};
+use super::{fit, pad};
+use ratatui::Frame;
+use ratatui::layout::Rect;
+use ratatui::text::{Line, Span};
+use ratatui::widgets::{Block, Clear, List, ListItem, ListState, Paragraph, Wrap};
+use unicode_width::UnicodeWidthStr;
+
+fn centred(area: Rect, w: u16, h: u16) -> Rect {
+    let w = w.min(area.width);
+    let h = h.min(area.height);
+    Rect::new(
+        area.x + (area.width - w) / 2,
+        area.y + (area.height - h) / 2,
+        w,
+        h,
+    )
+}
+
+fn frame_box(app: &App, frame: &mut Frame, rect: Rect, title: &str, foot: &str) -> Rect {
+    frame.render_widget(Clear, rect);
+    let t = &app.theme;
+    let w = rect.width.saturating_sub(4) as usize;
+    let block = Block::bordered()
+        .title(Line::from(format!(" {} ", fit(title, w))).style(t.title()))
+        .title_bottom(Line::from(format!(" {} ", fit(foot, w))).style(t.dim()));
+    let inner = block.inner(rect);
+    frame.render_widget(block, rect);
+    inner
+}
+
+pub fn picker(app: &App, frame: &mut Frame, area: Rect, p: &Picker) {
+    let t = &app.theme;
+    let visible = p.visible();
+    let longest = p
+        .items
+        .iter()
+        .map(|i| i.label.width())
+        .chain([p.header.width(), p.title.width()])
+        .max()
+        .unwrap_or(20) as u16;
+    let rect = centred(
+        area,
+        (longest + 6).max(40),
+        (visible.len() as u16 + 5)
+            .max(8)
+            .min(area.height.saturating_sub(2)),
+    );
+    let inner = frame_box(
+        app,
+        frame,
+        rect,
+        &p.title,
+        "↑↓ move · Enter choose · Esc close · type to filter",
+    );
+    if inner.height < 3 {
+        return;
+    }
+    let w = inner.width as usize;
+    frame.render_widget(
+        Line::from(fit(&format!("  {}", p.header), w)).style(t.dim()),
+        Rect { height: 1, ..inner },
+    );
+    let filter = if p.filter.is_empty() {
+        Line::from(Span::styled("filter: (type)", t.dim()))
+    } else {
+        Line::from(vec![
+            Span::styled("filter: ", t.dim()),
+            Span::styled(p.filter.clone(), t.key()),
+            Span::raw(format!("  {} match", visible.len())),
+        ])
+    };
+    frame.render_widget(
+        filter,
+        Rect {
+            y: inner.bottom() - 1,
+            height: 1,
+            ..inner
+        },
+    );
+    let list_area = Rect {
+        y: inner.y + 1,
+        height: inner.height - 2,
+        ..inner
+    };
+    let items: Vec<ListItem> = visible
+        .iter()
+        .map(|it| ListItem::new(fit(&it.label, w.saturating_sub(2))))
+        .collect();
+    let mut state = ListState::default();
+    if !visible.is_empty() {
+        state.select(Some(p.selected.min(visible.len() - 1)));
+    }
+    frame.render_stateful_widget(
+        List::new(items)
+            .highlight_style(t.selected())
+            .highlight_symbol("▶ "),
+        list_area,
+        &mut state,
+    );
+}
+
+pub fn form(app: &App, frame: &mut Frame, area: Rect, f: &Form) {
+    let t = &app.theme;
+    let rows = app.form_rows(f.kind);
+    let title = match f.kind {
+        super::super::app::FormKind::Setup => "Setup".to_string(),
+        super::super::app::FormKind::Winding(k) => format!(
+            "Winding {}",
+            app.build.windings.get(k).map_or("", |w| w.name.as_str())
+        ),
+        super::super::app::FormKind::Bobbin => "Measured bobbin".to_string(),
+    };
+    let rect = centred(area, 64, rows.len() as u16 + 4);
+    let inner = frame_box(
+        app,
+        frame,
+        rect,
+        &title,
+        "↑↓ move · Enter change · Esc close",
+    );
+    let lw = 32.min(inner.width as usize / 2);
+    let items: Vec<ListItem> = rows
+        .iter()
+        .map(|(_, label, value)| {
+            ListItem::new(Line::from(vec![
+                Span::styled(pad(label, lw), t.dim()),
+                Span::raw(fit(value, (inner.width as usize).saturating_sub(lw + 2))),
+            ]))
+        })
+        .collect();
+    let mut state = ListState::default();
+    state.select(Some(f.selected.min(rows.len().saturating_sub(1))));
+    frame.render_stateful_widget(
+        List::new(items)
+            .highlight_style(t.selected())
+            .highlight_symbol("▶ "),
+        inner,
+        &mut state,
+    );
+}
+
+pub fn prompt(app: &App, frame: &mut Frame, area: Rect, p: &Prompt) {
+    let t = &app.theme;
+    let rect = centred(area, 64, 6);
+    let inner = frame_box(app, frame, rect, &p.label, "Enter accept · Esc cancel");
+    let w = inner.width as usize;
+    // Keep the end of a long value (where the cursor is) in view.
+    let mut shown = p.text.clone();
+    while shown.width() + 2 > w && !shown.is_empty() {
+        shown.remove(0);
+    }
+    let lines = vec![
+        Line::from(vec![
+            Span::raw("> "),
+            Span::styled(shown, t.key()),
+            Span::styled("█", t.base()),
+        ]),
+        Line::from(""),
+        Line::from(Span::styled(fit(&p.hint, w), t.dim())),
+    ];
+    frame.render_widget(Paragraph::new(lines), inner);
+}
+
+pub fn question(app: &App, frame: &mut Frame, area: Rect, q: Question) {
+    let t = &app.theme;
+    let (title, text, keys) = match q {
+        Question::Quit => (
+            "Unsaved edits",
+            "The build has edits that are not saved.",
+            "y quit without saving · s save, then quit · n / Esc stay",
+        ),
+        Question::DiscardForOpen => (
+            "Unsaved edits",
+            "Open another file and drop the unsaved edits?",
+            "y yes, open · n / Esc stay",
+        ),
+        Question::DiscardForNew => (
+            "Unsaved edits",
+            "Start a new build and drop the unsaved edits?",
+            "y yes, start anew · n / Esc stay",
+        ),
+    };
+    let rect = centred(area, 62, 6);
+    let inner = frame_box(app, frame, rect, title, "");
+    frame.render_widget(
+        Paragraph::new(vec![
+            Line::from(text),
+            Line::from(""),
+            Line::from(Span::styled(keys, t.key())),
+        ])
+        .wrap(Wrap { trim: true }),
+        inner,
+    );
+}

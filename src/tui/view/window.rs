@@ -1,0 +1,434 @@
+//! The window cross-section drawn to scale: flange to flange across, tube (bottom) to the
+//! window limit (a marked line) and beyond, every layer, tape wrap and margin in its place.
+//! Positions are read from the Evaluation's sections and layers; each winding has a letter
+//! (upper and lower case alternate turn by turn where a turn is two cells wide or more), tape is a line pattern, margins are shaded,
+//! so it reads without colour. Layers thinner than a text row are widened to one row, and
+//! the rest of the height shares what is left in proportion.
+
+use super::super::app::{App, Focus};
+use super::panel;
+use crate::engine::SectionKind;
+use crate::engine::constants::FIT_TOLERANCE_MM;
+use ratatui::buffer::Buffer;
+use ratatui::layout::Rect;
+use ratatui::style::Style;
+use ratatui::widgets::Widget;
+use unicode_width::UnicodeWidthStr;
+
+pub struct WindowView<'a> {
+    pub app: &'a App,
+}
+
+#[derive(Debug, Clone, Copy, PartialEq)]
+enum Item {
+    /// Layer `l` of section `s`.
+    Layer { s: usize, l: usize, top_mm: f64 },
+    /// A tape section.
+    Tape { s: usize, top_mm: f64 },
+    /// Tape between two layers of a winding section.
+    LayerTape { s: usize, top_mm: f64 },
+    /// Empty height.
+    Gap,
+    /// The window limit line.
+    Limit,
+    /// Where the build reaches with the hand-winding allowance.
+    Allowance,
+}
+
+/// An item of the drawing from the tube up, with its height (weight) and the least rows it
+/// takes.
+struct Piece {
+    item: Item,
+    height_mm: f64,
+    min_rows: u16,
+}
+
+fn pieces(app: &App) -> Vec<Piece> {
+    let e = &app.eval;
+    let limit_mm = e.window_height_mm;
+    let mut bands: Vec<(f64, Piece)> = Vec::new();
+    for (s, sec) in e.sections.iter().enumerate() {
+        match &sec.kind {
+            SectionKind::Tape { .. } => bands.push((
+                sec.y_mm,
+                Piece {
+                    item: Item::Tape {
+                        s,
+                        top_mm: sec.y_mm + sec.height_mm,
+                    },
+                    height_mm: sec.height_mm,
+                    min_rows: 1,
+                },
+            )),
+            SectionKind::Winding { .. } => {
+                for (l, ly) in sec.layers.iter().enumerate() {
+                    if l > 0 {
+                        let prev = &sec.layers[l - 1];
+                        let gap = ly.y_mm - (prev.y_mm + prev.height_mm);
+                        if gap > 1e-9 {
+                            bands.push((
+                                prev.y_mm + prev.height_mm,
+                                Piece {
+                                    item: Item::LayerTape { s, top_mm: ly.y_mm },
+                                    height_mm: gap,
+                                    min_rows: 1,
+                                },
+                            ));
+                        }
+                    }
+                    bands.push((
+                        ly.y_mm,
+                        Piece {
+                            item: Item::Layer {
+                                s,
+                                l,
+                                top_mm: ly.y_mm + ly.height_mm,
+                            },
+                            height_mm: ly.height_mm,
+                            min_rows: 1,
+                        },
+                    ));
+                }
+            }
+        }
+    }
+    bands.sort_by(|a, b| a.0.total_cmp(&b.0));
+    let mut out = Vec::new();
+    let mut limit_done = false;
+    let marker = |item| Piece {
+        item,
+        height_mm: 0.0,
+        min_rows: 1,
+    };
+    for (_, p) in bands {
+        let top = match p.item {
+            Item::Layer { top_mm, .. }
+            | Item::Tape { top_mm, .. }
+            | Item::LayerTape { top_mm, .. } => top_mm,
+            _ => 0.0,
+        };
+        if !limit_done && top > limit_mm + FIT_TOLERANCE_MM {
+            out.push(marker(Item::Limit));
+            limit_done = true;
+        }
+        out.push(p);
+    }
+    // Above the build: the allowance line and the limit, in height order, with the empty
+    // height between them.
+    let mut marks: Vec<(f64, Item)> = Vec::new();
+    if e.height_with_allowance_mm > e.build_height_mm + 1e-9 {
+        marks.push((e.height_with_allowance_mm, Item::Allowance));
+    }
+    if !limit_done {
+        marks.push((limit_mm, Item::Limit));
+    }
+    marks.sort_by(|a, b| a.0.total_cmp(&b.0));
+    let mut y = e.build_height_mm;
+    for (at, item) in marks {
+        if at > y {
+            out.push(Piece {
+                item: Item::Gap,
+                height_mm: at - y,
+                min_rows: 0,
+            });
+            y = at;
+        }
+        out.push(marker(item));
+    }
+    // Headroom, so that an overflow has somewhere to show.
+    out.push(Piece {
+        item: Item::Gap,
+        height_mm: 0.08 * y.max(limit_mm),
+        min_rows: 0,
+    });
+    out
+}
+
+/// Rows the drawing needs to show every layer, tape and marker on a row of its own.
+pub fn rows_wanted(app: &App) -> u16 {
+    pieces(app).iter().map(|p| p.min_rows).sum::<u16>() + 1
+}
+
+/// Rows per piece: each its least, the rest shared in proportion to height (largest
+/// remainders first). `None` when even the least does not fit.
+fn allot(pieces: &[Piece], rows: u16) -> Option<Vec<u16>> {
+    let least: u16 = pieces.iter().map(|p| p.min_rows).sum();
+    if least > rows {
+        return None;
+    }
+    let spare = f64::from(rows - least);
+    let total: f64 = pieces.iter().map(|p| p.height_mm).sum();
+    let mut got: Vec<u16> = pieces.iter().map(|p| p.min_rows).collect();
+    if total <= 0.0 {
+        return Some(got);
+    }
+    let ideal: Vec<f64> = pieces.iter().map(|p| p.height_mm / total * spare).collect();
+    for (g, i) in got.iter_mut().zip(&ideal) {
+        *g += i.floor() as u16;
+    }
+    let mut left = rows - got.iter().sum::<u16>();
+    let mut order: Vec<usize> = (0..pieces.len()).collect();
+    order.sort_by(|&a, &b| (ideal[b] - ideal[b].floor()).total_cmp(&(ideal[a] - ideal[a].floor())));
+    for i in order {
+        if left == 0 {
+            break;
+        }
+        got[i] += 1;
+        left -= 1;
+    }
+    Some(got)
+}
+
+/// The letter that stands for winding `k` in the drawing.
+pub fn letter(app: &App, k: usize) -> char {
+    app.build
+        .windings
+        .get(k)
+        .and_then(|w| w.name.chars().find(|c| c.is_alphanumeric()))
+        .map_or('?', |c| c.to_ascii_uppercase())
+}
+
+impl Widget for WindowView<'_> {
+    fn render(self, area: Rect, buf: &mut Buffer) {
+        let app = self.app;
+        let t = &app.theme;
+        let e = &app.eval;
+        let all = pieces(app);
+        let block = panel(
+            app,
+            format!(
+                "Window to scale, {:.1} x {:.1} mm",
+                e.window_width_mm, e.window_height_mm
+            ),
+            false,
+        )
+        .title_bottom(ratatui::text::Line::from(" tube ").centered());
+        let inner = block.inner(area);
+        block.render(area, buf);
+        // Gutter for section numbers, then a flange each side.
+        let gutter: u16 = 3;
+        if inner.width < gutter + 6 || inner.height < 3 {
+            return;
+        }
+        let cols = inner.width - gutter - 2;
+        let x0 = inner.x + gutter + 1;
+        let rows = inner.height;
+        let (alloc, squeezed) = match allot(&all, rows) {
+            Some(a) => (a, false),
+            None => (squeeze(&all, rows), true),
+        };
+        // Row 0 is the bottom (next to the tube).
+        let mut r: u16 = 0;
+        let ww = e.window_width_mm.max(1e-9);
+        let margin = app.build.setup.margin_mm;
+        let cell_mm = ww / f64::from(cols);
+        let sel = if app.focus == Focus::Stack {
+            Some(app.stack_sel)
+        } else {
+            None
+        };
+        for (p, &n) in all.iter().zip(&alloc) {
+            for _ in 0..n {
+                if r >= rows {
+                    break;
+                }
+                let y = inner.bottom() - 1 - r;
+                let flange = Style::new();
+                buf.set_string(inner.x + gutter, y, "┃", flange);
+                buf.set_string(x0 + cols, y, "┃", flange);
+                self.draw_row(buf, p.item, x0, y, cols, cell_mm, margin);
+                r += 1;
+            }
+            // Section number in the gutter on the piece's first (lowest) row.
+            let s = match p.item {
+                Item::Layer { s, l: 0, .. } | Item::Tape { s, .. } => Some(s),
+                _ => None,
+            };
+            if let Some(s) = s
+                && n > 0
+                && r >= n
+            {
+                let y = inner.bottom() - (r - n) - 1;
+                let mark = if sel == Some(s) { "▶" } else { " " };
+                let label = format!("{:>2}{mark}", s + 1);
+                let style = if sel == Some(s) { t.title() } else { t.dim() };
+                buf.set_string(inner.x, y, label, style);
+            }
+        }
+        if squeezed {
+            let note = " squeezed ";
+            if (note.width() as u16) < area.width {
+                buf.set_string(area.x + 1, area.bottom() - 1, note, t.dim());
+            }
+        }
+    }
+}
+
+impl WindowView<'_> {
+    #[allow(clippy::too_many_arguments)]
+    fn draw_row(
+        &self,
+        buf: &mut Buffer,
+        item: Item,
+        x0: u16,
+        y: u16,
+        cols: u16,
+        cell_mm: f64,
+        margin: f64,
+    ) {
+        let app = self.app;
+        let t = &app.theme;
+        let e = &app.eval;
+        let past = |top: f64| top > e.window_height_mm + FIT_TOLERANCE_MM;
+        let centre = |c: u16| (f64::from(c) + 0.5) * cell_mm;
+        let in_margin = |x: f64| margin > 0.0 && (x < margin || x > e.window_width_mm - margin);
+        match item {
+            Item::Layer { s, l, top_mm } => {
+                let sec = &e.sections[s];
+                let SectionKind::Winding {
+                    winding,
+                    with,
+                    pitch_mm,
+                    ..
+                } = &sec.kind
+                else {
+                    return;
+                };
+                let ly = &sec.layers[l];
+                let a = app.build.winding_index(winding).unwrap_or(0);
+                let b = with.as_ref().and_then(|w| app.build.winding_index(w));
+                let over = past(top_mm);
+                // The first winding's share of each bifilar turn's width.
+                let share_a = e
+                    .windings
+                    .get(a)
+                    .map_or(0.0, |w| f64::from(w.strands.max(1)) * w.od_mm)
+                    / pitch_mm.max(1e-9);
+                let pitch = pitch_mm.max(1e-9);
+                let turn_of = |c: u16| {
+                    let x = centre(c);
+                    if in_margin(x) {
+                        return None;
+                    }
+                    let turn = ((x - margin) / pitch).floor();
+                    (turn >= 0.0 && (turn as u32) < ly.turns).then_some(turn as u32)
+                };
+                let mut c = 0;
+                while c < cols {
+                    let x = centre(c);
+                    let Some(turn) = turn_of(c) else {
+                        let (ch, st) = if in_margin(x) {
+                            ("░", t.dim())
+                        } else {
+                            ("·", t.dim())
+                        };
+                        buf.set_string(x0 + c, y, ch, st);
+                        c += 1;
+                        continue;
+                    };
+                    // The cells of this turn: a bifilar turn shows both letters, the first
+                    // winding's in proportion to its share of the pitch.
+                    let mut n = 1;
+                    while c + n < cols && turn_of(c + n) == Some(turn) {
+                        n += 1;
+                    }
+                    let first = match b {
+                        Some(_) if n >= 2 => {
+                            ((f64::from(n) * share_a).round() as u16).clamp(1, n - 1)
+                        }
+                        Some(_) if turn % 2 == 1 => 0,
+                        _ => n,
+                    };
+                    for j in 0..n {
+                        let k = match b {
+                            Some(b) if j >= first => b,
+                            _ => a,
+                        };
+                        let mut ch = letter(app, k);
+                        // Case tells turns apart only where a turn spans two cells or more.
+                        if turn % 2 == 1 && pitch >= 2.0 * cell_mm {
+                            ch = ch.to_ascii_lowercase();
+                        }
+                        let style = if over { t.bad() } else { t.winding(k) };
+                        buf.set_string(x0 + c + j, y, ch.to_string(), style);
+                    }
+                    c += n;
+                }
+            }
+            Item::Tape { s, top_mm } | Item::LayerTape { s, top_mm } => {
+                let thick = matches!(item, Item::Tape { .. });
+                let ch = if thick { "═" } else { "─" };
+                let style = if past(top_mm) { t.bad() } else { t.tape() };
+                for c in 0..cols {
+                    buf.set_string(x0 + c, y, ch, style);
+                }
+                if thick && let SectionKind::Tape { wraps } = e.sections[s].kind {
+                    let label = format!(" tape x{wraps} ");
+                    let w = label.width() as u16;
+                    if w + 4 <= cols {
+                        buf.set_string(x0 + (cols - w) / 2, y, label, style);
+                    }
+                }
+            }
+            Item::Gap => {}
+            Item::Limit => {
+                let style = t.limit();
+                for c in 0..cols {
+                    buf.set_string(x0 + c, y, "━", style);
+                }
+                let label = if e.fits {
+                    format!(" limit {:.2} mm ", e.window_height_mm)
+                } else {
+                    format!(
+                        " LIMIT {:.2}: over by {:.2} mm ",
+                        e.window_height_mm, -e.spare_height_mm
+                    )
+                };
+                let label = super::fit(&label, cols as usize);
+                let w = label.width() as u16;
+                let style = if e.fits { style } else { t.bad() };
+                buf.set_string(x0 + cols.saturating_sub(w) / 2, y, label, style);
+            }
+            Item::Allowance => {
+                let over = !e.fits;
+                let style = if over { t.bad() } else { t.dim() };
+                for c in 0..cols {
+                    buf.set_string(x0 + c, y, "┄", t.dim());
+                }
+                let label = format!(
+                    " x{} allowance {:.2} mm ",
+                    app.build.setup.bulge, e.height_with_allowance_mm
+                );
+                let label = super::fit(&label, cols as usize);
+                let w = label.width() as u16;
+                buf.set_string(x0 + cols.saturating_sub(w) / 2, y, label, style);
+            }
+        }
+    }
+}
+
+/// Too many pieces for the rows: every layer and tape at its plain-scale row (later ones
+/// drawn over earlier), the markers kept.
+fn squeeze(all: &[Piece], rows: u16) -> Vec<u16> {
+    // Give rows to markers first, then to the thickest pieces, one each, in height order.
+    let mut got = vec![0u16; all.len()];
+    let mut left = rows;
+    for (i, p) in all.iter().enumerate() {
+        if matches!(p.item, Item::Limit | Item::Allowance) && left > 0 {
+            got[i] = 1;
+            left -= 1;
+        }
+    }
+    let mut order: Vec<usize> = (0..all.len())
+        .filter(|&i| all[i].min_rows > 0 && got[i] == 0)
+        .collect();
+    order.sort_by(|&a, &b| all[b].height_mm.total_cmp(&all[a].height_mm));
+    for i in order {
+        if left == 0 {
+            break;
+        }
+        got[i] = 1;
+        left -= 1;
+    }
+    got
+}

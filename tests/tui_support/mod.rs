@@ -1,0 +1,83 @@
+//! Shared helpers for the planner's tests: an App on the demo build, key presses, and the
+//! text of a rendered screen.
+#![allow(dead_code)]
+
+use ratatui::Terminal;
+use ratatui::backend::TestBackend;
+use ratatui::buffer::Buffer;
+use ratatui::crossterm::event::{KeyCode, KeyEvent, KeyModifiers};
+use turnstack::library::demo::demo_build;
+use turnstack::tui::theme::Theme;
+use turnstack::tui::{App, view};
+
+pub fn demo_app() -> App {
+    let mut app = App::new(demo_build().expect("the demo build loads"), None);
+    app.theme = Theme::plain();
+    app
+}
+
+pub fn text_of(buf: &Buffer) -> Vec<String> {
+    let a = buf.area;
+    (a.top()..a.bottom())
+        .map(|y| {
+            let mut line = String::new();
+            let mut x = a.left();
+            while x < a.right() {
+                let s = buf[(x, y)].symbol();
+                line.push_str(s);
+                x += unicode_width::UnicodeWidthStr::width(s).max(1) as u16;
+            }
+            line
+        })
+        .collect()
+}
+
+pub fn render(app: &App, w: u16, h: u16) -> Vec<String> {
+    let mut terminal = Terminal::new(TestBackend::new(w, h)).unwrap();
+    terminal.draw(|f| view::draw(app, f)).unwrap();
+    text_of(terminal.backend().buffer())
+}
+
+pub fn screen(app: &App, w: u16, h: u16) -> String {
+    render(app, w, h).join("\n")
+}
+
+pub fn key(c: char) -> KeyEvent {
+    KeyEvent::new(KeyCode::Char(c), KeyModifiers::NONE)
+}
+
+pub fn code(c: KeyCode) -> KeyEvent {
+    KeyEvent::new(c, KeyModifiers::NONE)
+}
+
+/// Press keys given as text: plain characters, and <enter>, <esc>, <tab>, <up>, <down>,
+/// <bs>, <del> for the others.
+pub fn press(app: &mut App, keys: &str) -> Vec<turnstack::tui::Effect> {
+    let mut effects = Vec::new();
+    let mut rest = keys;
+    while !rest.is_empty() {
+        let ev = if let Some(r) = rest.strip_prefix('<') {
+            let end = r.find('>').expect("closing >");
+            let name = &r[..end];
+            rest = &r[end + 1..];
+            code(match name {
+                "enter" => KeyCode::Enter,
+                "esc" => KeyCode::Esc,
+                "tab" => KeyCode::Tab,
+                "up" => KeyCode::Up,
+                "down" => KeyCode::Down,
+                "bs" => KeyCode::Backspace,
+                "del" => KeyCode::Delete,
+                other => panic!("unknown key <{other}>"),
+            })
+        } else {
+            let c = rest.chars().next().unwrap();
+            rest = &rest[c.len_utf8()..];
+            key(c)
+        };
+        if let Some(e) = app.handle_key(&ev) {
+            effects.push(e);
+        }
+    }
+    effects
+}
