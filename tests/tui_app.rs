@@ -193,12 +193,13 @@ fn undo_and_redo_walk_the_history_both_ways() {
 fn an_edit_that_breaks_the_build_is_refused_and_the_build_kept() {
     let mut app = plain_app();
     let kept = app.build.clone();
-    // 30 strands of 0.566 mm wire need 17 mm per turn in a 15.2 mm window.
+    // 30 strands of 0.566 mm wire need 17 mm per turn in a 15.2 mm window. The field
+    // opens holding the present 3 strands: rub it out first.
     app.focus = Focus::Windings;
     app.winding_sel = 1;
     press(
         &mut app,
-        "<enter><down><down><down><down><down><enter>30<enter>",
+        "<enter><down><down><down><down><down><enter><bs>30<enter>",
     );
     assert_eq!(app.build, kept);
     let st = app.status.clone().unwrap();
