@@ -72,12 +72,12 @@ fn check_exit_codes_say_whether_each_example_fits() {
     }
 }
 
-/// `check` with no file reports the bundled demo build, which is the bench example.
+/// `check` with no file reports the bundled demo build, the bench converter's first try.
 #[test]
 fn check_without_a_file_reports_the_demo_build() {
     let demo = run(&["check"]);
     assert_eq!(code(&demo), 0, "{}", stderr(&demo));
-    let p = example_path("bench-forward");
+    let p = example_path("first-try");
     let file = run(&["check", p.to_str().unwrap()]);
     assert_eq!(stdout(&demo), stdout(&file));
     assert!(stdout(&demo).starts_with("Bench supply 5 V channel"));

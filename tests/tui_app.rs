@@ -431,14 +431,12 @@ fn help_lists_every_binding_and_closes() {
     assert!(app.overlays.is_empty());
 }
 
-/// The technician's run: on the demo, wind the primary plainly, split it around the
-/// secondary, put the reset winding on thinner wire, wind it bifilar with both primary
-/// halves, undo the last step, save and reopen: the same build comes back.
+/// The technician's run: on the demo (each winding in one plain section), split the
+/// primary around the secondary, put the reset winding on thinner wire, wind it bifilar
+/// with both primary halves, undo the last step, save and reopen: the same build comes back.
 #[test]
 fn demo_scenario_split_thin_bifilar_undo_save_reopen() {
     let mut app = demo_app();
-    // Unwind the demo's interleaving: both P+R sections alone, then join the primary.
-    press(&mut app, "balone<enter><up><up><up><up>balone<enter>dd");
     assert_eq!(stack_words(&app), ["P24", "t1", "S16", "t1", "R24", "t2"]);
     let plain_ps = leakage_uh(&app, "S");
     press(&mut app, "p<down><down><down><down><down><down>s<enter>");

@@ -14,8 +14,8 @@ fn contains(screen: &str, what: &str) -> bool {
 }
 
 #[test]
-fn demo_at_80x24_shows_the_engines_figures() {
-    let app = demo_app();
+fn bench_example_at_80x24_shows_the_engines_figures() {
+    let app = bench_app();
     let s = screen(&app, 80, 24);
     let e = &app.eval;
     assert!(contains(&s, "FITS"), "{s}");
@@ -51,12 +51,12 @@ fn demo_at_80x24_shows_the_engines_figures() {
 }
 
 #[test]
-fn demo_at_120x40_shows_every_column_and_converter_figures() {
-    let app = demo_app();
+fn bench_example_at_120x40_shows_every_column_and_converter_figures() {
+    let app = bench_app();
     let s = screen(&app, 120, 40);
     for w in &app.eval.windings {
         assert!(contains(&s, &format!("{:.1}", w.mlt_mm)));
-        let ac = w.ac.as_ref().expect("the demo has a frequency");
+        let ac = w.ac.as_ref().expect("the example has a frequency");
         assert!(contains(&s, &format!("{:.4}", ac.rac_ohm)), "{s}");
     }
     let c = app.eval.converter.as_ref().unwrap();
@@ -70,7 +70,7 @@ fn demo_at_120x40_shows_every_column_and_converter_figures() {
 }
 
 fn overflowing_app() -> turnstack::tui::App {
-    let mut app = demo_app();
+    let mut app = bench_app();
     // The bobbin entered as measured, 2.5 mm high: the 3.1 mm build cannot fit.
     app.edit("lower window", |b| {
         b.bobbin.window.height_mm = 2.5;
@@ -115,7 +115,7 @@ fn overflow_cells_are_reversed_so_they_show_without_colour() {
 
 #[test]
 fn help_lists_every_key_of_the_key_map() {
-    let mut app = demo_app();
+    let mut app = bench_app();
     press(&mut app, "?");
     let mut seen = String::new();
     for _ in 0..40 {
@@ -128,7 +128,7 @@ fn help_lists_every_key_of_the_key_map() {
         assert!(seen.contains(&first), "help is missing the keys {first}");
     }
     // At 80x24 too, the first screen of help shows the help key and the quit key.
-    let mut small = demo_app();
+    let mut small = bench_app();
     press(&mut small, "?");
     let s = screen(&small, 80, 24);
     assert!(s.contains("Help: every key"), "{s}");
@@ -137,7 +137,7 @@ fn help_lists_every_key_of_the_key_map() {
 
 #[test]
 fn below_80x24_the_screen_says_how_big_it_must_be() {
-    let app = demo_app();
+    let app = bench_app();
     let s = screen(&app, 79, 24);
     assert!(
         s.contains("make the terminal at least 80x24 (now 79x24)"),
@@ -152,9 +152,9 @@ fn below_80x24_the_screen_says_how_big_it_must_be() {
 
 #[test]
 fn drawing_never_panics_at_any_size_with_any_popup_open() {
-    let mut apps = vec![demo_app(), overflowing_app()];
+    let mut apps = vec![bench_app(), overflowing_app()];
     for keys in ["?", "<tab>w", "s", "b", "G", "B", "a", "<tab><enter>", "q"] {
-        let mut a = demo_app();
+        let mut a = bench_app();
         press(&mut a, "+"); // unsaved, so q asks
         press(&mut a, keys);
         apps.push(a);
@@ -170,7 +170,7 @@ fn drawing_never_panics_at_any_size_with_any_popup_open() {
 
 #[test]
 fn no_color_draws_no_colour_but_keeps_the_selection_reversed() {
-    let mut app = demo_app();
+    let mut app = bench_app();
     app.theme = Theme::plain();
     let mut t = ratatui::Terminal::new(ratatui::backend::TestBackend::new(80, 24)).unwrap();
     t.draw(|f| view::draw(&app, f)).unwrap();
@@ -199,7 +199,7 @@ fn no_color_draws_no_colour_but_keeps_the_selection_reversed() {
 
 #[test]
 fn wide_characters_in_names_keep_the_columns() {
-    let mut app = demo_app();
+    let mut app = bench_app();
     app.edit("title", |b| {
         b.title = "变压器 build ✓ with a long title that will not fit".into();
         b.windings[1].name = "二次".into();
@@ -238,7 +238,7 @@ fn snapshot_overflow_120x40() {
 
 #[test]
 fn snapshot_wire_picker_80x24() {
-    let mut app = demo_app();
+    let mut app = bench_app();
     press(&mut app, "<tab><down><down>w");
     insta::assert_snapshot!(screen(&app, 80, 24));
 }

@@ -10,6 +10,24 @@ use turnstack::library::demo::demo_build;
 use turnstack::tui::theme::Theme;
 use turnstack::tui::{App, view};
 
+/// The planner on examples/bench-forward.toml: the interleaved build with the reset winding
+/// bifilar on both primary halves and a partial first layer, for the drawing's tests.
+pub fn bench_app() -> App {
+    let path = std::path::Path::new(env!("CARGO_MANIFEST_DIR")).join("examples/bench-forward.toml");
+    let b = turnstack::files::load_build(&path).expect("the bench example loads");
+    let mut app = App::new(
+        b,
+        Some(
+            path.strip_prefix(env!("CARGO_MANIFEST_DIR"))
+                .unwrap()
+                .to_path_buf(),
+        ),
+    );
+    app.theme = Theme::plain();
+    app
+}
+
+/// The planner on the demo build it opens with no file (each winding in one section).
 pub fn demo_app() -> App {
     let mut app = App::new(demo_build().expect("the demo build loads"), None);
     app.theme = Theme::plain();
