@@ -4,11 +4,11 @@ use super::ac;
 use super::constants::{FIT_TOLERANCE_MM, MM};
 use super::converter::{self, ConverterEval};
 use super::currents::{self, CurrentSource, WindingCurrent};
-use super::harmonics::{self, HARMONICS};
 use super::layout::{self, Laid, LaidKind};
 use super::leakage;
 use super::limits::{self, CURRENT_DENSITY_BAND_A_MM2, Constraint, Limit};
 use super::losses::{self, LossEval};
+use super::memo::Memo;
 use super::resistance::{area_mm2, ohm_per_m, rho_ohm_m};
 use super::validate::validate;
 use super::warnings;
@@ -143,7 +143,7 @@ pub struct Warning {
     pub at: WarningAt,
 }
 
-pub(super) fn evaluate(build: &Build) -> Evaluation {
+pub(super) fn evaluate(build: &Build, memo: &mut Memo) -> Evaluation {
     let wires = layout::resolved_wires(build);
     let laid = layout::lay_out(build, &wires);
     let window = &build.bobbin.window;
@@ -222,7 +222,8 @@ pub(super) fn evaluate(build: &Build) -> Evaluation {
     };
 
     let leakage = leakage_pairs(build, &laid);
-    let mut converter = if validate(build).is_empty() {
+    let problems = validate(build);
+    let mut converter = if problems.is_empty() {
         converter::evaluate(build)
     } else {
         None
@@ -253,6 +254,7 @@ pub(super) fn evaluate(build: &Build) -> Evaluation {
             &currents,
             &mut windings,
             &mut ac_warnings,
+            memo,
         );
     }
     for w in windings.iter_mut() {
@@ -288,7 +290,7 @@ pub(super) fn evaluate(build: &Build) -> Evaluation {
         notes: Vec::new(),
     };
     eval.limits = design_limits(&eval);
-    warnings::collect(build, &mut eval);
+    warnings::collect(build, &problems, &mut eval);
     eval.warnings.extend(ac_warnings);
     eval
 }
@@ -399,6 +401,7 @@ fn ac_figures(
     currents: &[WindingCurrent],
     windings: &mut [WindingEval],
     warnings: &mut Vec<Warning>,
+    memo: &mut Memo,
 ) {
     let n = build.windings.len();
     let delta_mm = ac::skin_depth_m(rho_ohm_m(build.setup.temperature_c), f_khz * 1e3) / MM;
@@ -507,32 +510,27 @@ fn ac_figures(
             .sum::<f64>()
             / total;
         let ac_factor_waveform = currents[k].waveform.as_ref().map(|wave| {
-            let spectrum = harmonics::spectrum(wave, HARMONICS);
-            if spectrum.rms_sq <= 0.0 {
+            let si = memo.spectrum(wave);
+            let (dc, rms_sq) = {
+                let sp = memo.spectrum_of(si);
+                (sp.dc, sp.rms_sq)
+            };
+            if rms_sq <= 0.0 {
                 return 1.0;
             }
             // Hurley's sum is linear in each layer's two Dowell terms, and layers of the same
-            // turns share their D: sum the harmonics once per distinct D.
-            let mut terms: Vec<(f64, (f64, f64))> = Vec::new();
-            let mut loss = spectrum.dc * spectrum.dc * total;
+            // turns share their D: the harmonics are summed once per distinct D (memoised).
+            let ac_power = rms_sq - dc * dc;
+            let mut loss = dc * dc * total;
             for &(d, f_a, f_b, length) in layers {
-                let t = match terms.iter().find(|(x, _)| *x == d) {
-                    Some((_, t)) => *t,
-                    None => {
-                        let t = harmonics::summed_terms(&spectrum, d);
-                        terms.push((d, t));
-                        t
-                    }
-                };
-                let ac_power = spectrum.rms_sq - spectrum.dc * spectrum.dc;
                 let share = if f_b == f_a || d < 1e-3 {
                     ac_power
                 } else {
-                    ac::layer_factor_from(t, f_a, f_b)
+                    ac::layer_factor_from(memo.summed_terms(si, d), f_a, f_b)
                 };
                 loss += share * length;
             }
-            loss / (spectrum.rms_sq * total)
+            loss / (rms_sq * total)
         });
         w.ac = Some(AcFigures {
             skin_depth_mm: delta_mm,

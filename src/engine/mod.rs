@@ -16,6 +16,7 @@ pub mod leakage;
 pub mod limits;
 pub mod losses;
 pub mod magnetics;
+pub mod memo;
 pub mod resistance;
 pub mod search;
 pub mod thermal;
@@ -38,7 +39,13 @@ use crate::model::Build;
 /// Every figure of a build. Total: never panics; a build that `validate` refuses still gets
 /// an evaluation (with an `invalid` warning) so that an editor can keep showing something.
 pub fn evaluate(build: &Build) -> Evaluation {
-    let mut eval = evaluation::evaluate(build);
+    evaluate_with(build, &mut memo::Memo::new())
+}
+
+/// `evaluate`, with a memo of its costly pure parts kept by the caller across builds that
+/// share them (the search's candidates). The figures are the same as `evaluate`'s.
+pub fn evaluate_with(build: &Build, memo: &mut memo::Memo) -> Evaluation {
+    let mut eval = evaluation::evaluate(build, memo);
     let isolation = isolation::warnings(build, &eval);
     eval.warnings.extend(isolation);
     eval

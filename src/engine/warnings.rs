@@ -2,7 +2,7 @@
 
 use super::evaluation::{Evaluation, SectionKind, Warning, WarningAt};
 use super::limits::CURRENT_DENSITY_BAND_A_MM2;
-use super::validate::validate;
+use super::validate::Invalid;
 use crate::model::{Build, Insulation};
 
 /// Window utilisation that hand winding on a bobbin rarely beats: about 0.3-0.5 of the window
@@ -13,13 +13,14 @@ pub const FILL_FACTOR_HAND_LIMIT: f64 = 0.45;
 /// its end turns up onto the tape (common practice: one turn fewer per layer).
 pub const MARGIN_CROWDING_PITCHES: f64 = 0.25;
 
-pub(super) fn collect(build: &Build, eval: &mut Evaluation) {
+/// `problems` are `validate(build)`, found once by the caller.
+pub(super) fn collect(build: &Build, problems: &[Invalid], eval: &mut Evaluation) {
     let mut out = Vec::new();
     let mut warn = |code: &'static str, at: WarningAt, message: String| {
         out.push(Warning { code, message, at })
     };
 
-    for problem in validate(build) {
+    for problem in problems {
         warn("invalid", WarningAt::Build, problem.to_string());
     }
     if !eval.fits {

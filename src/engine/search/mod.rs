@@ -11,7 +11,8 @@ mod space;
 pub use pareto::{Objectives, pareto_indices};
 pub use space::{Arrangement, ResetPlace, WireChoice};
 
-use super::{Evaluation, evaluate, validate};
+use super::memo::Memo;
+use super::{Evaluation, evaluate_with, validate};
 use crate::model::{Build, Role};
 use std::sync::atomic::{AtomicUsize, Ordering};
 
@@ -158,6 +159,7 @@ pub fn search(
         let mut reasons = space::Reasons::default();
         let mut candidate = build.clone();
         let mut laid_arrangement = None;
+        let mut memo = Memo::new();
         for index in (t..total).step_by(threads) {
             let n = done.fetch_add(1, Ordering::Relaxed) + 1;
             if n.is_multiple_of(4096) {
@@ -173,7 +175,7 @@ pub fn search(
                 laid_arrangement = Some(combo.arrangement);
             }
             plan.set_wires(&mut candidate, &combo);
-            let eval = evaluate(&candidate);
+            let eval = evaluate_with(&candidate, &mut memo);
             evaluated += 1;
             if !reasons.accept(&eval, settings, plan.sized()) {
                 continue;
