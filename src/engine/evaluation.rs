@@ -245,12 +245,11 @@ pub(super) fn evaluate(build: &Build, memo: &mut Memo) -> Evaluation {
             .map(|a| a / w.copper_area_mm2);
     }
     let mut ac_warnings = Vec::new();
-    if let Some(f_khz) = build.setup.frequency_khz {
+    if build.setup.frequency_khz.is_some() {
         ac_figures(
             build,
             &laid,
             &wires,
-            f_khz,
             &currents,
             &mut windings,
             &mut ac_warnings,
@@ -397,12 +396,14 @@ fn ac_figures(
     build: &Build,
     laid: &[Laid],
     wires: &[crate::library::wires::ResolvedWire],
-    f_khz: f64,
     currents: &[WindingCurrent],
     windings: &mut [WindingEval],
     warnings: &mut Vec<Warning>,
     memo: &mut Memo,
 ) {
+    let Some(f_khz) = build.setup.frequency_khz else {
+        return;
+    };
     let n = build.windings.len();
     let delta_mm = ac::skin_depth_m(rho_ohm_m(build.setup.temperature_c), f_khz * 1e3) / MM;
     let b_w = build.bobbin.window.width_mm;
