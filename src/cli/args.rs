@@ -54,6 +54,9 @@ pub enum Command {
         /// Highest leakage inductance allowed (uH, any primary pair).
         #[arg(long)]
         max_leakage_uh: Option<f64>,
+        /// Highest temperature rise allowed (C); the build's own rise_limit_c by default.
+        #[arg(long)]
+        max_rise_c: Option<f64>,
         /// Threads to use.
         #[arg(long, default_value_t = 2)]
         threads: usize,

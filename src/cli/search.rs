@@ -84,6 +84,8 @@ fn outcome_json(o: &Outcome) -> String {
                 "description": c.description,
                 "fits": c.eval.fits,
                 "copper_loss_w": c.copper_loss_w,
+                "total_loss_w": c.objectives.loss_w,
+                "temperature_rise_c": c.eval.losses.as_ref().and_then(|l| l.temperature_rise_c),
                 "leakage_uh": c.objectives.leakage_uh,
                 "spare_height_mm": c.eval.spare_height_mm,
                 "height_with_allowance_mm": c.eval.height_with_allowance_mm,
@@ -133,14 +135,14 @@ fn report(o: &Outcome, settings: &Settings) -> String {
         }
         return s;
     }
-    let _ = writeln!(s, "\n  #  copper W  leakage uH  spare mm  build");
+    let _ = writeln!(s, "\n  #    loss W  leakage uH  spare mm  build");
     for (i, c) in o.candidates.iter().enumerate() {
         let lines = crate::report::wrap(&c.description, 43, "");
         let _ = writeln!(
             s,
             "{:>3}  {:>8.3}  {:>10.3}  {:>8.2}  {}",
             i + 1,
-            c.copper_loss_w,
+            c.objectives.loss_w,
             c.objectives.leakage_uh,
             c.eval.spare_height_mm,
             truncate(&lines[0], 43)
@@ -151,7 +153,8 @@ fn report(o: &Outcome, settings: &Settings) -> String {
     }
     let _ = writeln!(
         s,
-        "\nCopper loss is I^2 Rac over the windings with a current_rms_a."
+        "\nLoss: copper (I^2 R over each winding's waveform) plus core where the operating point\n\
+         gives it; candidates over the temperature-rise limit are left out."
     );
     let _ = writeln!(
         s,

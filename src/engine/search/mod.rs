@@ -30,6 +30,8 @@ pub struct Settings {
     /// `min_strand_mm` bare (finer wire is not paralleled by hand).
     pub max_strands: u32,
     pub min_strand_mm: f64,
+    /// Finest wire tried (bare mm): finer wire breaks too easily to wind by hand.
+    pub min_wire_mm: f64,
     /// Current density band (A/mm^2 RMS) a wire must fall in.
     pub j_min_a_mm2: f64,
     pub j_max_a_mm2: f64,
@@ -39,6 +41,9 @@ pub struct Settings {
     /// Tape wraps between other adjacent sections.
     pub section_wraps: u32,
     pub max_leakage_uh: Option<f64>,
+    /// Highest temperature rise allowed (C); `None` takes the build's own `rise_limit_c`
+    /// where the operating point gives a rise.
+    pub max_rise_c: Option<f64>,
     /// Skip candidates that cannot fit by a lower bound on their height, and wires outside
     /// the band (turning it off gives the brute-force search the tests compare against).
     pub prune: bool,
@@ -52,6 +57,8 @@ impl Default for Settings {
             series: Series::Metric,
             max_strands: 4,
             min_strand_mm: 0.2,
+            // Below about 0.1 mm, enamelled wire snaps under hand tension (common practice).
+            min_wire_mm: 0.1,
             // Small SMPS transformers typically run 3-6 A/mm^2 RMS with natural convection
             // (common practice); the band is kept a little wider so a cool build is not missed.
             j_min_a_mm2: 2.0,
@@ -59,6 +66,7 @@ impl Default for Settings {
             isolation_wraps: None,
             section_wraps: 1,
             max_leakage_uh: None,
+            max_rise_c: None,
             prune: true,
             threads: 1,
         }
@@ -112,24 +120,24 @@ impl std::fmt::Display for SearchError {
     }
 }
 
-/// RMS current of each winding the search sizes wire for: the build's `current_rms_a`.
-pub fn winding_currents(build: &Build) -> Vec<Option<f64>> {
-    build.windings.iter().map(|w| w.current_rms_a).collect()
+/// RMS current of each winding the search sizes wire for, as the evaluation has it: the
+/// build's `current_rms_a`, else what the operating point gives.
+pub fn winding_currents(base: &Evaluation) -> Vec<Option<f64>> {
+    base.windings.iter().map(|w| w.current_rms_a).collect()
 }
 
-/// Copper loss (W) of an evaluated candidate: I^2 R per winding with a current, R the AC
-/// resistance where the build gives a frequency, else the DC resistance.
-pub fn copper_loss_w(build: &Build, eval: &Evaluation) -> f64 {
-    build
-        .windings
-        .iter()
-        .zip(&eval.windings)
-        .filter_map(|(w, e)| {
-            let i = w.current_rms_a?;
-            let r = e.ac.as_ref().map_or(e.dcr_ohm, |a| a.rac_ohm);
-            Some(i * i * r)
-        })
-        .sum()
+/// Copper loss (W) of an evaluated candidate: the engine's per-winding figure (I^2 R over
+/// each winding's own waveform where the operating point gives one) over the windings
+/// with a current.
+pub fn copper_loss_w(eval: &Evaluation) -> f64 {
+    eval.windings.iter().filter_map(|w| w.copper_loss_w).sum()
+}
+
+/// Total loss (W): copper plus core where the operating point is known.
+pub fn total_loss_w(eval: &Evaluation) -> f64 {
+    eval.losses
+        .as_ref()
+        .map_or_else(|| copper_loss_w(eval), |l| l.total_loss_w)
 }
 
 /// Run the search. `progress` is called now and then with (done, total).
@@ -181,9 +189,9 @@ pub fn search(
                 continue;
             }
             feasible += 1;
-            let copper = copper_loss_w(&candidate, &eval);
+            let copper = copper_loss_w(&eval);
             let objectives = Objectives {
-                loss_w: copper,
+                loss_w: total_loss_w(&eval),
                 leakage_uh: primary_secondary_leakage_uh(&candidate, &eval),
                 spare_height_mm: eval.spare_height_mm,
             };

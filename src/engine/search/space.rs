@@ -113,7 +113,7 @@ impl<'a> Space<'a> {
             .collect();
         let mut notes = Vec::new();
         let w_u = usable_width_mm(base);
-        let currents: Vec<Option<f64>> = base.windings.iter().map(|w| w.current_rms_a).collect();
+        let currents = super::winding_currents(&crate::engine::evaluate(base));
 
         let sizes = series_sizes(settings.series);
         let mut sized = vec![false; base.windings.len()];
@@ -136,7 +136,7 @@ impl<'a> Space<'a> {
                 }
                 let Some(i) = currents[k].filter(|&i| i > 0.0) else {
                     notes.push(format!(
-                        "\"{}\" has no current_rms_a: its wire is kept as it is",
+                        "\"{}\" has no current (no current_rms_a, none from an operating point): its wire is kept",
                         w.name
                     ));
                     return own();
@@ -147,6 +147,9 @@ impl<'a> Space<'a> {
                 let mut out = Vec::new();
                 for size in &sizes {
                     let rw = wires::resolve(size, w.insulation);
+                    if rw.bare_mm + 1e-9 < settings.min_wire_mm {
+                        continue;
+                    }
                     let most = if rw.bare_mm + 1e-9 >= settings.min_strand_mm {
                         settings.max_strands.max(1)
                     } else {
@@ -495,6 +498,7 @@ pub struct Reasons {
     pub too_tall: usize,
     pub out_of_band: usize,
     pub leakage: usize,
+    pub temperature: usize,
     pub invalid: usize,
     /// The least height with allowance seen, and the window height.
     pub least_height_mm: Option<(f64, f64)>,
@@ -531,6 +535,13 @@ impl Reasons {
             self.leakage += 1;
             return false;
         }
+        if let Some(l) = &eval.losses
+            && let Some(rise) = l.temperature_rise_c
+            && rise > settings.max_rise_c.unwrap_or(l.rise_limit_c)
+        {
+            self.temperature += 1;
+            return false;
+        }
         true
     }
 
@@ -538,6 +549,7 @@ impl Reasons {
         self.too_tall += o.too_tall;
         self.out_of_band += o.out_of_band;
         self.leakage += o.leakage;
+        self.temperature += o.temperature;
         self.invalid += o.invalid;
         if let Some((h, w)) = o.least_height_mm
             && self.least_height_mm.is_none_or(|(l, _)| h < l)
@@ -566,7 +578,7 @@ impl Reasons {
         if space == 0 {
             return "the space is empty: no wire in the series suits the windings".into();
         }
-        if self.too_tall + self.out_of_band + self.leakage + self.invalid == 0 {
+        if self.too_tall + self.out_of_band + self.leakage + self.temperature + self.invalid == 0 {
             let least = self
                 .least_bound_mm
                 .map(|b| format!(": the thinnest needs at least {b:.2} mm with the allowance against a {window_mm:.2} mm window"))
@@ -576,12 +588,14 @@ impl Reasons {
                  current-density band can fit ({pruned} ruled out before evaluation){least}"
             );
         }
-        if self.too_tall >= self.out_of_band.max(self.leakage) {
+        if self.too_tall >= self.out_of_band.max(self.leakage).max(self.temperature) {
             let least = self
                 .least_height_mm
                 .map(|(h, w)| format!("; the shortest needs {h:.2} mm with the allowance against a {w:.2} mm window"))
                 .unwrap_or_default();
             format!("the window height binds: no combination within the {band} band fits{least}")
+        } else if self.temperature >= self.out_of_band.max(self.leakage) {
+            "the temperature rise binds: the builds that fit run hotter than the limit".to_string()
         } else if self.out_of_band >= self.leakage {
             format!(
                 "the current-density band ({band}) binds: the builds that fit run their wire outside it"
