@@ -153,7 +153,23 @@ fn below_80x24_the_screen_says_how_big_it_must_be() {
 #[test]
 fn drawing_never_panics_at_any_size_with_any_popup_open() {
     let mut apps = vec![bench_app(), overflowing_app()];
-    for keys in ["?", "<tab>w", "s", "b", "G", "B", "a", "<tab><enter>", "q"] {
+    for keys in [
+        "?",
+        "<tab>w",
+        "s",
+        "b",
+        "G",
+        "B",
+        "a",
+        "<tab><enter>",
+        "q",
+        "V",
+        "M",
+        "M<enter>",
+        "I<enter><enter><enter>",
+        "Bmeasured<enter>",
+        "E",
+    ] {
         let mut a = bench_app();
         press(&mut a, "+"); // unsaved, so q asks
         press(&mut a, keys);

@@ -17,6 +17,11 @@ pub enum Action {
     NewBuild,
     Bobbin,
     Setup,
+    Operating,
+    Material,
+    Isolation,
+    Search,
+    Sheet,
     Pin,
     // The stack panel.
     EditSection,

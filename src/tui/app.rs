@@ -3,9 +3,11 @@
 //! I/O is returned as an `Effect` for the loop to carry out.
 
 use super::action::Action;
+pub use super::core_form::{CoreDraft, LegShape};
 use super::edit::{self, Refusal};
 use super::keymap::{self, Context};
 use super::theme::Theme;
+use crate::engine::search::Candidate;
 use crate::engine::{Evaluation, evaluate, validate};
 use crate::files::BobbinLibrary;
 use crate::library::wires::catalogue;
@@ -39,6 +41,15 @@ pub enum Effect {
     Save(PathBuf),
     SaveThenQuit(PathBuf),
     Open(PathBuf),
+    /// Write the winding sheet of the current build (HTML when the name ends in .html).
+    WriteSheet(PathBuf),
+    /// Write a bobbin file into the user's bobbin folder.
+    SaveBobbin {
+        path: PathBuf,
+        text: String,
+    },
+    /// Run the search on the current build (the loop draws "searching..." first).
+    Search,
     Quit,
 }
 
@@ -52,6 +63,10 @@ pub enum PickValue {
     Partner(Option<String>),
     AddTape,
     AddShare(String),
+    /// Index into `App::found`.
+    Candidate(usize),
+    /// A bundled ferrite grade, or `None` for the user's own figures.
+    Grade(Option<String>),
 }
 
 #[derive(Debug, Clone, Copy, PartialEq)]
@@ -62,6 +77,8 @@ pub enum PickPurpose {
     SplitAround(usize),
     Partner(usize),
     AddSection(usize),
+    Search,
+    Grade,
 }
 
 #[derive(Debug, Clone, PartialEq)]
@@ -97,6 +114,9 @@ pub enum FormKind {
     Setup,
     Winding(usize),
     Bobbin,
+    Operating,
+    Material,
+    Isolation,
 }
 
 #[derive(Debug, Clone, Copy, PartialEq)]
@@ -123,6 +143,90 @@ pub enum Field {
     BTubeDepth,
     BTubeRadius,
     BTubeDiameter,
+    // `[operating]`; `OpAdd` is the only row while the build has none.
+    OpAdd,
+    OpResetSide,
+    OpVinMin,
+    OpVinMax,
+    OpVout,
+    OpIout,
+    OpDrop,
+    OpDuty,
+    OpRise,
+    OpSurface,
+    OpResetTurns,
+    OpRemove,
+    // `[material]`.
+    MatAdd,
+    MatGrade,
+    MatBsat,
+    MatBr,
+    MatMuI,
+    MatSteinmetz,
+    MatGap,
+    MatRemove,
+    // `[isolation]`.
+    IsoAdd,
+    IsoClass,
+    IsoVolts,
+    IsoCreepage,
+    IsoRemove,
+    // The measured bobbin's core: calliper readings and a test winding, kept in
+    // `App::core_draft` until applied.
+    CLegShape,
+    CLegWidth,
+    CLegDepth,
+    CLegDiameter,
+    CLe,
+    CTestTurns,
+    CTestUh,
+    CMuI,
+    CApply,
+    CSave,
+}
+
+impl Field {
+    /// The form a field belongs to.
+    pub fn form(self) -> FormKind {
+        use Field as F;
+        match self {
+            F::Title | F::Temperature | F::Allowance | F::Margin | F::TapeMm | F::Frequency => {
+                FormKind::Setup
+            }
+            F::WName(k)
+            | F::WRole(k)
+            | F::WTurns(k)
+            | F::WWire(k)
+            | F::WGrade(k)
+            | F::WStrands(k)
+            | F::WCurrent(k)
+            | F::WPins(k) => FormKind::Winding(k),
+            F::OpAdd
+            | F::OpResetSide
+            | F::OpVinMin
+            | F::OpVinMax
+            | F::OpVout
+            | F::OpIout
+            | F::OpDrop
+            | F::OpDuty
+            | F::OpRise
+            | F::OpSurface
+            | F::OpResetTurns
+            | F::OpRemove => FormKind::Operating,
+            F::MatAdd
+            | F::MatGrade
+            | F::MatBsat
+            | F::MatBr
+            | F::MatMuI
+            | F::MatSteinmetz
+            | F::MatGap
+            | F::MatRemove => FormKind::Material,
+            F::IsoAdd | F::IsoClass | F::IsoVolts | F::IsoCreepage | F::IsoRemove => {
+                FormKind::Isolation
+            }
+            _ => FormKind::Bobbin,
+        }
+    }
 }
 
 #[derive(Debug, Clone, PartialEq)]
@@ -139,6 +243,8 @@ pub enum PromptPurpose {
     MeasuredWire(usize),
     SavePath { then_quit: bool },
     OpenPath,
+    SheetPath,
+    BobbinId,
 }
 
 #[derive(Debug, Clone, PartialEq)]
@@ -154,6 +260,8 @@ pub enum Question {
     Quit,
     DiscardForOpen,
     DiscardForNew,
+    /// A bobbin file of that id exists in the user's folder (`App::pending_bobbin`).
+    OverwriteBobbin,
 }
 
 #[derive(Debug, Clone, PartialEq)]
@@ -191,6 +299,14 @@ pub struct App {
     /// Figures pinned by the user as the reference; wins over `before` while set.
     pub pinned: Option<Evaluation>,
     pub theme: Theme,
+    /// The measured core being typed in the measured-bobbin form, not yet applied.
+    pub core_draft: CoreDraft,
+    /// The candidates of the last search, for its pick list.
+    pub found: Vec<Candidate>,
+    /// Where bobbins are saved: the user's bobbin folder (tests point it elsewhere).
+    pub bobbin_dir: Option<PathBuf>,
+    /// A bobbin file waiting for the overwrite question: its path and text.
+    pub pending_bobbin: Option<(PathBuf, String)>,
 }
 
 fn parse_f64(s: &str) -> Option<f64> {
@@ -220,6 +336,10 @@ impl App {
             before: None,
             pinned: None,
             theme: Theme::from_env(),
+            core_draft: CoreDraft::default(),
+            found: Vec::new(),
+            bobbin_dir: crate::files::user_bobbin_dir(),
+            pending_bobbin: None,
         }
     }
 
@@ -273,14 +393,14 @@ impl App {
         self.update(action)
     }
 
-    fn info(&mut self, text: impl Into<String>) {
+    pub(super) fn info(&mut self, text: impl Into<String>) {
         self.status = Some(Status {
             text: text.into(),
             kind: StatusKind::Info,
         });
     }
 
-    fn refuse(&mut self, text: impl Into<String>) {
+    pub(super) fn refuse(&mut self, text: impl Into<String>) {
         self.status = Some(Status {
             text: format!("refused: {}", text.into()),
             kind: StatusKind::Refused,
@@ -404,7 +524,7 @@ impl App {
             .unwrap_or_default()
     }
 
-    fn prompt(
+    pub(super) fn prompt(
         &mut self,
         label: impl Into<String>,
         text: impl Into<String>,
@@ -415,6 +535,13 @@ impl App {
             PromptPurpose::Field(Field::WPins(_)) => "start and finish pin, e.g. 1 2 (empty: none)",
             PromptPurpose::Field(Field::WCurrent(_) | Field::Frequency) => "a number; empty: none",
             PromptPurpose::SavePath { .. } | PromptPurpose::OpenPath => "a file path",
+            PromptPurpose::SheetPath => {
+                "a file path; a name ending in .html gives a printable page"
+            }
+            PromptPurpose::BobbinId => {
+                "letters, digits, - _ . (the file name in your bobbin folder)"
+            }
+            PromptPurpose::Field(f) => super::forms::hint(f),
             _ => "",
         };
         self.overlays.push(Overlay::Prompt(Prompt {
@@ -521,10 +648,25 @@ impl App {
                 }
             }
             Action::Bobbin => self.open_bobbin_picker(PickPurpose::Bobbin),
-            Action::Setup => self.overlays.push(Overlay::Form(Form {
-                kind: FormKind::Setup,
-                selected: 0,
-            })),
+            Action::Setup => self.open_form(FormKind::Setup),
+            Action::Operating => self.open_form(FormKind::Operating),
+            Action::Material => self.open_form(FormKind::Material),
+            Action::Isolation => self.open_form(FormKind::Isolation),
+            Action::Search => {
+                self.info("searching... (wires, strands and section orders on this bobbin)");
+                return Some(Effect::Search);
+            }
+            Action::Sheet => {
+                let suggestion = match &self.path {
+                    Some(p) => p.with_extension("sheet.txt").display().to_string(),
+                    None => "winding-sheet.txt".into(),
+                };
+                self.prompt(
+                    "write the winding sheet to",
+                    suggestion,
+                    PromptPurpose::SheetPath,
+                );
+            }
             Action::EditSection => match self.build.stack.get(i) {
                 Some(Section::Winding(_)) => {
                     let t = self.build.section_turns()[i];
@@ -629,6 +771,11 @@ impl App {
         None
     }
 
+    fn open_form(&mut self, kind: FormKind) {
+        self.overlays
+            .push(Overlay::Form(Form { kind, selected: 0 }));
+    }
+
     fn ask_save_path(&mut self, then_quit: bool) {
         let suggestion = match &self.path {
             Some(p) => p.display().to_string(),
@@ -646,6 +793,10 @@ impl App {
             Some(p) => BobbinLibrary::for_build(p),
             None => BobbinLibrary::standard(),
         };
+        if purpose == PickPurpose::Bobbin {
+            self.open_ranked_bobbin_picker(&lib);
+            return;
+        }
         let mut items: Vec<PickItem> = lib
             .entries()
             .into_iter()
@@ -689,6 +840,65 @@ impl App {
                 "id", "width", "height", "from"
             ),
             purpose,
+            items,
+            selected,
+            filter: String::new(),
+        }));
+    }
+
+    /// The library ranked by how this build's windings and stack fit each bobbin
+    /// (`report::fit::rank`), the current bobbin marked, a measured one last.
+    fn open_ranked_bobbin_picker(&mut self, lib: &BobbinLibrary) {
+        let bobbins: Vec<(String, crate::model::Bobbin)> = lib
+            .entries()
+            .into_iter()
+            .filter_map(|e| e.bobbin.ok().map(|b| (e.id, b)))
+            .collect();
+        let current = match &self.build.bobbin_source {
+            BobbinSource::Id(id) => Some(id.clone()),
+            BobbinSource::Inline => None,
+        };
+        let mut items: Vec<PickItem> = crate::report::fit::rank(&self.build, &bobbins)
+            .into_iter()
+            .map(|r| {
+                let mark = if current.as_deref() == Some(r.bobbin.as_str()) {
+                    '*'
+                } else {
+                    ' '
+                };
+                let (fits, spare) = match (r.fits, r.valid) {
+                    (true, _) => ("yes", format!("{:>6.2}", r.spare_height_mm)),
+                    (false, true) => ("no", format!("{:>6.2}", r.spare_height_mm)),
+                    (false, false) => ("no", format!("{:>6}", "-")),
+                };
+                let why = r.reasons.first().cloned().unwrap_or(r.name);
+                PickItem {
+                    label: format!(
+                        "{mark}{:<10} {fits:<4} {spare} {:>5.2}  {why}",
+                        r.bobbin, r.fill_factor
+                    ),
+                    value: PickValue::Bobbin(r.bobbin),
+                }
+            })
+            .collect();
+        items.push(PickItem {
+            label: " measured: type your own bobbin's figures".into(),
+            value: PickValue::MeasuredBobbin,
+        });
+        let selected = match &current {
+            Some(id) => items
+                .iter()
+                .position(|it| it.value == PickValue::Bobbin(id.clone()))
+                .unwrap_or(0),
+            None => items.len() - 1,
+        };
+        self.overlays.push(Overlay::Picker(Picker {
+            title: "bobbin: fitting first, most spare first (* now)".into(),
+            header: format!(
+                " {:<10} {:<4} {:>6} {:>5}  why not, or name",
+                "id", "fits", "spare", "fill"
+            ),
+            purpose: PickPurpose::Bobbin,
             items,
             selected,
             filter: String::new(),
@@ -916,10 +1126,8 @@ impl App {
                     Ok(())
                 });
                 if ok.is_some() {
-                    self.overlays.push(Overlay::Form(Form {
-                        kind: FormKind::Bobbin,
-                        selected: 0,
-                    }));
+                    self.start_core_draft();
+                    self.open_form(FormKind::Bobbin);
                 }
             }
             (PickPurpose::NewBuild, PickValue::Bobbin(id)) => {
@@ -966,6 +1174,8 @@ impl App {
                     self.stack_sel = sel;
                 }
             }
+            (PickPurpose::Search, PickValue::Candidate(n)) => self.take_candidate(n),
+            (PickPurpose::Grade, PickValue::Grade(g)) => self.set_grade(g),
             (PickPurpose::AddSection(at), PickValue::AddShare(w)) => {
                 if let Some(sel) = self.edit(format!("add a section of {w}"), |b| {
                     edit::add_share(b, at, &w)
@@ -1077,8 +1287,12 @@ impl App {
                         ));
                     }
                 }
+                rows.extend(self.core_rows());
                 rows
             }
+            FormKind::Operating => self.operating_rows(),
+            FormKind::Material => self.material_rows(),
+            FormKind::Isolation => self.isolation_rows(),
         }
     }
 
@@ -1148,24 +1362,9 @@ impl App {
             | Field::WCurrent(k)
             | Field::WPins(k)
                 if !k_ok(k) => {}
+            _ if self.activate_more(field) => {}
             _ => {
-                let kind = match field {
-                    Field::Title
-                    | Field::Temperature
-                    | Field::Allowance
-                    | Field::Margin
-                    | Field::TapeMm
-                    | Field::Frequency => FormKind::Setup,
-                    Field::WName(k)
-                    | Field::WRole(k)
-                    | Field::WTurns(k)
-                    | Field::WWire(k)
-                    | Field::WGrade(k)
-                    | Field::WStrands(k)
-                    | Field::WCurrent(k)
-                    | Field::WPins(k) => FormKind::Winding(k),
-                    _ => FormKind::Bobbin,
-                };
+                let kind = field.form();
                 let Some((_, label, _)) = self
                     .form_rows(kind)
                     .into_iter()
@@ -1230,7 +1429,7 @@ impl App {
                 Tube::Round { diameter_mm } => diameter_mm.to_string(),
                 _ => String::new(),
             },
-            _ => String::new(),
+            _ => self.field_text_more(field),
         }
     }
 
@@ -1280,6 +1479,14 @@ impl App {
                 }
                 return Some(Effect::Open(PathBuf::from(t)));
             }
+            PromptPurpose::SheetPath => {
+                if t.is_empty() {
+                    self.refuse("no file name given");
+                    return None;
+                }
+                return Some(Effect::WriteSheet(PathBuf::from(t)));
+            }
+            PromptPurpose::BobbinId => return self.save_bobbin_as(t),
             PromptPurpose::SectionTurns(i) => match parse_u32(t) {
                 Some(n) => {
                     let name = self.section_name(i);
@@ -1324,24 +1531,11 @@ impl App {
 
     fn submit_field(&mut self, field: Field, t: &str) {
         let num = parse_f64(t);
+        if self.submit_more(field, t) {
+            return;
+        }
         let label = self
-            .form_rows(match field {
-                Field::WName(k)
-                | Field::WRole(k)
-                | Field::WTurns(k)
-                | Field::WWire(k)
-                | Field::WGrade(k)
-                | Field::WStrands(k)
-                | Field::WCurrent(k)
-                | Field::WPins(k) => FormKind::Winding(k),
-                Field::Title
-                | Field::Temperature
-                | Field::Allowance
-                | Field::Margin
-                | Field::TapeMm
-                | Field::Frequency => FormKind::Setup,
-                _ => FormKind::Bobbin,
-            })
+            .form_rows(field.form())
             .into_iter()
             .find(|(f, _, _)| *f == field)
             .map(|(_, l, _)| l)
@@ -1430,6 +1624,11 @@ impl App {
                         self.prompt("open build file", "", PromptPurpose::OpenPath)
                     }
                     Question::DiscardForNew => self.open_bobbin_picker(PickPurpose::NewBuild),
+                    Question::OverwriteBobbin => {
+                        if let Some((path, text)) = self.pending_bobbin.take() {
+                            return Some(Effect::SaveBobbin { path, text });
+                        }
+                    }
                 }
             }
             Action::SaveThenQuit if q == Question::Quit => {
@@ -1441,6 +1640,9 @@ impl App {
             }
             Action::No | Action::Cancel => {
                 self.overlays.pop();
+                if q == Question::OverwriteBobbin && self.pending_bobbin.take().is_some() {
+                    self.info("kept the bobbin file that was there; nothing written");
+                }
             }
             _ => {}
         }

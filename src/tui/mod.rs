@@ -4,9 +4,12 @@
 
 pub mod action;
 pub mod app;
+mod core_form;
 pub mod edit;
+mod forms;
 pub mod keymap;
 pub mod run;
+mod tasks;
 pub mod theme;
 pub mod view;
 

@@ -26,9 +26,14 @@ fn event_loop(terminal: &mut DefaultTerminal, app: &mut App) -> std::io::Result<
         if let Event::Key(key) = event::read()?
             && key.kind == KeyEventKind::Press
             && let Some(effect) = app.handle_key(&key)
-            && perform(app, effect)
         {
-            return Ok(());
+            // A search takes a moment: show its "searching..." before it starts.
+            if effect == Effect::Search {
+                terminal.draw(|f| view::draw(app, f))?;
+            }
+            if perform(app, effect) {
+                return Ok(());
+            }
         }
     }
 }
@@ -42,6 +47,18 @@ pub fn perform(app: &mut App, effect: Effect) -> bool {
             false
         }
         Effect::SaveThenQuit(p) => save(app, &p),
+        Effect::Search => {
+            app.run_search();
+            false
+        }
+        Effect::WriteSheet(p) => {
+            app.write_sheet(&p);
+            false
+        }
+        Effect::SaveBobbin { path, text } => {
+            app.save_bobbin_file(&path, &text);
+            false
+        }
         Effect::Open(p) => {
             match load_build(&p) {
                 Ok(b) => app.opened(b, p),

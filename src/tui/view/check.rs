@@ -1,5 +1,5 @@
-//! The check panel: the fit verdict, height used against allowed, fill, leakage, DC
-//! resistance and converter figures, now and against a reference (before the last edit, or
+//! The check panel: the fit verdict, height used against allowed, leakage, the reset duty
+//! limit and switch voltage, fill and DC resistance, now and against a reference (before the last edit, or
 //! figures the user pinned) with the change beside each.
 
 use super::super::app::App;
@@ -12,18 +12,19 @@ use ratatui::widgets::Paragraph;
 
 /// (label, value) pairs of the figures compared; same labels in both evaluations line up.
 fn figures(e: &Evaluation) -> Vec<(String, f64, usize)> {
-    // Leakage right under the height: at 80x24 only the first rows show.
+    // At 80x24 only the first four rows show: the height, the first leakage pair (primary to
+    // secondary), and the reset duty limit and switch voltage that the reset turns move.
     let mut v = vec![("height mm".to_string(), e.height_with_allowance_mm, 3)];
-    for l in &e.leakage {
-        v.push((format!("L {}-{} uH", l.from, l.to), l.uh, 3));
+    let leak = |l: &crate::engine::LeakageEval| (format!("L {}-{} uH", l.from, l.to), l.uh, 3);
+    v.extend(e.leakage.iter().take(1).map(leak));
+    if let Some(c) = &e.converter {
+        v.push(("reset %".into(), c.reset_duty_limit * 100.0, 1));
+        v.push(("switch V".into(), c.switch_voltage_v, 1));
     }
+    v.extend(e.leakage.iter().skip(1).map(leak));
     v.push(("fill".to_string(), e.fill_factor, 3));
     for w in &e.windings {
         v.push((format!("DCR {} ohm", w.name), w.dcr_ohm, 4));
-    }
-    if let Some(c) = &e.converter {
-        v.push(("reset lim %".into(), c.reset_duty_limit * 100.0, 1));
-        v.push(("switch V".into(), c.switch_voltage_v, 1));
     }
     v
 }

@@ -1,7 +1,7 @@
 //! Pop-ups over the main screen: pick lists, forms, the line editor and questions.
 
 use super::super::app::{App, Form, Picker, Prompt, Question};
-use super::{fit, pad};
+use super::{fit, pad, wrap};
 use ratatui::Frame;
 use ratatui::layout::Rect;
 use ratatui::text::{Line, Span};
@@ -111,9 +111,23 @@ pub fn form(app: &App, frame: &mut Frame, area: Rect, f: &Form) {
             "Winding {}",
             app.build.windings.get(k).map_or("", |w| w.name.as_str())
         ),
-        super::super::app::FormKind::Bobbin => "Measured bobbin".to_string(),
+        super::super::app::FormKind::Bobbin => "Measured bobbin and core".to_string(),
+        super::super::app::FormKind::Operating => "Operating point [operating]".to_string(),
+        super::super::app::FormKind::Material => "Core material [material]".to_string(),
+        super::super::app::FormKind::Isolation => "Isolation [isolation]".to_string(),
     };
-    let rect = centred(area, 64, rows.len() as u16 + 4);
+    let width = 72u16.min(area.width);
+    let notes: Vec<String> = app
+        .form_notes(f.kind)
+        .iter()
+        .flat_map(|n| wrap(n, width.saturating_sub(4) as usize))
+        .collect();
+    let extra = if notes.is_empty() {
+        0
+    } else {
+        notes.len() as u16 + 1
+    };
+    let rect = centred(area, width, rows.len() as u16 + 2 + extra);
     let inner = frame_box(
         app,
         frame,
@@ -121,6 +135,21 @@ pub fn form(app: &App, frame: &mut Frame, area: Rect, f: &Form) {
         &title,
         "↑↓ move · Enter change · Esc close",
     );
+    // The rows keep at least three lines; the notes take what is left below them.
+    let list_h = inner
+        .height
+        .saturating_sub(extra)
+        .min(rows.len() as u16)
+        .max(inner.height.min(3).min(rows.len() as u16));
+    let notes_area = Rect {
+        y: inner.y + list_h,
+        height: inner.height - list_h,
+        ..inner
+    };
+    let inner = Rect {
+        height: list_h,
+        ..inner
+    };
     let lw = 32.min(inner.width as usize / 2);
     let items: Vec<ListItem> = rows
         .iter()
@@ -140,6 +169,11 @@ pub fn form(app: &App, frame: &mut Frame, area: Rect, f: &Form) {
         inner,
         &mut state,
     );
+    if notes_area.height > 1 {
+        let mut lines = vec![Line::from("")];
+        lines.extend(notes.into_iter().map(|n| Line::from(n).style(t.dim())));
+        frame.render_widget(Paragraph::new(lines), notes_area);
+    }
 }
 
 pub fn prompt(app: &App, frame: &mut Frame, area: Rect, p: &Prompt) {
@@ -181,6 +215,11 @@ pub fn question(app: &App, frame: &mut Frame, area: Rect, q: Question) {
             "Unsaved edits",
             "Start a new build and drop the unsaved edits?",
             "y yes, start anew · n / Esc stay",
+        ),
+        Question::OverwriteBobbin => (
+            "Bobbin file exists",
+            "Your bobbin folder already has a file of that id. Replace it?",
+            "y yes, replace it · n / Esc keep it",
         ),
     };
     let rect = centred(area, 62, 6);

@@ -24,7 +24,11 @@ pub fn draw(app: &App, frame: &mut Frame, area: Rect) {
     let temp = app.build.setup.temperature_c;
     let block = panel(
         app,
-        format!("Windings, DCR at {temp} C"),
+        // The fill factor rides here: at 80x24 the check panel has no row left for it.
+        format!(
+            "Windings, DCR at {temp} C, fill {:.3}",
+            app.eval.fill_factor
+        ),
         app.focus == Focus::Windings,
     );
     let inner = block.inner(area);

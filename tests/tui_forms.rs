@@ -1,0 +1,412 @@
+//! App-state tests of the planner's forms for `[operating]`, `[material]`, `[isolation]`, the
+//! ranked bobbin list, the measured core, the winding sheet and the search: each changes the
+//! Build as intended, undo restores it, and invalid input is refused with a message.
+
+mod tui_support;
+use tui_support::*;
+use turnstack::engine::core_test;
+use turnstack::model::{BobbinSource, IsolationClass, ResetSide};
+use turnstack::tui::app::{Overlay, PickValue, StatusKind};
+use turnstack::tui::{Action, App, Effect, run::perform};
+
+fn status(app: &App) -> String {
+    app.status
+        .as_ref()
+        .map(|s| s.text.clone())
+        .unwrap_or_default()
+}
+
+fn refused(app: &App) -> bool {
+    app.status
+        .as_ref()
+        .is_some_and(|s| s.kind == StatusKind::Refused)
+}
+
+/// Replace the prompt's text: clear what is there, type the new value, accept.
+fn type_value(app: &mut App, text: &str) {
+    press(app, &"<bs>".repeat(40));
+    press(app, text);
+    press(app, "<enter>");
+}
+
+/// A folder of its own for a test that writes files.
+fn scratch(name: &str) -> std::path::PathBuf {
+    let d = std::env::temp_dir().join(format!("turnstack-tui-{}-{name}", std::process::id()));
+    let _ = std::fs::remove_dir_all(&d);
+    std::fs::create_dir_all(&d).unwrap();
+    d
+}
+
+/// Primary-side reset of a single-switch forward converter: the reset winding clamps at
+/// Vin x Np/Nr, so the duty limit is Np/(Np+Nr) and the switch sees Vin (1 + Np/Nr); equal
+/// turns give 50 % and twice the input (common practice). Fewer reset turns reset faster
+/// (more duty) at a higher switch voltage.
+#[test]
+fn reset_turns_in_the_operating_form_move_duty_limit_and_switch_voltage_common_practice() {
+    let mut app = demo_app();
+    let vin_max = app.build.operating.as_ref().unwrap().vin_max_v;
+    let c = app
+        .eval
+        .converter
+        .clone()
+        .expect("the demo has an operating point");
+    assert_eq!(app.build.windings[0].turns, app.build.windings[2].turns);
+    assert!((c.reset_duty_limit - 0.5).abs() < 1e-12);
+    assert!((c.switch_voltage_v - 2.0 * vin_max).abs() < 1e-9);
+    let before = screen(&app, 80, 24);
+    assert!(before.contains("reset %"), "{before}");
+    assert!(before.contains("50.0"), "{before}");
+    assert!(before.contains("56.0"), "{before}");
+
+    // Second row of the operating form: the reset winding's turns.
+    press(&mut app, "V<down><enter>");
+    type_value(&mut app, "12");
+    assert_eq!(app.build.windings[2].turns, 12);
+    let c = app.eval.converter.clone().unwrap();
+    assert!(c.reset_duty_limit > 0.5, "{}", c.reset_duty_limit);
+    assert!((c.reset_duty_limit - 24.0 / 36.0).abs() < 1e-12);
+    assert!(c.switch_voltage_v > 2.0 * vin_max);
+    assert!((c.switch_voltage_v - vin_max * 3.0).abs() < 1e-9);
+    // The form's note and, once it is closed, the check panel both show the new figures.
+    assert!(screen(&app, 80, 24).contains("reset duty limit 66.7 %"));
+    press(&mut app, "<esc>");
+    let after = screen(&app, 80, 24);
+    assert!(after.contains("66.7"), "{after}");
+    assert!(after.contains("84.0"), "{after}");
+
+    press(&mut app, "u");
+    assert_eq!(app.build.windings[2].turns, 24);
+    assert!((app.eval.converter.as_ref().unwrap().reset_duty_limit - 0.5).abs() < 1e-12);
+}
+
+#[test]
+fn operating_fields_edit_and_the_engine_refuses_a_bad_point() {
+    let mut app = demo_app();
+    // Highest input voltage: fourth row.
+    press(&mut app, "V<down><down><down><enter>");
+    type_value(&mut app, "30");
+    assert_eq!(app.build.operating.as_ref().unwrap().vin_max_v, 30.0);
+    // Lowest input above the highest: validation says no, the build is kept.
+    press(&mut app, "<up><enter>");
+    type_value(&mut app, "40");
+    assert!(refused(&app), "{}", status(&app));
+    assert!(status(&app).contains("vin_max_v"), "{}", status(&app));
+    assert_eq!(app.build.operating.as_ref().unwrap().vin_min_v, 20.0);
+    press(&mut app, "<enter>");
+    type_value(&mut app, "twenty");
+    assert!(status(&app).contains("not a number"));
+    // The duty limit may be cleared; a duty of 1.5 is refused.
+    press(&mut app, &"<down>".repeat(5));
+    press(&mut app, "<enter>");
+    type_value(&mut app, "1.5");
+    assert!(refused(&app));
+    press(&mut app, "<enter>");
+    type_value(&mut app, "");
+    assert_eq!(app.build.operating.as_ref().unwrap().duty_limit, None);
+    // The reset side cycles.
+    press(&mut app, &"<up>".repeat(20));
+    press(&mut app, "<enter>");
+    assert_eq!(
+        app.build.operating.as_ref().unwrap().reset_side,
+        ResetSide::Secondary
+    );
+    // Two undos take back the reset side and the cleared duty limit, not the voltage.
+    press(&mut app, "<esc>uu");
+    assert_eq!(app.build.operating.as_ref().unwrap().vin_max_v, 30.0);
+    assert_eq!(app.build.operating.as_ref().unwrap().duty_limit, Some(0.45));
+}
+
+#[test]
+fn the_operating_table_is_removed_and_added_back() {
+    let mut app = demo_app();
+    press(&mut app, "V");
+    press(&mut app, &"<down>".repeat(20));
+    press(&mut app, "<enter>");
+    assert!(app.build.operating.is_none());
+    assert!(app.eval.converter.is_none());
+    // Only the "add" row is left.
+    press(&mut app, "<enter>");
+    assert!(app.build.operating.is_some());
+    assert!(app.eval.converter.is_some());
+    press(&mut app, "<esc>uu");
+    assert_eq!(app.build, demo_app().build);
+
+    // Without a frequency the engine refuses an operating point.
+    let mut app = demo_app();
+    app.edit("no frequency, no point", |b| {
+        b.operating = None;
+        b.setup.frequency_khz = None;
+        Ok(())
+    })
+    .unwrap();
+    press(&mut app, "V<enter>");
+    assert!(refused(&app));
+    assert!(status(&app).contains("frequency"), "{}", status(&app));
+    assert!(app.build.operating.is_none());
+}
+
+#[test]
+fn material_grade_figures_and_removal() {
+    let mut app = demo_app();
+    assert_eq!(app.build.material.as_ref().unwrap().grade, None);
+    // Grade row opens the grade list; pick the cold grade by filtering.
+    press(&mut app, "M<enter>25c<enter>");
+    let g = turnstack::library::materials::find("mnzn-power-25c").unwrap();
+    let m = app.build.material.clone().unwrap();
+    assert_eq!(m.grade.as_deref(), Some("mnzn-power-25c"));
+    assert_eq!(m.bsat_mt, g.bsat_mt);
+    assert_eq!(m.steinmetz, Some(g.steinmetz));
+    // Remanence at or above saturation is refused by the engine.
+    press(&mut app, "<down><down><enter>");
+    type_value(&mut app, "600");
+    assert!(refused(&app), "{}", status(&app));
+    // Loss coefficients as three numbers; two numbers are refused.
+    press(&mut app, "<down><down><enter>");
+    type_value(&mut app, "50 1.5 2.7");
+    let st = app.build.material.as_ref().unwrap().steinmetz.unwrap();
+    assert_eq!((st.k, st.alpha, st.beta), (50.0, 1.5, 2.7));
+    press(&mut app, "<enter>");
+    type_value(&mut app, "50 1.5");
+    assert!(status(&app).contains("three numbers"));
+    // A gap, then remove the table.
+    press(&mut app, "<down><enter>");
+    type_value(&mut app, "0.1");
+    assert_eq!(app.build.material.as_ref().unwrap().gap_mm, Some(0.1));
+    press(&mut app, "<down><enter>");
+    assert!(app.build.material.is_none());
+    press(&mut app, "<esc>uuuu");
+    assert_eq!(app.build, demo_app().build);
+}
+
+#[test]
+fn isolation_is_declared_cycled_and_shows_the_caution_when_reinforced() {
+    let mut app = demo_app();
+    assert!(app.build.isolation.is_none());
+    press(&mut app, "I<enter>");
+    assert_eq!(
+        app.build.isolation.as_ref().unwrap().class,
+        IsolationClass::Functional
+    );
+    press(&mut app, "<enter><enter>");
+    assert_eq!(
+        app.build.isolation.as_ref().unwrap().class,
+        IsolationClass::Reinforced
+    );
+    let s = screen(&app, 80, 24);
+    assert!(s.contains("three"), "{s}");
+    assert!(s.contains("hipot"), "{s}");
+    assert!(s.contains("qualified person"), "{s}");
+    // The engine now warns: the demo has one wrap between primary and secondary.
+    assert!(
+        app.eval
+            .warnings
+            .iter()
+            .any(|w| w.code == "isolation-wraps"),
+        "{:?}",
+        app.eval.warnings
+    );
+    press(&mut app, "<down><down><enter>");
+    type_value(&mut app, "-2");
+    assert!(refused(&app));
+    press(&mut app, "<enter>");
+    type_value(&mut app, "6");
+    assert_eq!(app.build.isolation.as_ref().unwrap().creepage_mm, Some(6.0));
+    press(&mut app, "<down><enter>");
+    assert!(app.build.isolation.is_none());
+    press(&mut app, "<esc>uuuuu");
+    assert!(app.build.isolation.is_none());
+    assert_eq!(app.build, demo_app().build);
+}
+
+/// The bobbin list follows `report::fit::rank`: fitting first, most spare first.
+#[test]
+fn bobbin_list_is_ranked_by_fit_with_the_current_one_marked() {
+    let mut app = demo_app();
+    press(&mut app, "B");
+    let Some(Overlay::Picker(p)) = app.overlays.last().cloned() else {
+        panic!("no bobbin list");
+    };
+    let lib = turnstack::files::BobbinLibrary::standard();
+    let bobbins: Vec<_> = lib
+        .entries()
+        .into_iter()
+        .filter_map(|e| e.bobbin.ok().map(|b| (e.id, b)))
+        .collect();
+    let ranked = turnstack::report::fit::rank(&app.build, &bobbins);
+    let ids: Vec<String> = p
+        .items
+        .iter()
+        .filter_map(|it| match &it.value {
+            PickValue::Bobbin(id) => Some(id.clone()),
+            _ => None,
+        })
+        .collect();
+    let want: Vec<String> = ranked.iter().map(|r| r.bobbin.clone()).collect();
+    assert_eq!(ids, want);
+    assert!(ranked[0].fits && !ranked.last().unwrap().fits);
+    let current = p.items.iter().find(|it| it.label.starts_with('*')).unwrap();
+    assert_eq!(current.value, PickValue::Bobbin("e25-13-7".into()));
+    assert!(p.items[0].label.contains("yes"));
+    assert!(p.items.iter().any(|it| it.label.contains("too tall")));
+    // Choosing one is an edit; undo goes back.
+    press(&mut app, "etd34<enter>");
+    assert_eq!(app.build.bobbin_source, BobbinSource::Id("etd34".into()));
+    press(&mut app, "u");
+    assert_eq!(app.build.bobbin_source, BobbinSource::Id("e25-13-7".into()));
+}
+
+/// A 20-turn test winding of 600 uH on a 7.5 x 7.5 mm leg, le 57.5 mm, mu_i 2300: AL =
+/// L/N^2 = 1500 nH, and the gap from `engine::core_test` reads as a gapped or dirty face.
+#[test]
+fn measured_core_shows_al_mu_e_and_gap_then_applies_and_undoes() {
+    let mut app = demo_app();
+    let old = app.build.bobbin.clone();
+    press(&mut app, "Bmeasured<enter>");
+    // Applying without a leg is refused.
+    press(&mut app, &"<down>".repeat(12));
+    press(&mut app, "<enter>");
+    assert!(refused(&app), "{}", status(&app));
+    assert!(status(&app).contains("centre leg"));
+    press(&mut app, &"<up>".repeat(20));
+    press(&mut app, &"<down>".repeat(7));
+    press(&mut app, "<enter><down><enter>");
+    type_value(&mut app, "7.5");
+    press(&mut app, "<down><enter>");
+    type_value(&mut app, "7.5");
+    press(&mut app, "<down><down><enter>");
+    type_value(&mut app, "20");
+    press(&mut app, "<down><enter>");
+    type_value(&mut app, "600");
+    press(&mut app, "<enter>");
+    type_value(&mut app, "-1");
+    assert!(refused(&app));
+    assert_eq!(app.core_draft.test_uh, Some(600.0));
+    assert_eq!(app.core_draft.le_mm, Some(57.5));
+    assert_eq!(app.core_draft.mu_i, Some(2300.0));
+    let mu_e = core_test::mu_e(1500.0, 57.5, 56.25);
+    let gap = core_test::equivalent_gap_mm(mu_e, 2300.0, 57.5);
+    let s = screen(&app, 80, 24);
+    assert!(s.contains("AL = L/N^2 1500 nH"), "{s}");
+    assert!(s.contains(&format!("mu_e {mu_e:.0}")), "{s}");
+    assert!(s.contains(&format!("gap {gap:.3} mm")), "{s}");
+    assert!(s.contains("dirty"), "{s}");
+    // Apply: the bobbin gets the core, one edit.
+    press(&mut app, "<down><down><enter>");
+    let core = app.build.bobbin.core.clone().expect("a core");
+    assert_eq!(core.ae_mm2, 56.25);
+    assert_eq!(core.le_mm, 57.5);
+    assert_eq!(core.al_nh, Some(1500.0));
+    assert_eq!(app.eval.converter.as_ref().unwrap().al_nh, Some(1500.0));
+    press(&mut app, "<esc>u");
+    assert_eq!(app.build.bobbin, {
+        let mut b = old.clone();
+        b.name = app.build.bobbin.name.clone();
+        b.origin = "measured".into();
+        b
+    });
+}
+
+#[test]
+fn a_measured_bobbin_is_saved_and_an_existing_file_kept_unless_confirmed() {
+    let dir = scratch("bobbins");
+    let mut app = demo_app();
+    app.bobbin_dir = Some(dir.clone());
+    press(&mut app, "Bmeasured<enter>");
+    press(&mut app, &"<down>".repeat(20));
+    press(&mut app, "<enter>");
+    type_value(&mut app, "bad id!");
+    assert!(refused(&app));
+    let effects = {
+        press(&mut app, "<enter>");
+        press(&mut app, &"<bs>".repeat(40));
+        press(&mut app, "bench-e25<enter>")
+    };
+    let [Effect::SaveBobbin { path, .. }] = effects.as_slice() else {
+        panic!("{effects:?}");
+    };
+    assert_eq!(path, &dir.join("bench-e25.toml"));
+    perform(&mut app, effects[0].clone());
+    let text = std::fs::read_to_string(path).unwrap();
+    let back = turnstack::files::parse_bobbin(&text, None).unwrap();
+    assert_eq!(back.window, app.build.bobbin.window);
+    // Again: it asks; no keeps the file.
+    std::fs::write(path, "# mine\n").unwrap();
+    press(&mut app, "<enter>");
+    press(&mut app, &"<bs>".repeat(40));
+    assert!(press(&mut app, "bench-e25<enter>").is_empty());
+    assert!(matches!(app.overlays.last(), Some(Overlay::Question(_))));
+    assert!(press(&mut app, "n").is_empty());
+    assert_eq!(std::fs::read_to_string(path).unwrap(), "# mine\n");
+    // Yes replaces it.
+    press(&mut app, "<enter>");
+    press(&mut app, &"<bs>".repeat(40));
+    press(&mut app, "bench-e25<enter>");
+    let effects = press(&mut app, "y");
+    assert_eq!(effects.len(), 1);
+    perform(&mut app, effects[0].clone());
+    assert_eq!(std::fs::read_to_string(path).unwrap(), text);
+    let _ = std::fs::remove_dir_all(&dir);
+}
+
+#[test]
+fn the_winding_sheet_is_written_as_text_or_html_and_the_status_says_where() {
+    let dir = scratch("sheet");
+    let mut app = demo_app();
+    for (name, marker) in [("w.txt", "Checks"), ("w.html", "<svg")] {
+        let path = dir.join(name);
+        press(&mut app, "E");
+        press(&mut app, &"<bs>".repeat(40));
+        let effects = press(&mut app, &format!("{}<enter>", path.display()));
+        assert_eq!(effects, vec![Effect::WriteSheet(path.clone())]);
+        perform(&mut app, effects[0].clone());
+        let text = std::fs::read_to_string(&path).unwrap();
+        let id = turnstack::report::sheet::sheet(&app.build, &app.eval, 20.0).build_id;
+        assert!(text.contains(&id), "{name}");
+        assert!(text.contains(marker), "{name}: {marker}");
+        assert!(status(&app).contains(&path.display().to_string()));
+    }
+    // No name: refused.
+    press(&mut app, "E");
+    press(&mut app, &"<bs>".repeat(40));
+    assert!(press(&mut app, "<enter>").is_empty());
+    assert!(refused(&app));
+    let _ = std::fs::remove_dir_all(&dir);
+}
+
+#[test]
+fn search_lists_candidates_and_taking_one_is_one_undoable_edit() {
+    let mut app = demo_app();
+    let original = app.build.clone();
+    let effect = app.update(Action::Search);
+    assert_eq!(effect, Some(Effect::Search));
+    assert!(status(&app).starts_with("searching"));
+    perform(&mut app, Effect::Search);
+    let Some(Overlay::Picker(p)) = app.overlays.last().cloned() else {
+        panic!("no candidate list: {}", status(&app));
+    };
+    assert!(!app.found.is_empty());
+    assert_eq!(p.items.len(), app.found.len());
+    assert!(p.title.contains("evaluated") && p.title.contains("skipped"));
+    assert!(p.header.contains("copper W") && p.header.contains("leak uH"));
+    press(&mut app, "<down><enter>");
+    assert_eq!(app.build, app.found[1].build);
+    assert_ne!(app.build, original);
+    assert_eq!(app.undo.len(), 1);
+    press(&mut app, "u");
+    assert_eq!(app.build, original);
+}
+
+#[test]
+fn search_on_a_build_without_a_secondary_is_refused() {
+    let mut app = demo_app();
+    app.edit("all primary", |b| {
+        b.operating = None;
+        b.windings[1].role = turnstack::model::Role::Primary;
+        Ok(())
+    })
+    .unwrap();
+    perform(&mut app, Effect::Search);
+    assert!(refused(&app), "{}", status(&app));
+    assert!(status(&app).contains("secondary"));
+    assert!(app.overlays.is_empty());
+}
