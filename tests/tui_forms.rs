@@ -387,7 +387,7 @@ fn search_lists_candidates_and_taking_one_is_one_undoable_edit() {
     assert!(!app.found.is_empty());
     assert_eq!(p.items.len(), app.found.len());
     assert!(p.title.contains("evaluated") && p.title.contains("skipped"));
-    assert!(p.header.contains("copper W") && p.header.contains("leak uH"));
+    assert!(p.header.contains("loss W") && p.header.contains("leak uH"));
     press(&mut app, "<down><enter>");
     assert_eq!(app.build, app.found[1].build);
     assert_ne!(app.build, original);

@@ -487,5 +487,6 @@ pub fn validate(build: &Build) -> Vec<Invalid> {
             );
         }
     }
+    out.extend(super::isolation::validate(build));
     out
 }

@@ -3,7 +3,7 @@
 
 use super::raw::{self, BobbinBody, BobbinField, BuildFile, WireField};
 use super::{BobbinLibrary, LoadError};
-use crate::engine::{Invalid, Place, isolation, validate, validate_bobbin};
+use crate::engine::{Invalid, Place, validate, validate_bobbin};
 use crate::library::materials;
 use crate::model::{
     Bobbin, BobbinSource, Build, Core, Insulation, Isolation, IsolationClass, Material, Operating,
@@ -515,8 +515,7 @@ pub(super) fn build(
         material,
         isolation,
     };
-    let mut problems = validate(&build);
-    problems.extend(isolation::validate(&build));
+    let problems = validate(&build);
     if !problems.is_empty() {
         return Err(cx.invalid(&spans, &problems));
     }

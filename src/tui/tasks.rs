@@ -49,7 +49,7 @@ impl App {
                 label: format!(
                     "{:>2} {:>8.3} {:>8.3} {:>8.2}  {}",
                     i + 1,
-                    c.copper_loss_w,
+                    c.objectives.loss_w,
                     c.objectives.leakage_uh,
                     c.eval.spare_height_mm,
                     c.description
@@ -62,7 +62,7 @@ impl App {
             title: format!("search: {counts}"),
             header: format!(
                 "{:>2} {:>8} {:>8} {:>8}  what it does",
-                "#", "copper W", "leak uH", "spare mm"
+                "#", "loss W", "leak uH", "spare mm"
             ),
             purpose: PickPurpose::Search,
             items,
