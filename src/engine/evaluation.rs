@@ -507,7 +507,7 @@ fn ac_figures(
         }
         let ac_factor = layers
             .iter()
-            .map(|&(d, f_a, f_b, length)| ac::layer_factor(d, f_a, f_b) * length)
+            .map(|&(d, f_a, f_b, length)| ac::layer_factor_fast(d, f_a, f_b) * length)
             .sum::<f64>()
             / total;
         let ac_factor_waveform = currents[k].waveform.as_ref().map(|wave| {

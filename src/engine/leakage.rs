@@ -24,14 +24,20 @@ pub struct Slab {
 /// MMF profile across the build for an excitation given as ampere-turns per turn of each
 /// winding (per unit drive current), indexed like `build.windings`.
 pub fn mmf_profile(laid: &[Laid], weights: &[f64]) -> Vec<Slab> {
-    let weight = |i: Option<usize>| i.and_then(|i| weights.get(i)).copied().unwrap_or(0.0);
     let mut slabs = Vec::new();
+    for_each_slab(laid, weights, |s| slabs.push(s));
+    slabs
+}
+
+/// The slabs of [`mmf_profile`], handed one by one to `visit` (no list is built).
+pub fn for_each_slab(laid: &[Laid], weights: &[f64], mut visit: impl FnMut(Slab)) {
+    let weight = |i: Option<usize>| i.and_then(|i| weights.get(i)).copied().unwrap_or(0.0);
     let mut f = 0.0;
     for (si, section) in laid.iter().enumerate() {
         match &section.kind {
             LaidKind::Tape { .. } => {
                 if section.height_mm > 0.0 {
-                    slabs.push(Slab {
+                    visit(Slab {
                         y0_mm: section.y_mm,
                         y1_mm: section.y_mm + section.height_mm,
                         f_a: f,
@@ -50,7 +56,7 @@ pub fn mmf_profile(laid: &[Laid], weights: &[f64]) -> Vec<Slab> {
                 let mut top = section.y_mm;
                 for (li, layer) in layers.iter().enumerate() {
                     if layer.y_mm > top {
-                        slabs.push(Slab {
+                        visit(Slab {
                             y0_mm: top,
                             y1_mm: layer.y_mm,
                             f_a: f,
@@ -59,7 +65,7 @@ pub fn mmf_profile(laid: &[Laid], weights: &[f64]) -> Vec<Slab> {
                         });
                     }
                     let f_b = f + per_turn * f64::from(layer.turns);
-                    slabs.push(Slab {
+                    visit(Slab {
                         y0_mm: layer.y_mm,
                         y1_mm: layer.y_mm + layer.height_mm,
                         f_a: f,
@@ -72,22 +78,21 @@ pub fn mmf_profile(laid: &[Laid], weights: &[f64]) -> Vec<Slab> {
             }
         }
     }
-    slabs
+}
+
+/// One slab's share of [`energy_integral_m2`].
+fn slab_energy_m2(s: &Slab, tube: &Tube) -> f64 {
+    let h = (s.y1_mm - s.y0_mm) * MM;
+    let ym = 0.5 * (s.y0_mm + s.y1_mm);
+    let fm = 0.5 * (s.f_a + s.f_b);
+    let g = |f: f64, y: f64| f * f * mlt_at_mm(tube, y) * MM;
+    h / 6.0 * (g(s.f_a, s.y0_mm) + 4.0 * g(fm, ym) + g(s.f_b, s.y1_mm))
 }
 
 /// `integral F(y)^2 MLT(y) dy` over the profile, in turns^2 m^2 (per unit current squared).
 /// F is linear and MLT is linear in y on every slab, so Simpson's rule is exact.
 pub fn energy_integral_m2(slabs: &[Slab], tube: &Tube) -> f64 {
-    slabs
-        .iter()
-        .map(|s| {
-            let h = (s.y1_mm - s.y0_mm) * MM;
-            let ym = 0.5 * (s.y0_mm + s.y1_mm);
-            let fm = 0.5 * (s.f_a + s.f_b);
-            let g = |f: f64, y: f64| f * f * mlt_at_mm(tube, y) * MM;
-            h / 6.0 * (g(s.f_a, s.y0_mm) + 4.0 * g(fm, ym) + g(s.f_b, s.y1_mm))
-        })
-        .sum()
+    slabs.iter().map(|s| slab_energy_m2(s, tube)).sum()
 }
 
 /// Leakage inductance (H) between windings `x` and `y`, referred to `x`.
@@ -107,6 +112,7 @@ pub fn leakage_h(
     }
     weights[xi] = 1.0;
     weights[yi] = -f64::from(nx) / f64::from(ny);
-    let slabs = mmf_profile(laid, &weights);
-    MU0_H_PER_M / (window_width_mm * MM) * energy_integral_m2(&slabs, tube)
+    let mut energy = 0.0;
+    for_each_slab(laid, &weights, |s| energy += slab_energy_m2(&s, tube));
+    MU0_H_PER_M / (window_width_mm * MM) * energy
 }
