@@ -40,7 +40,7 @@ pub fn draw(app: &App, frame: &mut Frame, area: Rect) {
     let dense = inner.width >= 68;
     let head = if wide {
         format!(
-            " {:<4} {:<4}{:>6} {:<11}{:<4}{:>8}{:>7}{:>8}{:>8}{}",
+            " {:<4} {:<4}{:>6} {:<11} {:<3}{:>8}{:>7}{:>8}{:>8}{}",
             "name",
             "role",
             "turns",
@@ -54,7 +54,7 @@ pub fn draw(app: &App, frame: &mut Frame, area: Rect) {
         )
     } else {
         format!(
-            " {:<4} {:<3}{:>5} {:<9}{:<4}{:>6}{:>8}",
+            " {:<4} {:<3}{:>5} {:<9} {:<3}{:>6}{:>8}",
             "name", "rol", "N", "wire", "ins", "len m", "DCR ohm"
         )
     };
@@ -111,11 +111,15 @@ pub fn draw(app: &App, frame: &mut Frame, area: Rect) {
                     String::new()
                 };
                 format!(
-                    " {role:<4}{n:>6} {}{ins:<4}{len:>8}{mlt:>7}{dcr:>8}{rac:>8}{j}",
+                    " {role:<4}{n:>6} {} {ins:<3}{len:>8}{mlt:>7}{dcr:>8}{rac:>8}{j}",
                     pad(&wire, 11)
                 )
             } else {
-                format!(" {role:<3}{n:>5} {}{ins:<4}{len:>6}{dcr:>8}", pad(&wire, 9))
+                // The wire column ends in a space even when the label fills it.
+                format!(
+                    " {role:<3}{n:>5} {} {ins:<3}{len:>6}{dcr:>8}",
+                    pad(&wire, 9)
+                )
             };
             ListItem::new(Line::from(vec![
                 mark,
