@@ -437,7 +437,7 @@ fn ac_figures(
             warnings.push(Warning {
                 code: "ac-bifilar-ps",
                 message: format!(
-                    "\"{}\" and \"{}\" are wound bifilar together: the layer model cannot give them AC figures",
+                    "\"{}\" and \"{}\" are wound bifilar together: the layer model cannot give them AC figures, so their copper loss is taken at DC resistance and understated",
                     build.windings[p].name, build.windings[s].name
                 ),
                 at: WarningAt::Winding(p),

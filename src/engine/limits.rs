@@ -53,10 +53,12 @@ impl Limit {
         unit: &'static str,
         about: Option<String>,
     ) -> Self {
+        // A limit that allows nothing is broken outright: -1, a finite number the JSON can
+        // carry (infinity would print as null).
         let margin = if allowed > 0.0 {
             1.0 - used / allowed
         } else {
-            f64::NEG_INFINITY
+            -1.0
         };
         Limit {
             constraint,

@@ -491,8 +491,12 @@ fn losses_block(o: &mut String, l: &LossEval) {
             }
         }
         _ => {
+            let no_time = l.core_duty.is_some_and(|d| d <= 0.0)
+                || l.core_reset_fraction.is_some_and(|r| r <= 0.0);
             let why = if l.core_volume_mm3.is_none() {
                 "no [core] data"
+            } else if no_time {
+                "no duty available, so no flux waveform to take the loss of"
             } else {
                 "no steinmetz coefficients in [material]"
             };

@@ -174,7 +174,11 @@ pub fn search(
                 progress(n, total);
             }
             let combo = plan.combo(index);
-            if settings.prune && !plan.may_fit(&combo, &mut reasons) {
+            let in_band = plan.in_band_all(&combo);
+            if in_band {
+                reasons.in_band += 1;
+            }
+            if settings.prune && (!in_band || !plan.may_fit(&combo, &mut reasons)) {
                 pruned += 1;
                 continue;
             }
@@ -253,9 +257,14 @@ pub fn search(
             .then(y.spare_height_mm.total_cmp(&x.spare_height_mm))
             .then(a.description.cmp(&b.description))
     });
-    let binding = candidates
-        .is_empty()
-        .then(|| reasons.binding(plan.len(), pruned, settings, build.bobbin.window.height_mm));
+    let binding = candidates.is_empty().then(|| {
+        reasons.binding(
+            plan.len(),
+            settings,
+            build.bobbin.window.height_mm,
+            &plan.out_of_band_windings(),
+        )
+    });
     Ok(Outcome {
         space: total,
         evaluated,

@@ -290,15 +290,28 @@ impl<'a> Space<'a> {
         }
     }
 
-    /// False when the combination cannot fit or breaks the current band, found without
-    /// evaluating it: every winding needs at least ceil(turns / turns per layer) layers of its
-    /// own wire, and the tape of the arrangement is known exactly.
+    /// A lower bound on a combination's height: every winding needs at least
+    /// ceil(turns / turns per layer) layers of its own wire, and the tape of the arrangement
+    /// is known exactly.
+    /// Every winding sized from the series runs inside the current-density band.
+    pub fn in_band_all(&self, combo: &Combo) -> bool {
+        combo
+            .choice
+            .iter()
+            .enumerate()
+            .all(|(k, &c)| self.in_band(k, &self.choices[k][c]))
+    }
+
+    /// The windings none of whose wire choices falls inside the band.
+    pub fn out_of_band_windings(&self) -> Vec<String> {
+        (0..self.choices.len())
+            .filter(|&k| !self.choices[k].iter().any(|c| self.in_band(k, c)))
+            .map(|k| self.base.windings[k].name.clone())
+            .collect()
+    }
+
+    /// False when the combination cannot fit, found without evaluating it (see above).
     pub fn may_fit(&self, combo: &Combo, reasons: &mut Reasons) -> bool {
-        for (k, &c) in combo.choice.iter().enumerate() {
-            if !self.in_band(k, &self.choices[k][c]) {
-                return false;
-            }
-        }
         let w_u = usable_width_mm(self.base);
         let (_, pieces) = &self.arrangements[combo.arrangement];
         let bifilar_partner: Vec<usize> = pieces.iter().filter_map(|p| p.2).collect();
@@ -504,6 +517,10 @@ pub struct Reasons {
     pub least_height_mm: Option<(f64, f64)>,
     /// The least lower bound on the height with allowance among in-band combinations.
     pub least_bound_mm: Option<f64>,
+    /// Combinations whose wires all run inside the band.
+    pub in_band: usize,
+    /// Of those, evaluated ones that fit the window.
+    pub in_band_fit: usize,
 }
 
 impl Reasons {
@@ -511,14 +528,6 @@ impl Reasons {
     pub fn accept(&mut self, eval: &Evaluation, settings: &Settings, sized: &[bool]) -> bool {
         if eval.warnings.iter().any(|w| w.code == "invalid") {
             self.invalid += 1;
-            return false;
-        }
-        let h = eval.height_with_allowance_mm;
-        if self.least_height_mm.is_none_or(|(l, _)| h < l) {
-            self.least_height_mm = Some((h, eval.window_height_mm));
-        }
-        if !eval.fits {
-            self.too_tall += 1;
             return false;
         }
         let band = settings.j_min_a_mm2 - 1e-12..=settings.j_max_a_mm2 + 1e-12;
@@ -529,6 +538,15 @@ impl Reasons {
             self.out_of_band += 1;
             return false;
         }
+        let h = eval.height_with_allowance_mm;
+        if self.least_height_mm.is_none_or(|(l, _)| h < l) {
+            self.least_height_mm = Some((h, eval.window_height_mm));
+        }
+        if !eval.fits {
+            self.too_tall += 1;
+            return false;
+        }
+        self.in_band_fit += 1;
         if let Some(max) = settings.max_leakage_uh
             && eval.leakage.iter().any(|l| l.uh > max)
         {
@@ -561,15 +579,18 @@ impl Reasons {
         {
             self.least_bound_mm = Some(b);
         }
+        self.in_band += o.in_band;
+        self.in_band_fit += o.in_band_fit;
     }
 
-    /// The constraint that binds when nothing survived.
+    /// The constraint that binds when nothing survived. The same answer with or without
+    /// pruning: first the band, then the window, then leakage and temperature.
     pub fn binding(
         &self,
         space: usize,
-        pruned: usize,
         settings: &Settings,
         window_mm: f64,
+        out_of_band: &[String],
     ) -> String {
         let band = format!(
             "{:.1}-{:.1} A/mm2",
@@ -578,31 +599,35 @@ impl Reasons {
         if space == 0 {
             return "the space is empty: no wire in the series suits the windings".into();
         }
-        if self.too_tall + self.out_of_band + self.leakage + self.temperature + self.invalid == 0 {
-            let least = self
-                .least_bound_mm
-                .map(|b| format!(": the thinnest needs at least {b:.2} mm with the allowance against a {window_mm:.2} mm window"))
-                .unwrap_or_default();
+        if self.in_band == 0 {
+            let who = if out_of_band.is_empty() {
+                "no one choice puts every winding inside it together".to_string()
+            } else {
+                format!("no wire tried puts {} inside it", out_of_band.join(", "))
+            };
             return format!(
-                "the window height binds: none of the {space} combinations with wire inside the {band} \
-                 current-density band can fit ({pruned} ruled out before evaluation){least}"
+                "the current-density band ({band}) binds: {who}; widen it with --j-min / --j-max"
             );
         }
-        if self.too_tall >= self.out_of_band.max(self.leakage).max(self.temperature) {
-            let least = self
-                .least_height_mm
-                .map(|(h, w)| format!("; the shortest needs {h:.2} mm with the allowance against a {w:.2} mm window"))
-                .unwrap_or_default();
-            format!("the window height binds: no combination within the {band} band fits{least}")
-        } else if self.temperature >= self.out_of_band.max(self.leakage) {
-            "the temperature rise binds: the builds that fit run hotter than the limit".to_string()
-        } else if self.out_of_band >= self.leakage {
-            format!(
-                "the current-density band ({band}) binds: the builds that fit run their wire outside it"
-            )
+        if self.in_band_fit == 0 {
+            let least = match (self.least_height_mm, self.least_bound_mm) {
+                (Some((h, w)), _) => format!(
+                    "; the shortest needs {h:.2} mm with the allowance against a {w:.2} mm window"
+                ),
+                (None, Some(b)) => format!(
+                    "; the thinnest needs at least {b:.2} mm with the allowance against a {window_mm:.2} mm window"
+                ),
+                _ => String::new(),
+            };
+            return format!(
+                "the window height binds: none of the {} combinations with wire inside the {band} band fits{least}",
+                self.in_band
+            );
+        }
+        if self.temperature >= self.leakage {
+            "the temperature rise binds: the builds that fit within the band run hotter than the limit".to_string()
         } else {
-            "the leakage limit binds: the builds that fit leave more leakage than allowed"
-                .to_string()
+            "the leakage limit binds: the builds that fit within the band leave more leakage than allowed".to_string()
         }
     }
 }
