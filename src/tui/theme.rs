@@ -50,7 +50,7 @@ impl Theme {
         Style::new().add_modifier(Modifier::BOLD)
     }
 
-    /// The selected row: reverse video reads without colour.
+    /// The selected row: inverted cells read without colour.
     pub fn selected(self) -> Style {
         Style::new().add_modifier(Modifier::REVERSED)
     }
