@@ -281,21 +281,7 @@ pub fn set_partner(b: &mut Build, i: usize, partner: Option<&str>) -> Result<usi
             }
             None => {
                 // Its own section, outermost, on a wrap of tape.
-                let at = b
-                    .stack
-                    .iter()
-                    .rposition(|s| matches!(s, Section::Winding(_)))
-                    .map_or(0, |j| j + 1);
-                b.stack.insert(at, Section::Tape { wraps: 1 });
-                b.stack.insert(
-                    at + 1,
-                    Section::Winding(WindingSection {
-                        winding: old.clone(),
-                        turns: Some(t),
-                        with: None,
-                        layer_tape: 0,
-                    }),
-                );
+                wind_outermost(b, old.clone(), Some(t));
             }
         }
     }
@@ -467,6 +453,12 @@ pub fn add_winding(b: &mut Build) -> Result<usize, Refusal> {
         start_pin: None,
         finish_pin: None,
     });
+    wind_outermost(b, name, None);
+    Ok(b.windings.len() - 1)
+}
+
+/// A section of `winding` after the outermost winding section, on one wrap of tape.
+fn wind_outermost(b: &mut Build, winding: String, turns: Option<u32>) {
     let at = b
         .stack
         .iter()
@@ -476,13 +468,12 @@ pub fn add_winding(b: &mut Build) -> Result<usize, Refusal> {
     b.stack.insert(
         at + 1,
         Section::Winding(WindingSection {
-            winding: name,
-            turns: None,
+            winding,
+            turns,
             with: None,
             layer_tape: 0,
         }),
     );
-    Ok(b.windings.len() - 1)
 }
 
 /// Delete a winding: its own sections go, its bifilar sections stay with the partner alone.
