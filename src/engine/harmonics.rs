@@ -46,18 +46,12 @@ impl Waveform {
         Waveform { pieces }
     }
 
-    pub fn scaled(&self, by: f64) -> Self {
-        Waveform {
-            pieces: self
-                .pieces
-                .iter()
-                .map(|p| Piece {
-                    y0: p.y0 * by,
-                    y1: p.y1 * by,
-                    ..*p
-                })
-                .collect(),
+    pub fn scaled(mut self, by: f64) -> Self {
+        for p in &mut self.pieces {
+            p.y0 *= by;
+            p.y1 *= by;
         }
+        self
     }
 
     /// Mean over the period.
