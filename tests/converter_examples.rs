@@ -88,7 +88,11 @@ fn salvaged_example_says_what_is_missing() {
     let (b, e) = example("salvaged-too-small.toml");
     assert!(e.converter.as_ref().unwrap().flux_swing_worst_mt.is_none());
     assert!(e.losses.as_ref().unwrap().temperature_rise_c.is_none());
-    assert!(e.notes.iter().any(|n| n.contains("no [core] data")));
+    assert!(
+        e.notes
+            .iter()
+            .any(|n| n.to_string().contains("no [core] data"))
+    );
     assert!(
         e.limits
             .iter()

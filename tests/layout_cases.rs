@@ -155,7 +155,7 @@ fn bifilar_with_equal_wire_gives_equal_lengths_and_resistance() {
     // The 1-D field gives the pair no leakage between them; the report says so.
     assert!(e.leakage[0].uh.abs() < 1e-12, "{}", e.leakage[0].uh);
     assert!(
-        e.notes.iter().any(|n| n.contains("P with R")),
+        e.notes.iter().any(|n| n.to_string().contains("P with R")),
         "{:?}",
         e.notes
     );
@@ -326,7 +326,7 @@ fn fit_boundary_has_the_1e_9_mm_tolerance() {
     let e = case(1.0 - 2e-9);
     assert!(!e.fits, "2e-9 short: does not fit");
     assert!(e.spare_height_mm < 0.0);
-    assert!(e.warnings.iter().any(|w| w.code == "does-not-fit"));
+    assert!(e.warnings.iter().any(|w| w.code() == "does-not-fit"));
     // And with the default 1.10 allowance, 1.0 mm of build needs 1.1 mm of window.
     let text = build_text(
         &round_bobbin(10.5, 1.0999, 10.0),

@@ -426,7 +426,7 @@ fn secondary_side_reset_by_volt_second_balance_derived() {
     );
     assert_rel(c.steady_duty_ceiling.unwrap(), 0.5, 1e-12, "steady ceiling");
     // Start-up cannot reset: always warned about for this reset side (FORMAT.md).
-    assert!(e.warnings.iter().any(|w| w.code == "reset-startup"));
+    assert!(e.warnings.iter().any(|w| w.code() == "reset-startup"));
 }
 
 // ---------------------------------------------------------------------------------------------

@@ -69,9 +69,9 @@ fn text_steps_agree_with_the_evaluation_for_every_example() {
                     for n in [Some(winding), with.as_ref()].into_iter().flatten() {
                         let w = b.winding(n).unwrap();
                         let first = b.stack.iter().position(|x| matches!(x,
-                            turnstack::model::Section::Winding(ws) if &ws.winding == n || ws.with.as_ref() == Some(n))).unwrap();
+                            turnstack::model::Section::Winding(ws) if *ws.winding == **n || ws.with.as_deref() == Some(&**n))).unwrap();
                         let last = b.stack.iter().rposition(|x| matches!(x,
-                            turnstack::model::Section::Winding(ws) if &ws.winding == n || ws.with.as_ref() == Some(n))).unwrap();
+                            turnstack::model::Section::Winding(ws) if *ws.winding == **n || ws.with.as_deref() == Some(&**n))).unwrap();
                         if first == i {
                             let p = w.start_pin.as_ref().unwrap();
                             assert!(

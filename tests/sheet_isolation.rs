@@ -16,7 +16,7 @@ fn codes(b: &Build) -> Vec<&'static str> {
     evaluate(b)
         .warnings
         .iter()
-        .map(|w| w.code)
+        .map(|w| w.code())
         .filter(|c| c.starts_with("isolation"))
         .collect()
 }

@@ -201,7 +201,7 @@ fn isolation_is_declared_cycled_and_shows_the_caution_when_reinforced() {
         app.eval
             .warnings
             .iter()
-            .any(|w| w.code == "isolation-wraps"),
+            .any(|w| w.code() == "isolation-wraps"),
         "{:?}",
         app.eval.warnings
     );

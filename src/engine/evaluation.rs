@@ -9,8 +9,10 @@ use super::leakage;
 use super::limits::{self, CURRENT_DENSITY_BAND_A_MM2, Constraint, Limit};
 use super::losses::{self, LossEval};
 use super::memo::Memo;
+pub use super::name::Name;
+use super::remarks::{Note, Warning, WarningAt, WarningKind};
 use super::resistance::{area_mm2, ohm_per_m, rho_ohm_m};
-use super::validate::validate;
+use super::validate::validate_resolved;
 use super::warnings;
 use crate::model::{Build, Role};
 
@@ -37,7 +39,7 @@ pub struct Evaluation {
     pub limits: Vec<Limit>,
     pub warnings: Vec<Warning>,
     /// Remarks that are not warnings (e.g. what the 1-D leakage model cannot see).
-    pub notes: Vec<String>,
+    pub notes: Vec<Note>,
 }
 
 #[derive(Debug, Clone, PartialEq)]
@@ -57,8 +59,8 @@ pub enum SectionKind {
         wraps: u32,
     },
     Winding {
-        winding: String,
-        with: Option<String>,
+        winding: Name,
+        with: Option<Name>,
         turns: u32,
         pitch_mm: f64,
         turns_per_layer: u32,
@@ -95,7 +97,7 @@ pub struct AcFigures {
 
 #[derive(Debug, Clone, PartialEq)]
 pub struct WindingEval {
-    pub name: String,
+    pub name: Name,
     pub role: Role,
     pub turns: u32,
     pub strands: u32,
@@ -121,40 +123,25 @@ pub struct WindingEval {
 
 #[derive(Debug, Clone, PartialEq)]
 pub struct LeakageEval {
-    pub from: String,
-    pub to: String,
-    pub referred_to: String,
+    pub from: Name,
+    pub to: Name,
+    pub referred_to: Name,
     pub uh: f64,
 }
 
-/// What a warning is about, so that every front end can show it next to that thing.
-#[derive(Debug, Clone, PartialEq, Eq)]
-pub enum WarningAt {
-    Build,
-    Section(usize),
-    Winding(usize),
-    Converter,
-}
-
-#[derive(Debug, Clone, PartialEq)]
-pub struct Warning {
-    pub code: &'static str,
-    pub message: String,
-    pub at: WarningAt,
-}
-
 pub(super) fn evaluate(build: &Build, memo: &mut Memo) -> Evaluation {
-    let wires = layout::resolved_wires(build);
-    let laid = layout::lay_out(build, &wires);
+    let resolved = layout::Resolved::new(build);
+    let wires = &resolved.wires;
+    let laid = layout::lay_out(build, &resolved);
     let window = &build.bobbin.window;
 
     let build_height_mm: f64 = laid.iter().map(|l| l.height_mm).sum();
     let height_with_allowance_mm = build_height_mm * build.setup.bulge;
     let fits = height_with_allowance_mm <= window.height_mm + FIT_TOLERANCE_MM;
-
-    let sections = laid
+    let names: Vec<Name> = build
+        .windings
         .iter()
-        .map(|l| section_eval(build, l, window.height_mm))
+        .map(|w| Name::from(&*w.name))
         .collect();
 
     // Lengths: every layer a winding appears in, as `winding` or as bifilar `with`.
@@ -183,7 +170,7 @@ pub(super) fn evaluate(build: &Build, memo: &mut Memo) -> Evaluation {
             let copper_area_mm2 = f64::from(w.strands) * area_mm2(wires[i].bare_mm);
             let length_m = length_mm[i] * MM;
             WindingEval {
-                name: w.name.clone(),
+                name: names[i].clone(),
                 role: w.role,
                 turns: w.turns,
                 strands: w.strands,
@@ -221,8 +208,8 @@ pub(super) fn evaluate(build: &Build, memo: &mut Memo) -> Evaluation {
         0.0
     };
 
-    let leakage = leakage_pairs(build, &laid);
-    let problems = validate(build);
+    let leakage = leakage_pairs(build, &names, &laid);
+    let problems = validate_resolved(build, &resolved);
     let mut converter = if problems.is_empty() {
         converter::evaluate(build)
     } else {
@@ -249,7 +236,7 @@ pub(super) fn evaluate(build: &Build, memo: &mut Memo) -> Evaluation {
         ac_figures(
             build,
             &laid,
-            &wires,
+            wires,
             &currents,
             &mut windings,
             &mut ac_warnings,
@@ -262,13 +249,14 @@ pub(super) fn evaluate(build: &Build, memo: &mut Memo) -> Evaluation {
                 .map_or(w.dcr_ohm, |a| a.rac_waveform_ohm.unwrap_or(a.rac_ohm));
         w.copper_loss_w = w.current_rms_a.map(|i| i * i * r);
     }
-    let losses = converter.as_ref().map(|c| {
-        let copper: Vec<(String, Option<f64>)> = windings
-            .iter()
-            .map(|w| (w.name.clone(), w.copper_loss_w))
-            .collect();
-        losses::evaluate(build, c, &copper)
-    });
+    let losses = converter
+        .as_ref()
+        .map(|c| losses::evaluate(build, c, &windings));
+    // Last, since the layers move into the sections.
+    let sections = laid
+        .into_iter()
+        .map(|l| section_eval(&names, l, window.height_mm))
+        .collect();
 
     let mut eval = Evaluation {
         usable_width_mm: layout::usable_width_mm(build),
@@ -294,11 +282,11 @@ pub(super) fn evaluate(build: &Build, memo: &mut Memo) -> Evaluation {
     eval
 }
 
-fn section_eval(build: &Build, l: &Laid, window_height_mm: f64) -> SectionEval {
+fn section_eval(names: &[Name], l: Laid, window_height_mm: f64) -> SectionEval {
     let past_window = l.y_mm + l.height_mm > window_height_mm + FIT_TOLERANCE_MM;
-    match &l.kind {
+    match l.kind {
         LaidKind::Tape { wraps } => SectionEval {
-            kind: SectionKind::Tape { wraps: *wraps },
+            kind: SectionKind::Tape { wraps },
             y_mm: l.y_mm,
             height_mm: l.height_mm,
             layers: Vec::new(),
@@ -314,38 +302,39 @@ fn section_eval(build: &Build, l: &Laid, window_height_mm: f64) -> SectionEval {
             layer_tape,
             layers,
         } => {
-            let name = |i: Option<usize>| i.map(|i| build.windings[i].name.clone());
+            let name = |i: Option<usize>| i.map(|i| names[i].clone());
             let weighted: f64 = layers
                 .iter()
                 .map(|ly| f64::from(ly.turns) * ly.mlt_mm)
                 .sum();
             SectionEval {
                 kind: SectionKind::Winding {
-                    winding: name(*winding).unwrap_or_default(),
-                    with: name(*with),
-                    turns: *turns,
-                    pitch_mm: *pitch_mm,
-                    turns_per_layer: *turns_per_layer,
+                    winding: name(winding).unwrap_or_default(),
+                    with: name(with),
+                    turns,
+                    pitch_mm,
+                    turns_per_layer,
                     layer_count: layers.len() as u32,
                     last_layer_turns: layers.last().map_or(0, |ly| ly.turns),
-                    layer_height_mm: *layer_height_mm,
-                    layer_tape: *layer_tape,
-                    mlt_mm: if *turns > 0 {
-                        weighted / f64::from(*turns)
+                    layer_height_mm,
+                    layer_tape,
+                    mlt_mm: if turns > 0 {
+                        weighted / f64::from(turns)
                     } else {
                         0.0
                     },
                 },
                 y_mm: l.y_mm,
                 height_mm: l.height_mm,
+                // The same size as a laid layer, so this reuses the laid list's memory.
                 layers: layers
-                    .iter()
+                    .into_iter()
                     .map(|ly| LayerEval {
                         y_mm: ly.y_mm,
                         height_mm: ly.height_mm,
                         turns: ly.turns,
                         mlt_mm: ly.mlt_mm,
-                        partial: ly.turns < *turns_per_layer,
+                        partial: ly.turns < turns_per_layer,
                     })
                     .collect(),
                 past_window,
@@ -355,7 +344,7 @@ fn section_eval(build: &Build, l: &Laid, window_height_mm: f64) -> SectionEval {
 }
 
 /// Every primary-secondary and primary-reset pair, referred to the primary.
-fn leakage_pairs(build: &Build, laid: &[Laid]) -> Vec<LeakageEval> {
+fn leakage_pairs(build: &Build, names: &[Name], laid: &[Laid]) -> Vec<LeakageEval> {
     let mut out = Vec::new();
     for (pi, p) in build
         .windings
@@ -379,15 +368,50 @@ fn leakage_pairs(build: &Build, laid: &[Laid]) -> Vec<LeakageEval> {
                     (oi, o.turns),
                 );
                 out.push(LeakageEval {
-                    from: p.name.clone(),
-                    to: o.name.clone(),
-                    referred_to: p.name.clone(),
+                    from: names[pi].clone(),
+                    to: names[oi].clone(),
+                    referred_to: names[pi].clone(),
                     uh: l_h * 1e6,
                 });
             }
         }
     }
     out
+}
+
+/// One winding's AC sums over the layers it has, as [`ac_figures`] collects them.
+#[derive(Debug, Clone, Copy, Default)]
+struct AcSums {
+    /// Taken from the primary-secondary excitation (else section by section from zero MMF).
+    paired: bool,
+    /// Left without AC figures (wound bifilar across the primary-secondary pair).
+    skip: bool,
+    /// The memoised spectrum of the winding's waveform, with its DC part and RMS squared.
+    spectrum: Option<(usize, f64, f64)>,
+    /// Sum of the layer lengths (turns x MLT).
+    length: f64,
+    /// Sum of the sinusoidal layer factors weighted by length.
+    sine: f64,
+    /// Sum of the layers' waveform AC power shares weighted by length.
+    wave: f64,
+}
+
+impl AcSums {
+    /// Add one layer: its D at the switching frequency, the MMF at its faces and its length.
+    fn layer(&mut self, memo: &mut Memo, d: f64, f_a: f64, f_b: f64, length: f64) {
+        self.length += length;
+        self.sine += ac::layer_factor_fast(d, f_a, f_b) * length;
+        if let Some((si, dc, rms_sq)) = self.spectrum {
+            // Hurley's sum is linear in each layer's two Dowell terms, and layers of the same
+            // turns share their D: the harmonics are summed once per distinct D (memoised).
+            let share = if f_b == f_a || d < 1e-3 {
+                rms_sq - dc * dc
+            } else {
+                ac::layer_factor_from(memo.summed_terms(si, d), f_a, f_b)
+            };
+            self.wave += share * length;
+        }
+    }
 }
 
 /// AC factors per the spec: the first primary and first secondary under their leakage
@@ -404,7 +428,6 @@ fn ac_figures(
     let Some(f_khz) = build.setup.frequency_khz else {
         return;
     };
-    let n = build.windings.len();
     let delta_mm = ac::skin_depth_m(rho_ohm_m(build.setup.temperature_c), f_khz * 1e3) / MM;
     let b_w = build.bobbin.window.width_mm;
     let p = build.windings.iter().position(|w| w.role == Role::Primary);
@@ -413,44 +436,50 @@ fn ac_figures(
         .iter()
         .position(|w| w.role == Role::Secondary);
 
-    // Per winding, every layer it has: (D at the switching frequency, F_a, F_b, length).
-    // D is found once; the n-th harmonic's is D sqrt(n).
-    let mut layers_of: Vec<Vec<(f64, f64, f64, f64)>> = vec![Vec::new(); n];
-    let mut skip = vec![false; n];
-    let mut layer_into = |k: usize, d: f64, f_a: f64, f_b: f64, length: f64| {
-        layers_of[k].push((d, f_a, f_b, length));
-    };
+    let mut sums: Vec<AcSums> = currents
+        .iter()
+        .map(|c| AcSums {
+            spectrum: c.waveform.as_ref().map(|wave| {
+                let si = memo.spectrum(wave);
+                let sp = memo.spectrum_of(si);
+                (si, sp.dc, sp.rms_sq)
+            }),
+            ..AcSums::default()
+        })
+        .collect();
+    // D is found once per layer at the switching frequency; the n-th harmonic's is D sqrt(n).
     let d_of = |k: usize, turns: u32| {
         let conductors = f64::from(turns) * f64::from(build.windings[k].strands.max(1));
         ac::layer_d(conductors, wires[k].bare_mm, b_w, delta_mm)
     };
 
-    let mut paired = vec![false; n];
     if let (Some(p), Some(s)) = (p, s) {
         let bifilar_ps = laid.iter().any(|l| {
             matches!(&l.kind, LaidKind::Winding { winding: Some(a), with: Some(b), .. }
                 if (*a == p && *b == s) || (*a == s && *b == p))
         });
         if bifilar_ps {
-            skip[p] = true;
-            skip[s] = true;
+            sums[p].skip = true;
+            sums[s].skip = true;
             warnings.push(Warning {
-                code: "ac-bifilar-ps",
-                message: format!(
-                    "\"{}\" and \"{}\" are wound bifilar together: the layer model cannot give them AC figures, so their copper loss is taken at DC resistance and understated",
-                    build.windings[p].name, build.windings[s].name
-                ),
                 at: WarningAt::Winding(p),
+                kind: WarningKind::AcBifilarPs {
+                    primary: windings[p].name.clone(),
+                    secondary: windings[s].name.clone(),
+                },
             });
         } else {
-            paired[p] = true;
-            paired[s] = true;
-            let mut weights = vec![0.0; n];
-            weights[p] = 1.0;
-            weights[s] =
+            sums[p].paired = true;
+            sums[s].paired = true;
+            let return_per_turn =
                 -f64::from(build.windings[p].turns) / f64::from(build.windings[s].turns.max(1));
-            for slab in leakage::mmf_profile(laid, &weights) {
-                let Some((si, li)) = slab.layer else { continue };
+            let weight = |i: usize| match i {
+                _ if i == p => 1.0,
+                _ if i == s => return_per_turn,
+                _ => 0.0,
+            };
+            leakage::for_each_slab_by(laid, weight, |slab| {
+                let Some((si, li)) = slab.layer else { return };
                 let LaidKind::Winding {
                     winding,
                     with,
@@ -458,7 +487,7 @@ fn ac_figures(
                     ..
                 } = &laid[si].kind
                 else {
-                    continue;
+                    return;
                 };
                 let layer = &layers[li];
                 // A bifilar partner other than P or S carries nothing in this excitation, so
@@ -469,9 +498,9 @@ fn ac_figures(
                     .filter(|&k| k == p || k == s)
                 {
                     let length = f64::from(layer.turns) * layer.mlt_mm;
-                    layer_into(k, d_of(k, layer.turns), slab.f_a, slab.f_b, length);
+                    sums[k].layer(memo, d_of(k, layer.turns), slab.f_a, slab.f_b, length);
                 }
-            }
+            });
         }
     }
     // Every other winding: each of its sections alone, from zero MMF at the section's face.
@@ -485,53 +514,31 @@ fn ac_figures(
         else {
             continue;
         };
-        for k in [*winding, *with]
-            .into_iter()
-            .flatten()
-            .filter(|&k| !paired[k] && !skip[k])
-        {
+        for k in [*winding, *with].into_iter().flatten() {
+            if sums[k].paired || sums[k].skip {
+                continue;
+            }
             let mut f = 0.0;
             for layer in layers {
                 let f_b = f + f64::from(layer.turns);
                 let length = f64::from(layer.turns) * layer.mlt_mm;
-                layer_into(k, d_of(k, layer.turns), f, f_b, length);
+                sums[k].layer(memo, d_of(k, layer.turns), f, f_b, length);
                 f = f_b;
             }
         }
     }
-    for (k, w) in windings.iter_mut().enumerate() {
-        let layers = &layers_of[k];
-        let total: f64 = layers.iter().map(|l| l.3).sum();
-        if skip[k] || total <= 0.0 {
+    for (w, sum) in windings.iter_mut().zip(&sums) {
+        let total = sum.length;
+        if sum.skip || total <= 0.0 {
             continue;
         }
-        let ac_factor = layers
-            .iter()
-            .map(|&(d, f_a, f_b, length)| ac::layer_factor_fast(d, f_a, f_b) * length)
-            .sum::<f64>()
-            / total;
-        let ac_factor_waveform = currents[k].waveform.as_ref().map(|wave| {
-            let si = memo.spectrum(wave);
-            let (dc, rms_sq) = {
-                let sp = memo.spectrum_of(si);
-                (sp.dc, sp.rms_sq)
-            };
+        let ac_factor = sum.sine / total;
+        let ac_factor_waveform = sum.spectrum.map(|(_, dc, rms_sq)| {
             if rms_sq <= 0.0 {
-                return 1.0;
+                1.0
+            } else {
+                (dc * dc * total + sum.wave) / (rms_sq * total)
             }
-            // Hurley's sum is linear in each layer's two Dowell terms, and layers of the same
-            // turns share their D: the harmonics are summed once per distinct D (memoised).
-            let ac_power = rms_sq - dc * dc;
-            let mut loss = dc * dc * total;
-            for &(d, f_a, f_b, length) in layers {
-                let share = if f_b == f_a || d < 1e-3 {
-                    ac_power
-                } else {
-                    ac::layer_factor_from(memo.summed_terms(si, d), f_a, f_b)
-                };
-                loss += share * length;
-            }
-            loss / (rms_sq * total)
         });
         w.ac = Some(AcFigures {
             skin_depth_mm: delta_mm,

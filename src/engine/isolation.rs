@@ -1,7 +1,8 @@
 //! Checks of the stack against the build's declared isolation, as warnings. Pure; it can only
 //! say where the plan falls short of the usual layout, never that a build is safe or compliant.
 
-use super::evaluation::{Evaluation, Warning, WarningAt};
+use super::evaluation::Evaluation;
+use super::remarks::{Warning, WarningAt, WarningKind};
 use super::validate::{Invalid, Place};
 use crate::model::{Build, Insulation, IsolationClass, Role, Section};
 
@@ -59,24 +60,29 @@ pub fn validate(build: &Build) -> Vec<Invalid> {
     out
 }
 
-/// One winding section's windings, as (index, side, triple-insulated).
-fn section_windings(build: &Build, s: &Section) -> Vec<(usize, Side, bool)> {
+/// One winding section's windings (the winding, then its bifilar partner), as (index, side,
+/// triple-insulated); empty for tape and for names no winding has.
+fn section_windings(build: &Build, s: &Section) -> SectionWindings {
     let Section::Winding(ws) = s else {
-        return Vec::new();
+        return [None, None];
     };
-    [Some(ws.winding.as_str()), ws.with.as_deref()]
-        .into_iter()
-        .flatten()
-        .filter_map(|n| build.winding_index(n))
-        .map(|k| {
-            let w = &build.windings[k];
-            (k, side_of(build, w.role), w.insulation == Insulation::Tiw)
-        })
-        .collect()
+    let of = |name: Option<&str>| {
+        let k = build.winding_index(name?)?;
+        let w = &build.windings[k];
+        Some((k, side_of(build, w.role), w.insulation == Insulation::Tiw))
+    };
+    let (a, b) = (of(Some(&ws.winding)), of(ws.with.as_deref()));
+    if a.is_none() { [b, None] } else { [a, b] }
+}
+
+type SectionWindings = [Option<(usize, Side, bool)>; 2];
+
+fn windings(s: &SectionWindings) -> impl Iterator<Item = (usize, Side, bool)> + '_ {
+    s.iter().flatten().copied()
 }
 
 /// Warnings where the stack as planned cannot hold the declared isolation.
-pub fn warnings(build: &Build, _eval: &Evaluation) -> Vec<Warning> {
+pub fn warnings(build: &Build, eval: &Evaluation) -> Vec<Warning> {
     let mut out = Vec::new();
     let Some(iso) = &build.isolation else {
         return out;
@@ -86,27 +92,28 @@ pub fn warnings(build: &Build, _eval: &Evaluation) -> Vec<Warning> {
         IsolationClass::Basic => BASIC_TAPE_WRAPS,
         IsolationClass::Reinforced => REINFORCED_TAPE_WRAPS,
     };
-    let class = iso.class.key();
-    let sections: Vec<Vec<(usize, Side, bool)>> = build
+    let class = iso.class;
+    let sections: Vec<SectionWindings> = build
         .stack
         .iter()
         .map(|s| section_windings(build, s))
         .collect();
-    let name = |k: usize| build.windings[k].name.as_str();
+    let name = |k: usize| eval.windings[k].name.clone();
 
     for (i, ws) in sections.iter().enumerate() {
-        let sides: Vec<Side> = ws.iter().map(|w| w.1).collect();
-        if sides.contains(&Side::Primary) && sides.contains(&Side::Secondary) {
+        let has = |side: Side| windings(ws).any(|w| w.1 == side);
+        if has(Side::Primary)
+            && has(Side::Secondary)
+            && let [Some(a), Some(b)] = ws
+        {
             out.push(Warning {
-                code: "isolation-bifilar",
-                message: format!(
-                    "stack #{}: {} and {} are wound bifilar across the {class} barrier: only the enamel \
-                     separates them (wind them as separate sections with tape between)",
-                    i + 1,
-                    name(ws[0].0),
-                    name(ws[1].0)
-                ),
                 at: WarningAt::Section(i),
+                kind: WarningKind::IsolationBifilar {
+                    class,
+                    section: i,
+                    a: name(a.0),
+                    b: name(b.0),
+                },
             });
         }
     }
@@ -115,12 +122,15 @@ pub fn warnings(build: &Build, _eval: &Evaluation) -> Vec<Warning> {
     for a in 0..sections.len() {
         for b in a + 1..sections.len() {
             let (pa, pb) = (&sections[a], &sections[b]);
-            let crosses = pa.iter().any(|x| pb.iter().any(|y| x.1 != y.1));
-            if pa.is_empty() || pb.is_empty() || !crosses {
+            let (Some(first_a), Some(first_b)) = (pa[0], pb[0]) else {
+                continue;
+            };
+            let crosses = windings(pa).any(|x| windings(pb).any(|y| x.1 != y.1));
+            if !crosses {
                 continue;
             }
             // Triple-insulated wire is its own barrier: a side wound all in it waives the tape.
-            let all_tiw = |s: &[(usize, Side, bool)]| s.iter().all(|w| w.2);
+            let all_tiw = |s: &SectionWindings| windings(s).all(|w| w.2);
             if all_tiw(pa) || all_tiw(pb) {
                 continue;
             }
@@ -133,16 +143,14 @@ pub fn warnings(build: &Build, _eval: &Evaluation) -> Vec<Warning> {
                 .sum();
             if wraps < need {
                 out.push(Warning {
-                    code: "isolation-wraps",
-                    message: format!(
-                        "{class} isolation: {wraps} wrap(s) of tape between stack #{} ({}) and stack #{} ({}); \
-                         the usual layout is at least {need} (or triple-insulated wire on one side)",
-                        a + 1,
-                        name(pa[0].0),
-                        b + 1,
-                        name(pb[0].0)
-                    ),
                     at: WarningAt::Section(b),
+                    kind: WarningKind::IsolationWraps {
+                        class,
+                        wraps,
+                        need,
+                        inner: (a, name(first_a.0)),
+                        outer: (b, name(first_b.0)),
+                    },
                 });
             }
         }
@@ -156,24 +164,17 @@ pub fn warnings(build: &Build, _eval: &Evaluation) -> Vec<Warning> {
     match iso.creepage_mm {
         Some(creepage) if !secondary_all_tiw && build.setup.margin_mm < creepage / 2.0 => {
             out.push(Warning {
-                code: "isolation-margin",
-                message: format!(
-                    "{class} isolation: margins of {:.2} mm at each flange are narrower than half the \
-                     {creepage:.2} mm creepage you set ({:.2} mm): the surface path round the tape edge \
-                     is about the sum of the two margins",
-                    build.setup.margin_mm,
-                    creepage / 2.0
-                ),
                 at: WarningAt::Build,
+                kind: WarningKind::IsolationMargin {
+                    class,
+                    margin_mm: build.setup.margin_mm,
+                    creepage_mm: creepage,
+                },
             });
         }
         None => out.push(Warning {
-            code: "isolation-creepage-unset",
-            message: format!(
-                "{class} isolation declared without creepage_mm: the margins cannot be checked \
-                 (take the distance from the applicable standard for your working voltage)"
-            ),
             at: WarningAt::Build,
+            kind: WarningKind::IsolationCreepageUnset { class },
         }),
         _ => {}
     }

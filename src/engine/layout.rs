@@ -43,6 +43,29 @@ pub enum LaidKind {
     },
 }
 
+/// What the layout and the checks need of a build's names and defaults, found once: the
+/// wire diameters, the windings each section names, and each section's turns.
+#[derive(Debug, Clone, PartialEq)]
+pub struct Resolved {
+    /// In `build.windings` order.
+    pub wires: Vec<ResolvedWire>,
+    /// Per stack section, see [`Build::section_windings`].
+    pub section_windings: Vec<(Option<usize>, Option<usize>)>,
+    /// Per stack section, see [`Build::section_turns`].
+    pub section_turns: Vec<u32>,
+}
+
+impl Resolved {
+    pub fn new(build: &Build) -> Self {
+        let section_windings = build.section_windings();
+        Resolved {
+            wires: resolved_wires(build),
+            section_turns: build.section_turns_of(&section_windings),
+            section_windings,
+        }
+    }
+}
+
 /// Diameters of every winding's wire, in `build.windings` order.
 pub fn resolved_wires(build: &Build) -> Vec<ResolvedWire> {
     build
@@ -72,13 +95,18 @@ pub fn turns_per_layer(usable_width_mm: f64, pitch_mm: f64) -> u32 {
 
 /// Lay out the whole stack, from the tube outward. Unknown windings (refused by validation)
 /// are laid as empty sections so the result stays aligned with `build.stack`.
-pub fn lay_out(build: &Build, wires: &[ResolvedWire]) -> Vec<Laid> {
+pub fn lay_out(build: &Build, resolved: &Resolved) -> Vec<Laid> {
     let w_u = usable_width_mm(build);
     let tape_mm = build.setup.tape_mm;
-    let section_turns = build.section_turns();
+    let wires = &resolved.wires;
     let mut y = 0.0;
     let mut out = Vec::with_capacity(build.stack.len());
-    for (section, &turns) in build.stack.iter().zip(&section_turns) {
+    for ((section, &turns), &(wi, with)) in build
+        .stack
+        .iter()
+        .zip(&resolved.section_turns)
+        .zip(&resolved.section_windings)
+    {
         let laid = match section {
             Section::Tape { wraps } => Laid {
                 y_mm: y,
@@ -86,8 +114,6 @@ pub fn lay_out(build: &Build, wires: &[ResolvedWire]) -> Vec<Laid> {
                 kind: LaidKind::Tape { wraps: *wraps },
             },
             Section::Winding(ws) => {
-                let wi = build.winding_index(&ws.winding);
-                let with = ws.with.as_deref().and_then(|n| build.winding_index(n));
                 let pitch_of =
                     |i: usize| f64::from(build.windings[i].strands.max(1)) * wires[i].od_mm;
                 let od_of = |i: usize| wires[i].od_mm;

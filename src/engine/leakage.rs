@@ -30,8 +30,17 @@ pub fn mmf_profile(laid: &[Laid], weights: &[f64]) -> Vec<Slab> {
 }
 
 /// The slabs of [`mmf_profile`], handed one by one to `visit` (no list is built).
-pub fn for_each_slab(laid: &[Laid], weights: &[f64], mut visit: impl FnMut(Slab)) {
-    let weight = |i: Option<usize>| i.and_then(|i| weights.get(i)).copied().unwrap_or(0.0);
+pub fn for_each_slab(laid: &[Laid], weights: &[f64], visit: impl FnMut(Slab)) {
+    for_each_slab_by(laid, |i| weights.get(i).copied().unwrap_or(0.0), visit);
+}
+
+/// [`for_each_slab`] with the weights as a function of the winding index.
+pub fn for_each_slab_by(
+    laid: &[Laid],
+    weight_of: impl Fn(usize) -> f64,
+    mut visit: impl FnMut(Slab),
+) {
+    let weight = |i: Option<usize>| i.map_or(0.0, &weight_of);
     let mut f = 0.0;
     for (si, section) in laid.iter().enumerate() {
         match &section.kind {
@@ -95,7 +104,8 @@ pub fn energy_integral_m2(slabs: &[Slab], tube: &Tube) -> f64 {
     slabs.iter().map(|s| slab_energy_m2(s, tube)).sum()
 }
 
-/// Leakage inductance (H) between windings `x` and `y`, referred to `x`.
+/// Leakage inductance (H) between windings `x` and `y` (index, turns), referred to `x`.
+/// `winding_count` is the number of windings the indices count.
 pub fn leakage_h(
     laid: &[Laid],
     tube: &Tube,
@@ -104,15 +114,18 @@ pub fn leakage_h(
     x: (usize, u32),
     y: (usize, u32),
 ) -> f64 {
-    let mut weights = vec![0.0; winding_count];
     let (xi, nx) = x;
     let (yi, ny) = y;
-    if ny == 0 || window_width_mm <= 0.0 {
+    if ny == 0 || window_width_mm <= 0.0 || xi >= winding_count || yi >= winding_count {
         return 0.0;
     }
-    weights[xi] = 1.0;
-    weights[yi] = -f64::from(nx) / f64::from(ny);
+    let return_per_turn = -f64::from(nx) / f64::from(ny);
+    let weight = |i: usize| match i {
+        _ if i == yi => return_per_turn,
+        _ if i == xi => 1.0,
+        _ => 0.0,
+    };
     let mut energy = 0.0;
-    for_each_slab(laid, &weights, |s| energy += slab_energy_m2(&s, tube));
+    for_each_slab_by(laid, weight, |s| energy += slab_energy_m2(&s, tube));
     MU0_H_PER_M / (window_width_mm * MM) * energy
 }

@@ -1,6 +1,8 @@
 //! What limits the design: each constraint's margin as a fraction of what it allows,
 //! sorted so the binding one (the smallest margin) comes first.
 
+use super::evaluation::Name;
+
 /// Current density that small switch-mode transformers run at with natural convection,
 /// 3-6 A/mm^2 RMS (common practice; 500 circular mils per ampere is 3.95 A/mm^2).
 pub const CURRENT_DENSITY_BAND_A_MM2: (f64, f64) = (3.0, 6.0);
@@ -42,7 +44,7 @@ pub struct Limit {
     /// Unit of `used` and `allowed` ("mm", "duty", "mT", "C", "A/mm2").
     pub unit: &'static str,
     /// What it is about, e.g. the winding with the highest current density.
-    pub about: Option<String>,
+    pub about: Option<Name>,
 }
 
 impl Limit {
@@ -51,7 +53,7 @@ impl Limit {
         used: f64,
         allowed: f64,
         unit: &'static str,
-        about: Option<String>,
+        about: Option<Name>,
     ) -> Self {
         // A limit that allows nothing is broken outright: -1, a finite number the JSON can
         // carry (infinity would print as null).

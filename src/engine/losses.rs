@@ -2,6 +2,7 @@
 
 use super::converter::ConverterEval;
 use super::core_loss;
+use super::evaluation::{Name, WindingEval};
 use super::magnetics;
 use super::thermal::{self, DEFAULT_RISE_LIMIT_C};
 use crate::model::{Build, ResetSide};
@@ -11,7 +12,7 @@ pub struct LossEval {
     /// Sum of the windings' copper losses (those that have a current).
     pub copper_loss_w: f64,
     /// Windings with no current to count (auxiliary windings without `current_rms_a`).
-    pub windings_without_current: Vec<String>,
+    pub windings_without_current: Vec<Name>,
     /// Core loss density by the iGSE, steady state at `vin_max_v`.
     pub core_loss_kw_m3: Option<f64>,
     pub core_loss_w: Option<f64>,
@@ -29,13 +30,14 @@ pub struct LossEval {
     pub rise_limit_c: f64,
 }
 
-pub fn evaluate(build: &Build, c: &ConverterEval, copper: &[(String, Option<f64>)]) -> LossEval {
+/// `windings` carry their copper loss already.
+pub fn evaluate(build: &Build, c: &ConverterEval, windings: &[WindingEval]) -> LossEval {
     let op = build.operating.as_ref();
-    let copper_loss_w = copper.iter().filter_map(|(_, w)| *w).sum();
-    let windings_without_current = copper
+    let copper_loss_w = windings.iter().filter_map(|w| w.copper_loss_w).sum();
+    let windings_without_current = windings
         .iter()
-        .filter(|(_, w)| w.is_none())
-        .map(|(n, _)| n.clone())
+        .filter(|w| w.copper_loss_w.is_none())
+        .map(|w| w.name.clone())
         .collect();
     let core = build.bobbin.core.as_ref();
     let f_khz = build.setup.frequency_khz.unwrap_or(0.0);

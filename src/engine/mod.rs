@@ -17,6 +17,8 @@ pub mod limits;
 pub mod losses;
 pub mod magnetics;
 pub mod memo;
+mod name;
+mod remarks;
 pub mod resistance;
 pub mod search;
 pub mod thermal;
@@ -26,12 +28,12 @@ mod warnings;
 pub use converter::ConverterEval;
 pub use currents::CurrentSource;
 pub use evaluation::{
-    AcFigures, Evaluation, LayerEval, LeakageEval, SectionEval, SectionKind, Warning, WarningAt,
-    WindingEval,
+    AcFigures, Evaluation, LayerEval, LeakageEval, Name, SectionEval, SectionKind, WindingEval,
 };
 pub use limits::{Constraint, Limit};
 pub use losses::LossEval;
 pub use magnetics::AlSource;
+pub use remarks::{Note, Warning, WarningAt, WarningKind};
 pub use validate::{Invalid, Place, validate, validate_bobbin};
 
 use crate::model::Build;

@@ -1,7 +1,7 @@
 //! What makes a build invalid (the spec's validation list), as data with a place, so that the
 //! file loader can point at a line and the editor can refuse an edit with a message.
 
-use super::layout::{resolved_wires, turns_per_layer, usable_width_mm};
+use super::layout::{Resolved, turns_per_layer, usable_width_mm};
 use crate::library::wires::AWG_RANGE;
 use crate::model::{Bobbin, Build, Role, Section, Tube, WireSize};
 use std::fmt;
@@ -131,6 +131,11 @@ pub fn validate_bobbin(b: &Bobbin) -> Vec<Invalid> {
 
 /// Every reason the build is invalid; empty when it is valid.
 pub fn validate(build: &Build) -> Vec<Invalid> {
+    validate_resolved(build, &Resolved::new(build))
+}
+
+/// [`validate`], with the build's names and defaults already resolved (as `evaluate` has them).
+pub(super) fn validate_resolved(build: &Build, resolved: &Resolved) -> Vec<Invalid> {
     let mut out = Vec::new();
     out.extend(validate_bobbin(&build.bobbin));
     let b = &build.bobbin;
@@ -283,9 +288,9 @@ pub fn validate(build: &Build) -> Vec<Invalid> {
             .collect::<Vec<_>>()
             .join(", ")
     };
-    let turns = build.section_turns();
+    let turns = &resolved.section_turns;
     let mut sums = vec![0u64; build.windings.len()];
-    let wires = resolved_wires(build);
+    let wires = &resolved.wires;
     let w_u = usable_width_mm(build);
     for (i, section) in build.stack.iter().enumerate() {
         match section {
@@ -300,7 +305,7 @@ pub fn validate(build: &Build) -> Vec<Invalid> {
                 }
             }
             Section::Winding(ws) => {
-                let a = build.winding_index(&ws.winding);
+                let (a, with) = resolved.section_windings[i];
                 if a.is_none() {
                     bad(
                         Place::Section(i, "winding"),
@@ -313,7 +318,7 @@ pub fn validate(build: &Build) -> Vec<Invalid> {
                 }
                 let c = match &ws.with {
                     Some(n) => {
-                        let c = build.winding_index(n);
+                        let c = with;
                         if c.is_none() {
                             bad(
                                 Place::Section(i, "with"),

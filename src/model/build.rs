@@ -114,42 +114,60 @@ impl Build {
         self.windings.iter().find(|w| w.role == role)
     }
 
+    /// The windings each stack section names, as indices into `windings`: (the winding, its
+    /// bifilar partner); `None` for tape and for a name no winding has.
+    pub fn section_windings(&self) -> Vec<(Option<usize>, Option<usize>)> {
+        self.stack
+            .iter()
+            .map(|s| match s {
+                Section::Tape { .. } => (None, None),
+                Section::Winding(ws) => (
+                    self.winding_index(&ws.winding),
+                    ws.with.as_deref().and_then(|w| self.winding_index(w)),
+                ),
+            })
+            .collect()
+    }
+
     /// Resolved turns of every section (tape sections get 0).
     ///
     /// A section that states its turns gets them. One that does not takes what is left of
     /// its winding after every section that states turns for that winding (anywhere in the
     /// stack, bifilar `with` sections included) and every earlier section that did not.
     pub fn section_turns(&self) -> Vec<u32> {
-        // Indexed by winding; a name no winding has (refused by validation) counts nowhere.
-        let n = self.windings.len();
-        let mut explicit = vec![0u64; n];
-        for s in &self.stack {
+        self.section_turns_of(&self.section_windings())
+    }
+
+    /// [`Build::section_turns`], given what [`Build::section_windings`] gives.
+    pub fn section_turns_of(&self, indices: &[(Option<usize>, Option<usize>)]) -> Vec<u32> {
+        // Per winding: (turns stated by sections, turns taken by defaulted sections so far).
+        // A name no winding has (refused by validation) counts nowhere.
+        let mut taken = vec![(0u64, 0u64); self.windings.len()];
+        for (s, &(a, b)) in self.stack.iter().zip(indices) {
             if let Section::Winding(ws) = s
                 && let Some(t) = ws.turns
             {
-                for k in [Some(&ws.winding), ws.with.as_ref()].into_iter().flatten() {
-                    if let Some(i) = self.winding_index(k) {
-                        explicit[i] += u64::from(t);
-                    }
+                for i in [a, b].into_iter().flatten() {
+                    taken[i].0 += u64::from(t);
                 }
             }
         }
-        let mut defaulted = vec![0u64; n];
         self.stack
             .iter()
-            .map(|s| match s {
+            .zip(indices)
+            .map(|(s, &(a, b))| match s {
                 Section::Tape { .. } => 0,
                 Section::Winding(ws) => match ws.turns {
                     Some(t) => t,
                     None => {
-                        let Some(i) = self.winding_index(&ws.winding) else {
+                        let Some(i) = a else {
                             return 0;
                         };
                         let total = u64::from(self.windings[i].turns);
-                        let left = total.saturating_sub(explicit[i] + defaulted[i]);
-                        defaulted[i] += left;
-                        if let Some(j) = ws.with.as_deref().and_then(|w| self.winding_index(w)) {
-                            defaulted[j] += left;
+                        let left = total.saturating_sub(taken[i].0 + taken[i].1);
+                        taken[i].1 += left;
+                        if let Some(j) = b {
+                            taken[j].1 += left;
                         }
                         u32::try_from(left).unwrap_or(u32::MAX)
                     }

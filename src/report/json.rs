@@ -85,7 +85,7 @@ pub fn report(build: &Build, eval: &Evaluation) -> Value {
         .warnings
         .iter()
         .map(|w| {
-            let mut v = json!({"code": w.code, "message": w.message});
+            let mut v = json!({"code": w.code(), "message": w.message()});
             match w.at {
                 WarningAt::Section(i) => v["section"] = json!(i),
                 WarningAt::Winding(i) => {
@@ -114,7 +114,7 @@ pub fn report(build: &Build, eval: &Evaluation) -> Value {
         "windings": windings,
         "leakage": leakage,
         "warnings": warnings,
-        "notes": eval.notes,
+        "notes": eval.notes.iter().map(ToString::to_string).collect::<Vec<_>>(),
     });
     if let Some(c) = &eval.converter {
         let mut conv = json!({

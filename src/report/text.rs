@@ -122,7 +122,7 @@ pub fn render(build: &Build, eval: &Evaluation) -> String {
             } => {
                 let name = match with {
                     Some(w) => format!("{winding}+{w} bifilar"),
-                    None => winding.clone(),
+                    None => winding.to_string(),
                 };
                 let _ = writeln!(
                     o,
@@ -240,7 +240,7 @@ pub fn render(build: &Build, eval: &Evaluation) -> String {
             _ => String::new(),
         };
         for l in wrap(
-            &format!("! {}{at}: {}", w.code, w.message),
+            &format!("! {}{at}: {}", w.code(), w.message()),
             WIDTH - 2,
             "    ",
         ) {

@@ -140,6 +140,9 @@ pub fn total_loss_w(eval: &Evaluation) -> f64 {
         .map_or_else(|| copper_loss_w(eval), |l| l.total_loss_w)
 }
 
+/// Combinations a thread goes through between two calls of `progress`.
+const PROGRESS_STEP: usize = 4096;
+
 /// Run the search. `progress` is called now and then with (done, total).
 pub fn search(
     build: &Build,
@@ -168,12 +171,15 @@ pub fn search(
         let mut candidate = build.clone();
         let mut laid_arrangement = None;
         let mut memo = Memo::new();
-        for index in (t..total).step_by(threads) {
-            let n = done.fetch_add(1, Ordering::Relaxed) + 1;
-            if n.is_multiple_of(4096) {
+        let mut combo = space::Combo::default();
+        for (k, index) in (t..total).step_by(threads).enumerate() {
+            // Counted locally and published in steps: one shared counter touched by every
+            // thread on every index would bounce its cache line between the cores.
+            if k > 0 && k.is_multiple_of(PROGRESS_STEP) {
+                let n = done.fetch_add(PROGRESS_STEP, Ordering::Relaxed) + PROGRESS_STEP;
                 progress(n, total);
             }
-            let combo = plan.combo(index);
+            plan.decode(index, &mut combo);
             let in_band = plan.in_band_all(&combo);
             if in_band {
                 reasons.in_band += 1;

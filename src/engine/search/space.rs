@@ -73,6 +73,7 @@ pub struct Space<'a> {
 }
 
 /// An index decoded: the arrangement and one choice per winding.
+#[derive(Debug, Clone, Default, PartialEq, Eq)]
 pub struct Combo {
     pub arrangement: usize,
     pub choice: Vec<usize>,
@@ -262,22 +263,15 @@ impl<'a> Space<'a> {
         self.notes.clone()
     }
 
-    pub fn combo(&self, mut index: usize) -> Combo {
-        let arrangement = index % self.arrangements.len();
-        index /= self.arrangements.len();
-        let choice = self
-            .choices
-            .iter()
-            .map(|c| {
-                let i = index % c.len();
-                index /= c.len();
-                i
-            })
-            .collect();
-        Combo {
-            arrangement,
-            choice,
+    /// Decode an index into `combo`: the wire of each winding in turn are the fastest digits,
+    /// the arrangement the slowest, so that consecutive indices share their stack.
+    pub fn decode(&self, mut index: usize, combo: &mut Combo) {
+        combo.choice.clear();
+        for c in &self.choices {
+            combo.choice.push(index % c.len());
+            index /= c.len();
         }
+        combo.arrangement = index;
     }
 
     fn in_band(&self, k: usize, c: &WireChoice) -> bool {
@@ -526,7 +520,7 @@ pub struct Reasons {
 impl Reasons {
     /// Does the evaluated candidate meet every constraint? Counts the reason when not.
     pub fn accept(&mut self, eval: &Evaluation, settings: &Settings, sized: &[bool]) -> bool {
-        if eval.warnings.iter().any(|w| w.code == "invalid") {
+        if eval.warnings.iter().any(|w| w.code() == "invalid") {
             self.invalid += 1;
             return false;
         }

@@ -425,9 +425,9 @@ pub fn sheet(build: &Build, eval: &Evaluation, measure_at_c: f64) -> Sheet {
         warnings: eval
             .warnings
             .iter()
-            .map(|w| format!("{}: {}", w.code, w.message))
+            .map(|w| format!("{}: {}", w.code(), w.message()))
             .collect(),
-        notes: eval.notes.clone(),
+        notes: eval.notes.iter().map(ToString::to_string).collect(),
     }
 }
 
@@ -446,7 +446,7 @@ fn crossing_leads(build: &Build, eval: &Evaluation) -> Vec<String> {
         let mut last: Option<f64> = None;
         for s in &eval.sections {
             if let SectionKind::Winding { winding, with, .. } = &s.kind
-                && (winding == &w.name || with.as_deref() == Some(w.name.as_str()))
+                && (*winding == w.name || with.as_deref() == Some(w.name.as_str()))
             {
                 first.get_or_insert(s.y_mm);
                 last = s.layers.last().map(|l| l.y_mm);
@@ -465,7 +465,7 @@ fn crossing_leads(build: &Build, eval: &Evaluation) -> Vec<String> {
             .enumerate()
             .filter(|(_, s)| {
                 matches!(&s.kind, SectionKind::Winding { winding, with, .. }
-                    if winding == &w.name || with.as_deref() == Some(w.name.as_str()))
+                    if *winding == w.name || with.as_deref() == Some(w.name.as_str()))
             })
             .map(|(i, _)| i)
             .collect();

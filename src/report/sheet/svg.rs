@@ -107,7 +107,7 @@ pub fn cross_section(build: &Build, eval: &Evaluation) -> (f64, String) {
                 colour += 1;
                 let name = match with {
                     Some(b) => format!("{winding}+{b}"),
-                    None => winding.clone(),
+                    None => winding.to_string(),
                 };
                 let _ = write!(
                     o,

@@ -106,7 +106,7 @@ fn row(app: &App, i: usize, wide: bool, width: usize) -> Line<'static> {
             let k = app.build.winding_index(winding).unwrap_or(0);
             let name = match with {
                 Some(w) => format!("{winding}+{w}"),
-                None => winding.clone(),
+                None => winding.to_string(),
             };
             let tape = if *layer_tape > 0 {
                 format!("{layer_tape}/ly")

@@ -47,13 +47,13 @@ pub fn draw(app: &App, frame: &mut Frame, area: Rect) {
         let mark = if w.at == selected { "▶" } else { "!" };
         lines.push(Line::from(vec![
             Span::styled(format!("{mark} {about}: "), t.warn()),
-            Span::raw(w.message.clone()),
+            Span::raw(w.message()),
         ]));
     }
     for n in &e.notes {
         lines.push(Line::from(vec![
             Span::styled("note: ", t.dim()),
-            Span::styled(n.clone(), t.dim()),
+            Span::styled(n.to_string(), t.dim()),
         ]));
     }
     if lines.is_empty() {

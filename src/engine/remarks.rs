@@ -1,0 +1,395 @@
+//! What the engine remarks on a build: warnings (a code, what they are about, the figures
+//! that raised them) and notes (what the figures had to leave out). Both are plain data; the
+//! sentence a person reads is rendered from it only when a front end shows it, so that an
+//! evaluation nobody reads (the search's candidates) spends nothing on text.
+
+use super::evaluation::Name;
+use super::thermal::SURFACE_KS;
+use super::validate::Invalid;
+use super::warnings::FILL_FACTOR_HAND_LIMIT;
+use crate::model::IsolationClass;
+use std::fmt;
+
+/// What a warning is about, so that every front end can show it next to that thing.
+#[derive(Debug, Clone, PartialEq, Eq)]
+pub enum WarningAt {
+    Build,
+    Section(usize),
+    Winding(usize),
+    Converter,
+}
+
+#[derive(Debug, Clone, PartialEq)]
+pub struct Warning {
+    pub at: WarningAt,
+    pub kind: WarningKind,
+}
+
+impl Warning {
+    /// The stable code (see FORMAT.md); the text may improve, the code does not change.
+    pub fn code(&self) -> &'static str {
+        self.kind.code()
+    }
+
+    /// The sentence a person reads.
+    pub fn message(&self) -> String {
+        self.kind.to_string()
+    }
+}
+
+/// Each warning the engine gives, with the figures its sentence quotes. Sections are numbered
+/// from 0 (`stack #1` is section 0); percentages are fractions.
+#[derive(Debug, Clone, PartialEq)]
+pub enum WarningKind {
+    /// The build is refused by validation; its figures are best effort.
+    Invalid(Invalid),
+    DoesNotFit {
+        height_with_allowance_mm: f64,
+        bulge: f64,
+        window_height_mm: f64,
+        over_mm: f64,
+    },
+    PastWindow {
+        section: usize,
+        winding: Name,
+    },
+    PartialLayer {
+        section: usize,
+        winding: Name,
+        last_layer_turns: u32,
+        turns_per_layer: u32,
+    },
+    MarginCrowded {
+        section: usize,
+        winding: Name,
+        spare_mm: f64,
+    },
+    FillHigh {
+        fill_factor: f64,
+    },
+    TiwStrands {
+        winding: Name,
+    },
+    ResetBelowController {
+        duty_limit: f64,
+        reset_duty_limit: f64,
+    },
+    DutyShort {
+        needed: f64,
+        available: f64,
+    },
+    ResetImpossible {
+        nr: u32,
+        ns: u32,
+    },
+    ResetSteady {
+        ceiling: f64,
+        needed: f64,
+    },
+    ResetStartup,
+    Saturation {
+        swing_mt: f64,
+        headroom_mt: f64,
+    },
+    CurrentDensity {
+        winding: Name,
+        density_a_mm2: f64,
+        /// The band's ends (A/mm^2), quoted for windings other than a reset winding.
+        band: (f64, f64),
+        reset: bool,
+    },
+    TemperatureRise {
+        rise_c: f64,
+        limit_c: f64,
+        loss_w: f64,
+        surface_cm2: f64,
+    },
+    AcBifilarPs {
+        primary: Name,
+        secondary: Name,
+    },
+    IsolationBifilar {
+        class: IsolationClass,
+        section: usize,
+        a: Name,
+        b: Name,
+    },
+    IsolationWraps {
+        class: IsolationClass,
+        wraps: u32,
+        need: u32,
+        inner: (usize, Name),
+        outer: (usize, Name),
+    },
+    IsolationMargin {
+        class: IsolationClass,
+        margin_mm: f64,
+        creepage_mm: f64,
+    },
+    IsolationCreepageUnset {
+        class: IsolationClass,
+    },
+}
+
+impl WarningKind {
+    pub fn code(&self) -> &'static str {
+        match self {
+            WarningKind::Invalid(_) => "invalid",
+            WarningKind::DoesNotFit { .. } => "does-not-fit",
+            WarningKind::PastWindow { .. } => "past-window",
+            WarningKind::PartialLayer { .. } => "partial-layer",
+            WarningKind::MarginCrowded { .. } => "margin-crowded",
+            WarningKind::FillHigh { .. } => "fill-high",
+            WarningKind::TiwStrands { .. } => "tiw-strands",
+            WarningKind::ResetBelowController { .. } => "reset-below-controller",
+            WarningKind::DutyShort { .. } => "duty-short",
+            WarningKind::ResetImpossible { .. } => "reset-impossible",
+            WarningKind::ResetSteady { .. } => "reset-steady",
+            WarningKind::ResetStartup => "reset-startup",
+            WarningKind::Saturation { .. } => "saturation",
+            WarningKind::CurrentDensity { .. } => "current-density",
+            WarningKind::TemperatureRise { .. } => "temperature-rise",
+            WarningKind::AcBifilarPs { .. } => "ac-bifilar-ps",
+            WarningKind::IsolationBifilar { .. } => "isolation-bifilar",
+            WarningKind::IsolationWraps { .. } => "isolation-wraps",
+            WarningKind::IsolationMargin { .. } => "isolation-margin",
+            WarningKind::IsolationCreepageUnset { .. } => "isolation-creepage-unset",
+        }
+    }
+}
+
+impl fmt::Display for WarningKind {
+    fn fmt(&self, f: &mut fmt::Formatter<'_>) -> fmt::Result {
+        match self {
+            WarningKind::Invalid(problem) => write!(f, "{problem}"),
+            WarningKind::DoesNotFit {
+                height_with_allowance_mm,
+                bulge,
+                window_height_mm,
+                over_mm,
+            } => write!(
+                f,
+                "does not fit: {height_with_allowance_mm:.2} mm with the {:.0} % allowance against a \
+                 {window_height_mm:.2} mm window, {over_mm:.2} mm too tall",
+                (bulge - 1.0) * 100.0,
+            ),
+            WarningKind::PastWindow { section, winding } => write!(
+                f,
+                "section {} ({winding}) reaches past the window limit",
+                section + 1
+            ),
+            WarningKind::PartialLayer {
+                section,
+                winding,
+                last_layer_turns,
+                turns_per_layer,
+            } => write!(
+                f,
+                "section {} ({winding}): the last layer holds {last_layer_turns} of {turns_per_layer} turns, \
+                 so the section above sits on a step and the finish lead crosses over it \
+                 (spread the turns across the width, or change the turns)",
+                section + 1
+            ),
+            WarningKind::MarginCrowded {
+                section,
+                winding,
+                spare_mm,
+            } => write!(
+                f,
+                "section {} ({winding}): full layers leave {spare_mm:.2} mm to the margin tape; the end turns \
+                 can climb onto it and shorten the creepage path (wind one turn fewer per layer)",
+                section + 1
+            ),
+            WarningKind::FillHigh { fill_factor } => write!(
+                f,
+                "fill factor {fill_factor:.2} is above the {FILL_FACTOR_HAND_LIMIT:.2} that hand winding on a \
+                 bobbin usually reaches"
+            ),
+            WarningKind::TiwStrands { winding } => write!(
+                f,
+                "\"{winding}\": strands of triple-insulated wire in parallel are unusual; check the pitch"
+            ),
+            WarningKind::ResetBelowController {
+                duty_limit,
+                reset_duty_limit,
+            } => write!(
+                f,
+                "the controller may command {:.0} % but the core resets only up to {:.0} %: in a load step at \
+                 high input it walks up the B-H loop into saturation (lower duty_limit, or fewer reset turns)",
+                duty_limit * 100.0,
+                reset_duty_limit * 100.0
+            ),
+            WarningKind::DutyShort { needed, available } => write!(
+                f,
+                "the output needs {:.0} % duty at the lowest input but the most available is {:.0} %: \
+                 the converter cannot reach its output (more secondary turns or fewer primary turns)",
+                needed * 100.0,
+                available * 100.0
+            ),
+            WarningKind::ResetImpossible { nr, ns } => write!(
+                f,
+                "reset turns ({nr}) are not fewer than the secondary's ({ns}): the core can never reset"
+            ),
+            WarningKind::ResetSteady { ceiling, needed } => write!(
+                f,
+                "reset from the output side takes {:.0} % of every period, so the duty must stay below \
+                 {:.0} %, but {:.0} % is needed",
+                (1.0 - ceiling) * 100.0,
+                ceiling * 100.0,
+                needed * 100.0
+            ),
+            WarningKind::ResetStartup => f.write_str(
+                "with the reset returned to the output, the core cannot reset at start-up while the output is \
+                 near zero: the controller must limit the duty until the output is up",
+            ),
+            WarningKind::Saturation {
+                swing_mt,
+                headroom_mt,
+            } => write!(
+                f,
+                "worst-case flux swing {swing_mt:.0} mT exceeds the {headroom_mt:.0} mT between saturation and \
+                 remanence: the core saturates (more primary turns, a larger core or a lower duty limit)"
+            ),
+            WarningKind::CurrentDensity {
+                winding,
+                density_a_mm2: j,
+                reset: true,
+                ..
+            } => write!(
+                f,
+                "\"{winding}\" runs at {j:.1} A/mm2: a reset winding is thin because it carries only the \
+                 magnetising current, but this one is large (a low AL, a gapped core, or few primary turns): \
+                 use a thicker wire"
+            ),
+            WarningKind::CurrentDensity {
+                winding,
+                density_a_mm2: j,
+                band,
+                reset: false,
+            } => write!(
+                f,
+                "\"{winding}\" runs at {j:.1} A/mm2 RMS, above the {:.0}-{:.0} A/mm2 that small transformers \
+                 usually run at (common practice): expect it to run hot",
+                band.0, band.1
+            ),
+            WarningKind::TemperatureRise {
+                rise_c,
+                limit_c,
+                loss_w,
+                surface_cm2,
+            } => write!(
+                f,
+                "estimated temperature rise {rise_c:.0} C is above the {limit_c:.0} C limit ({loss_w:.2} W over \
+                 {surface_cm2:.1} cm2): less loss (thinner strands, interleaving, more copper) or a larger core"
+            ),
+            WarningKind::AcBifilarPs { primary, secondary } => write!(
+                f,
+                "\"{primary}\" and \"{secondary}\" are wound bifilar together: the layer model cannot give them \
+                 AC figures, so their copper loss is taken at DC resistance and understated"
+            ),
+            WarningKind::IsolationBifilar {
+                class,
+                section,
+                a,
+                b,
+            } => write!(
+                f,
+                "stack #{}: {a} and {b} are wound bifilar across the {} barrier: only the enamel separates \
+                 them (wind them as separate sections with tape between)",
+                section + 1,
+                class.key()
+            ),
+            WarningKind::IsolationWraps {
+                class,
+                wraps,
+                need,
+                inner,
+                outer,
+            } => write!(
+                f,
+                "{} isolation: {wraps} wrap(s) of tape between stack #{} ({}) and stack #{} ({}); the usual \
+                 layout is at least {need} (or triple-insulated wire on one side)",
+                class.key(),
+                inner.0 + 1,
+                inner.1,
+                outer.0 + 1,
+                outer.1
+            ),
+            WarningKind::IsolationMargin {
+                class,
+                margin_mm,
+                creepage_mm,
+            } => write!(
+                f,
+                "{} isolation: margins of {margin_mm:.2} mm at each flange are narrower than half the \
+                 {creepage_mm:.2} mm creepage you set ({:.2} mm): the surface path round the tape edge is about \
+                 the sum of the two margins",
+                class.key(),
+                creepage_mm / 2.0
+            ),
+            WarningKind::IsolationCreepageUnset { class } => write!(
+                f,
+                "{} isolation declared without creepage_mm: the margins cannot be checked (take the distance \
+                 from the applicable standard for your working voltage)",
+                class.key()
+            ),
+        }
+    }
+}
+
+/// A remark that is not a warning: what a figure had to leave out, or what the model cannot
+/// see.
+#[derive(Debug, Clone, PartialEq)]
+pub enum Note {
+    /// Bifilar sections, as (winding, with) in stack order, a repeat of the one before left out.
+    BifilarPairs(Vec<(Name, Name)>),
+    NoCoreData,
+    NoInductance,
+    NoSteinmetz,
+    SurfaceEstimated,
+    NoCurrent(Vec<Name>),
+}
+
+impl fmt::Display for Note {
+    fn fmt(&self, f: &mut fmt::Formatter<'_>) -> fmt::Result {
+        match self {
+            Note::BifilarPairs(pairs) => {
+                f.write_str("bifilar sections (")?;
+                for (i, (a, b)) in pairs.iter().enumerate() {
+                    if i > 0 {
+                        f.write_str(", ")?;
+                    }
+                    write!(f, "{a} with {b}")?;
+                }
+                f.write_str(
+                    ") share their layers: the 1-D model sees no leakage between the two windings of a pair",
+                )
+            }
+            Note::NoCoreData => f.write_str(
+                "the bobbin has no [core] data (ae_mm2, le_mm): flux swing, magnetising current, core loss and \
+                 the surface-area estimate for the temperature rise are left out",
+            ),
+            Note::NoInductance => f.write_str(
+                "no al_nh in [core] and no mu_i in [material]: the magnetising current is taken as zero",
+            ),
+            Note::NoSteinmetz => {
+                f.write_str("no steinmetz coefficients in [material]: core loss is left out")
+            }
+            Note::SurfaceEstimated => write!(
+                f,
+                "surface area estimated as {SURFACE_KS:.1} x sqrt(Wa Ae) with the bobbin window as Wa \
+                 (McLyman; errs toward a higher rise); give [operating] surface_area_cm2 to use a measured one"
+            ),
+            Note::NoCurrent(windings) => {
+                f.write_str("no current for ")?;
+                for (i, w) in windings.iter().enumerate() {
+                    if i > 0 {
+                        f.write_str(", ")?;
+                    }
+                    f.write_str(w)?;
+                }
+                f.write_str(": its copper loss is not counted (give current_rms_a)")
+            }
+        }
+    }
+}
