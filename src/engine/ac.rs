@@ -80,10 +80,15 @@ pub fn layer_factor_from(terms: (f64, f64), f_a: f64, f_b: f64) -> f64 {
 
 /// `layer_factor` by [`d_terms`]: the same formula, about five times cheaper.
 pub fn layer_factor_fast(d: f64, f_a: f64, f_b: f64) -> f64 {
+    layer_factor_by(d, f_a, f_b, d_terms)
+}
+
+/// [`layer_factor_fast`] with the terms of D from `terms` (a memo of [`d_terms`]).
+pub fn layer_factor_by(d: f64, f_a: f64, f_b: f64, terms: impl FnOnce(f64) -> (f64, f64)) -> f64 {
     if f_b == f_a || d < D_SMALL || !d.is_finite() {
         return 1.0;
     }
-    layer_factor_from(d_terms(d), f_a, f_b)
+    layer_factor_from(terms(d), f_a, f_b)
 }
 
 /// Dowell's m-layer formula for a portion whose MMF starts at zero:

@@ -9,11 +9,11 @@ use super::leakage;
 use super::limits::{self, CURRENT_DENSITY_BAND_A_MM2, Constraint, Limit};
 use super::losses::{self, LossEval};
 use super::memo::Memo;
-pub use super::name::Name;
 use super::remarks::{Note, Warning, WarningAt, WarningKind};
 use super::resistance::{area_mm2, ohm_per_m, rho_ohm_m};
 use super::validate::validate_resolved;
 use super::warnings;
+pub use crate::model::Name;
 use crate::model::{Build, Role};
 
 #[derive(Debug, Clone, PartialEq)]
@@ -138,39 +138,17 @@ pub(super) fn evaluate(build: &Build, memo: &mut Memo) -> Evaluation {
     let build_height_mm: f64 = laid.iter().map(|l| l.height_mm).sum();
     let height_with_allowance_mm = build_height_mm * build.setup.bulge;
     let fits = height_with_allowance_mm <= window.height_mm + FIT_TOLERANCE_MM;
-    let names: Vec<Name> = build
-        .windings
-        .iter()
-        .map(|w| Name::from(&*w.name))
-        .collect();
 
-    // Lengths: every layer a winding appears in, as `winding` or as bifilar `with`.
-    let mut length_mm = vec![0.0; build.windings.len()];
-    for l in &laid {
-        if let LaidKind::Winding {
-            winding,
-            with,
-            layers,
-            ..
-        } = &l.kind
-        {
-            for k in [*winding, *with].into_iter().flatten() {
-                length_mm[k] += layers
-                    .iter()
-                    .map(|ly| f64::from(ly.turns) * ly.mlt_mm)
-                    .sum::<f64>();
-            }
-        }
-    }
     let mut windings: Vec<WindingEval> = build
         .windings
         .iter()
         .enumerate()
         .map(|(i, w)| {
             let copper_area_mm2 = f64::from(w.strands) * area_mm2(wires[i].bare_mm);
-            let length_m = length_mm[i] * MM;
+            let length_mm = winding_length_mm(&laid, i);
+            let length_m = length_mm * MM;
             WindingEval {
-                name: names[i].clone(),
+                name: w.name.clone(),
                 role: w.role,
                 turns: w.turns,
                 strands: w.strands,
@@ -179,7 +157,7 @@ pub(super) fn evaluate(build: &Build, memo: &mut Memo) -> Evaluation {
                 copper_area_mm2,
                 length_m,
                 mlt_mm: if w.turns > 0 {
-                    length_mm[i] / f64::from(w.turns)
+                    length_mm / f64::from(w.turns)
                 } else {
                     0.0
                 },
@@ -208,7 +186,7 @@ pub(super) fn evaluate(build: &Build, memo: &mut Memo) -> Evaluation {
         0.0
     };
 
-    let leakage = leakage_pairs(build, &names, &laid);
+    let leakage = leakage_pairs(build, &laid);
     let problems = validate_resolved(build, &resolved);
     let mut converter = if problems.is_empty() {
         converter::evaluate(build)
@@ -251,11 +229,11 @@ pub(super) fn evaluate(build: &Build, memo: &mut Memo) -> Evaluation {
     }
     let losses = converter
         .as_ref()
-        .map(|c| losses::evaluate(build, c, &windings));
+        .map(|c| losses::evaluate(build, c, &windings, memo));
     // Last, since the layers move into the sections.
     let sections = laid
         .into_iter()
-        .map(|l| section_eval(&names, l, window.height_mm))
+        .map(|l| section_eval(build, l, window.height_mm))
         .collect();
 
     let mut eval = Evaluation {
@@ -282,7 +260,30 @@ pub(super) fn evaluate(build: &Build, memo: &mut Memo) -> Evaluation {
     eval
 }
 
-fn section_eval(names: &[Name], l: Laid, window_height_mm: f64) -> SectionEval {
+/// A winding's length: every layer it appears in, as `winding` or as bifilar `with`.
+fn winding_length_mm(laid: &[Laid], k: usize) -> f64 {
+    let mut length_mm = 0.0;
+    for l in laid {
+        if let LaidKind::Winding {
+            winding,
+            with,
+            layers,
+            ..
+        } = &l.kind
+        {
+            let times = usize::from(*winding == Some(k)) + usize::from(*with == Some(k));
+            for _ in 0..times {
+                length_mm += layers
+                    .iter()
+                    .map(|ly| f64::from(ly.turns) * ly.mlt_mm)
+                    .sum::<f64>();
+            }
+        }
+    }
+    length_mm
+}
+
+fn section_eval(build: &Build, l: Laid, window_height_mm: f64) -> SectionEval {
     let past_window = l.y_mm + l.height_mm > window_height_mm + FIT_TOLERANCE_MM;
     match l.kind {
         LaidKind::Tape { wraps } => SectionEval {
@@ -302,7 +303,7 @@ fn section_eval(names: &[Name], l: Laid, window_height_mm: f64) -> SectionEval {
             layer_tape,
             layers,
         } => {
-            let name = |i: Option<usize>| i.map(|i| names[i].clone());
+            let name = |i: Option<usize>| i.map(|i| build.windings[i].name.clone());
             let weighted: f64 = layers
                 .iter()
                 .map(|ly| f64::from(ly.turns) * ly.mlt_mm)
@@ -344,8 +345,10 @@ fn section_eval(names: &[Name], l: Laid, window_height_mm: f64) -> SectionEval {
 }
 
 /// Every primary-secondary and primary-reset pair, referred to the primary.
-fn leakage_pairs(build: &Build, names: &[Name], laid: &[Laid]) -> Vec<LeakageEval> {
-    let mut out = Vec::new();
+fn leakage_pairs(build: &Build, laid: &[Laid]) -> Vec<LeakageEval> {
+    let count = |role: Role| build.windings.iter().filter(|w| w.role == role).count();
+    let mut out =
+        Vec::with_capacity(count(Role::Primary) * (count(Role::Secondary) + count(Role::Reset)));
     for (pi, p) in build
         .windings
         .iter()
@@ -368,9 +371,9 @@ fn leakage_pairs(build: &Build, names: &[Name], laid: &[Laid]) -> Vec<LeakageEva
                     (oi, o.turns),
                 );
                 out.push(LeakageEval {
-                    from: names[pi].clone(),
-                    to: names[oi].clone(),
-                    referred_to: names[pi].clone(),
+                    from: p.name.clone(),
+                    to: o.name.clone(),
+                    referred_to: p.name.clone(),
                     uh: l_h * 1e6,
                 });
             }
@@ -400,7 +403,7 @@ impl AcSums {
     /// Add one layer: its D at the switching frequency, the MMF at its faces and its length.
     fn layer(&mut self, memo: &mut Memo, d: f64, f_a: f64, f_b: f64, length: f64) {
         self.length += length;
-        self.sine += ac::layer_factor_fast(d, f_a, f_b) * length;
+        self.sine += memo.layer_factor(d, f_a, f_b) * length;
         if let Some((si, dc, rms_sq)) = self.spectrum {
             // Hurley's sum is linear in each layer's two Dowell terms, and layers of the same
             // turns share their D: the harmonics are summed once per distinct D (memoised).
@@ -552,13 +555,14 @@ fn ac_figures(
 
 /// Fit, duty, saturation, temperature and current density, binding first.
 fn design_limits(eval: &Evaluation) -> Vec<Limit> {
-    let mut out = vec![Limit::new(
+    let mut out = Vec::with_capacity(Constraint::ALL.len());
+    out.push(Limit::new(
         Constraint::Fit,
         eval.height_with_allowance_mm,
         eval.window_height_mm,
         "mm",
         None,
-    )];
+    ));
     if let Some(c) = &eval.converter {
         out.push(Limit::new(
             Constraint::ResetDuty,

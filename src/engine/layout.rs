@@ -3,7 +3,7 @@
 use super::constants::TURNS_PER_LAYER_EPS;
 use super::geometry::mlt_at_mm;
 use crate::library::wires::{self, ResolvedWire};
-use crate::model::{Build, Section};
+use crate::model::{Build, Section, SectionRef};
 
 /// One layer of a winding section, as laid.
 #[derive(Debug, Clone, PartialEq)]
@@ -49,19 +49,15 @@ pub enum LaidKind {
 pub struct Resolved {
     /// In `build.windings` order.
     pub wires: Vec<ResolvedWire>,
-    /// Per stack section, see [`Build::section_windings`].
-    pub section_windings: Vec<(Option<usize>, Option<usize>)>,
-    /// Per stack section, see [`Build::section_turns`].
-    pub section_turns: Vec<u32>,
+    /// In `build.stack` order.
+    pub sections: Vec<SectionRef>,
 }
 
 impl Resolved {
     pub fn new(build: &Build) -> Self {
-        let section_windings = build.section_windings();
         Resolved {
             wires: resolved_wires(build),
-            section_turns: build.section_turns_of(&section_windings),
-            section_windings,
+            sections: build.section_refs(),
         }
     }
 }
@@ -101,12 +97,8 @@ pub fn lay_out(build: &Build, resolved: &Resolved) -> Vec<Laid> {
     let wires = &resolved.wires;
     let mut y = 0.0;
     let mut out = Vec::with_capacity(build.stack.len());
-    for ((section, &turns), &(wi, with)) in build
-        .stack
-        .iter()
-        .zip(&resolved.section_turns)
-        .zip(&resolved.section_windings)
-    {
+    for (section, r) in build.stack.iter().zip(&resolved.sections) {
+        let (wi, with, turns) = (r.winding, r.with, r.turns);
         let laid = match section {
             Section::Tape { wraps } => Laid {
                 y_mm: y,

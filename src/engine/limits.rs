@@ -22,6 +22,14 @@ pub enum Constraint {
 }
 
 impl Constraint {
+    pub const ALL: [Constraint; 5] = [
+        Constraint::Fit,
+        Constraint::ResetDuty,
+        Constraint::Saturation,
+        Constraint::TemperatureRise,
+        Constraint::CurrentDensity,
+    ];
+
     pub fn key(self) -> &'static str {
         match self {
             Constraint::Fit => "fit",

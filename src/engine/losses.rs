@@ -4,6 +4,7 @@ use super::converter::ConverterEval;
 use super::core_loss;
 use super::evaluation::{Name, WindingEval};
 use super::magnetics;
+use super::memo::Memo;
 use super::thermal::{self, DEFAULT_RISE_LIMIT_C};
 use crate::model::{Build, ResetSide};
 
@@ -31,7 +32,12 @@ pub struct LossEval {
 }
 
 /// `windings` carry their copper loss already.
-pub fn evaluate(build: &Build, c: &ConverterEval, windings: &[WindingEval]) -> LossEval {
+pub fn evaluate(
+    build: &Build,
+    c: &ConverterEval,
+    windings: &[WindingEval],
+    memo: &mut Memo,
+) -> LossEval {
     let op = build.operating.as_ref();
     let copper_loss_w = windings.iter().filter_map(|w| w.copper_loss_w).sum();
     let windings_without_current = windings
@@ -60,7 +66,12 @@ pub fn evaluate(build: &Build, c: &ConverterEval, windings: &[WindingEval]) -> L
             .as_ref()
             .and_then(|m| m.steinmetz)
             .filter(|_| duty > 0.0 && reset > 0.0 && f_khz > 0.0)
-            .map(|s| core_loss::forward_kw_m3(s.k, s.alpha, s.beta, f_khz, swing_t, duty, reset));
+            .map(|s| {
+                let inputs = [s.k, s.alpha, s.beta, f_khz, swing_t, duty, reset];
+                memo.core_loss(inputs, || {
+                    core_loss::forward_kw_m3(s.k, s.alpha, s.beta, f_khz, swing_t, duty, reset)
+                })
+            });
         core_figures = Some((density, volume, swing_t * 1e3, duty, reset));
     }
     let core_loss_kw_m3 = core_figures.and_then(|f| f.0);

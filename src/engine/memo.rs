@@ -2,6 +2,7 @@
 //! harmonic-summed Dowell terms per layer D), kept across evaluations of builds that share
 //! them, as the search's candidates do. It changes no figure: `evaluate` starts an empty one.
 
+use super::ac;
 use super::harmonics::{self, HARMONICS, Spectrum, Waveform};
 use std::collections::HashMap;
 use std::hash::{BuildHasherDefault, Hasher};
@@ -14,6 +15,11 @@ pub struct Memo {
     spectra: Vec<(Waveform, Spectrum)>,
     /// (index into `spectra`, D bits) -> the summed terms.
     terms: HashMap<(usize, u64), (f64, f64), BuildHasherDefault<WordHasher>>,
+    /// D bits -> the terms of D at the switching frequency alone.
+    sine_terms: HashMap<u64, (f64, f64), BuildHasherDefault<WordHasher>>,
+    /// The last core-loss density asked for, by the bits of its inputs: the candidates of a
+    /// search share their operating point, so one entry serves them all.
+    core_loss: Option<([u64; 7], f64)>,
 }
 
 impl Memo {
@@ -37,6 +43,33 @@ impl Memo {
 
     pub fn spectrum_of(&self, index: usize) -> &Spectrum {
         &self.spectra[index].1
+    }
+
+    /// [`ac::layer_factor_fast`], the terms of each D found once.
+    pub fn layer_factor(&mut self, d: f64, f_a: f64, f_b: f64) -> f64 {
+        ac::layer_factor_by(d, f_a, f_b, |d| {
+            if self.sine_terms.len() >= MAX_ENTRIES {
+                self.sine_terms.clear();
+            }
+            *self
+                .sine_terms
+                .entry(d.to_bits())
+                .or_insert_with(|| ac::d_terms(d))
+        })
+    }
+
+    /// A core-loss density computed by `compute` from the figures in `inputs`, reused while
+    /// the inputs stay the same.
+    pub fn core_loss(&mut self, inputs: [f64; 7], compute: impl FnOnce() -> f64) -> f64 {
+        let key = inputs.map(f64::to_bits);
+        match self.core_loss {
+            Some((k, v)) if k == key => v,
+            _ => {
+                let v = compute();
+                self.core_loss = Some((key, v));
+                v
+            }
+        }
     }
 
     /// [`harmonics::summed_terms`] of a memoised spectrum.
@@ -96,5 +129,37 @@ mod tests {
             assert_eq!(memo.summed_terms(s, d), harmonics::summed_terms(&fresh, d));
         }
         assert_eq!(memo.spectrum(&wave), s);
+    }
+
+    /// The memoised sinusoidal layer factor is the plain one, for resistive, thin and thick
+    /// layers alike.
+    #[test]
+    fn memoised_layer_factor_equals_fresh_one() {
+        let mut memo = Memo::new();
+        for (d, f_a, f_b) in [
+            (0.5, 0.0, 3.0),
+            (2.0, -1.0, 2.0),
+            (2.0, 1.0, 1.0),
+            (1e-5, 0.0, 1.0),
+        ] {
+            for _ in 0..2 {
+                assert_eq!(
+                    memo.layer_factor(d, f_a, f_b),
+                    ac::layer_factor_fast(d, f_a, f_b)
+                );
+            }
+        }
+    }
+
+    /// The core-loss entry is recomputed when any input changes, and only then.
+    #[test]
+    fn core_loss_entry_follows_its_inputs() {
+        let mut memo = Memo::new();
+        let a = [1.0, 1.5, 2.5, 100.0, 0.1, 0.4, 0.4];
+        assert_eq!(memo.core_loss(a, || 1.0), 1.0);
+        assert_eq!(memo.core_loss(a, || 2.0), 1.0);
+        let mut b = a;
+        b[4] = 0.2;
+        assert_eq!(memo.core_loss(b, || 3.0), 3.0);
     }
 }

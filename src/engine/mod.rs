@@ -17,7 +17,6 @@ pub mod limits;
 pub mod losses;
 pub mod magnetics;
 pub mod memo;
-mod name;
 mod remarks;
 pub mod resistance;
 pub mod search;

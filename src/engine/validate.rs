@@ -288,8 +288,6 @@ pub(super) fn validate_resolved(build: &Build, resolved: &Resolved) -> Vec<Inval
             .collect::<Vec<_>>()
             .join(", ")
     };
-    let turns = &resolved.section_turns;
-    let mut sums = vec![0u64; build.windings.len()];
     let wires = &resolved.wires;
     let w_u = usable_width_mm(build);
     for (i, section) in build.stack.iter().enumerate() {
@@ -305,7 +303,8 @@ pub(super) fn validate_resolved(build: &Build, resolved: &Resolved) -> Vec<Inval
                 }
             }
             Section::Winding(ws) => {
-                let (a, with) = resolved.section_windings[i];
+                let r = resolved.sections[i];
+                let (a, with) = (r.winding, r.with);
                 if a.is_none() {
                     bad(
                         Place::Section(i, "winding"),
@@ -340,16 +339,13 @@ pub(super) fn validate_resolved(build: &Build, resolved: &Resolved) -> Vec<Inval
                         format!("{} wraps is more than {MAX_WRAPS}", ws.layer_tape),
                     );
                 }
-                if turns[i] == 0 {
+                if r.turns == 0 {
                     let why = if ws.turns.is_some() {
                         "must be at least 1".to_string()
                     } else {
                         format!("no turns of \"{}\" are left for this section", ws.winding)
                     };
                     bad(Place::Section(i, "turns"), why);
-                }
-                for k in [a, c].into_iter().flatten() {
-                    sums[k] += u64::from(turns[i]);
                 }
                 if let Some(a) = a {
                     let pitch = f64::from(build.windings[a].strands.max(1)) * wires[a].od_mm
@@ -369,8 +365,17 @@ pub(super) fn validate_resolved(build: &Build, resolved: &Resolved) -> Vec<Inval
         }
     }
     for (k, w) in build.windings.iter().enumerate() {
-        if w.turns > 0 && sums[k] != u64::from(w.turns) {
-            let msg = if sums[k] == 0 {
+        // Every section that winds it, as the winding or as the bifilar partner.
+        let sum: u64 = resolved
+            .sections
+            .iter()
+            .map(|r| {
+                u64::from(r.turns) * u64::from(r.winding == Some(k))
+                    + u64::from(r.turns) * u64::from(r.with == Some(k))
+            })
+            .sum();
+        if w.turns > 0 && sum != u64::from(w.turns) {
+            let msg = if sum == 0 {
                 format!(
                     "\"{}\" has {} turns but no [[stack]] section winds it",
                     w.name, w.turns
@@ -378,7 +383,7 @@ pub(super) fn validate_resolved(build: &Build, resolved: &Resolved) -> Vec<Inval
             } else {
                 format!(
                     "the sections of \"{}\" add up to {} turns, but the winding has {}",
-                    w.name, sums[k], w.turns
+                    w.name, sum, w.turns
                 )
             };
             bad(Place::Winding(k, "turns"), msg);

@@ -14,9 +14,11 @@ pub const FILL_FACTOR_HAND_LIMIT: f64 = 0.45;
 /// its end turns up onto the tape (common practice: one turn fewer per layer).
 pub const MARGIN_CROWDING_PITCHES: f64 = 0.25;
 
-/// `problems` are `validate(build)`, found once by the caller.
+/// Sets the evaluation's warnings and notes. `problems` are `validate(build)`, found once by
+/// the caller.
 pub(super) fn collect(build: &Build, problems: &[Invalid], eval: &mut Evaluation) {
-    let mut out = Vec::new();
+    // Room for what most builds get, so that the list rarely grows.
+    let mut out = Vec::with_capacity(problems.len() + 8);
     let mut warn = |at: WarningAt, kind: WarningKind| out.push(Warning { at, kind });
 
     for problem in problems {
@@ -119,7 +121,7 @@ pub(super) fn collect(build: &Build, problems: &[Invalid], eval: &mut Evaluation
     let mut notes = Vec::new();
     operating_warnings(build, eval, &mut warn, &mut notes);
     eval.warnings = out;
-    eval.notes.extend(notes);
+    eval.notes = notes;
 
     let mut bifilar: Vec<(Name, Name)> = eval
         .sections

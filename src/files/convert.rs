@@ -352,7 +352,7 @@ pub(super) fn build(
         };
         spans.winding.push(m);
         windings.push(Winding {
-            name: w.name.into_inner(),
+            name: w.name.into_inner().into(),
             role,
             turns: w.turns.into_inner(),
             wire,

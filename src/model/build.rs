@@ -1,6 +1,6 @@
 //! A winding build: the bobbin, the setup, the windings and the stack from the tube outward.
 
-use super::{Bobbin, Insulation, Isolation, Material, Operating, WireSize};
+use super::{Bobbin, Insulation, Isolation, Material, Name, Operating, WireSize};
 
 #[derive(Debug, Clone, Copy, PartialEq, Eq, Hash)]
 pub enum Role {
@@ -58,7 +58,7 @@ impl Default for Setup {
 
 #[derive(Debug, Clone, PartialEq)]
 pub struct Winding {
-    pub name: String,
+    pub name: Name,
     pub role: Role,
     pub turns: u32,
     pub wire: WireSize,
@@ -67,6 +67,17 @@ pub struct Winding {
     pub current_rms_a: Option<f64>,
     pub start_pin: Option<String>,
     pub finish_pin: Option<String>,
+}
+
+/// A stack section as the engine reads it: the windings it names, as indices into
+/// `Build::windings` (`None` for tape and for a name no winding has), and its turns (0 for
+/// tape).
+#[derive(Debug, Clone, Copy, Default, PartialEq, Eq)]
+pub struct SectionRef {
+    pub winding: Option<usize>,
+    /// The bifilar partner.
+    pub with: Option<usize>,
+    pub turns: u32,
 }
 
 /// One winding section of the stack (optionally bifilar with a second winding).
@@ -114,19 +125,48 @@ impl Build {
         self.windings.iter().find(|w| w.role == role)
     }
 
-    /// The windings each stack section names, as indices into `windings`: (the winding, its
-    /// bifilar partner); `None` for tape and for a name no winding has.
-    pub fn section_windings(&self) -> Vec<(Option<usize>, Option<usize>)> {
-        self.stack
+    /// Every stack section with its names resolved and its turns found (see
+    /// [`Build::section_turns`]).
+    pub fn section_refs(&self) -> Vec<SectionRef> {
+        let mut refs: Vec<SectionRef> = self
+            .stack
             .iter()
             .map(|s| match s {
-                Section::Tape { .. } => (None, None),
-                Section::Winding(ws) => (
-                    self.winding_index(&ws.winding),
-                    ws.with.as_deref().and_then(|w| self.winding_index(w)),
-                ),
+                Section::Tape { .. } => SectionRef::default(),
+                Section::Winding(ws) => SectionRef {
+                    winding: self.winding_index(&ws.winding),
+                    with: ws.with.as_deref().and_then(|w| self.winding_index(w)),
+                    turns: ws.turns.unwrap_or(0),
+                },
             })
-            .collect()
+            .collect();
+        // Per winding: (turns stated by sections, turns taken by defaulted sections so far).
+        // A name no winding has (refused by validation) counts nowhere.
+        let mut taken = vec![(0u64, 0u64); self.windings.len()];
+        let stated = |s: &Section| matches!(s, Section::Winding(ws) if ws.turns.is_some());
+        for (s, r) in self.stack.iter().zip(&refs) {
+            if stated(s) {
+                for i in [r.winding, r.with].into_iter().flatten() {
+                    taken[i].0 += u64::from(r.turns);
+                }
+            }
+        }
+        for (s, r) in self.stack.iter().zip(&mut refs) {
+            if !matches!(s, Section::Winding(_)) || stated(s) {
+                continue;
+            }
+            let Some(i) = r.winding else {
+                continue;
+            };
+            let total = u64::from(self.windings[i].turns);
+            let left = total.saturating_sub(taken[i].0 + taken[i].1);
+            taken[i].1 += left;
+            if let Some(j) = r.with {
+                taken[j].1 += left;
+            }
+            r.turns = u32::try_from(left).unwrap_or(u32::MAX);
+        }
+        refs
     }
 
     /// Resolved turns of every section (tape sections get 0).
@@ -135,44 +175,6 @@ impl Build {
     /// its winding after every section that states turns for that winding (anywhere in the
     /// stack, bifilar `with` sections included) and every earlier section that did not.
     pub fn section_turns(&self) -> Vec<u32> {
-        self.section_turns_of(&self.section_windings())
-    }
-
-    /// [`Build::section_turns`], given what [`Build::section_windings`] gives.
-    pub fn section_turns_of(&self, indices: &[(Option<usize>, Option<usize>)]) -> Vec<u32> {
-        // Per winding: (turns stated by sections, turns taken by defaulted sections so far).
-        // A name no winding has (refused by validation) counts nowhere.
-        let mut taken = vec![(0u64, 0u64); self.windings.len()];
-        for (s, &(a, b)) in self.stack.iter().zip(indices) {
-            if let Section::Winding(ws) = s
-                && let Some(t) = ws.turns
-            {
-                for i in [a, b].into_iter().flatten() {
-                    taken[i].0 += u64::from(t);
-                }
-            }
-        }
-        self.stack
-            .iter()
-            .zip(indices)
-            .map(|(s, &(a, b))| match s {
-                Section::Tape { .. } => 0,
-                Section::Winding(ws) => match ws.turns {
-                    Some(t) => t,
-                    None => {
-                        let Some(i) = a else {
-                            return 0;
-                        };
-                        let total = u64::from(self.windings[i].turns);
-                        let left = total.saturating_sub(taken[i].0 + taken[i].1);
-                        taken[i].1 += left;
-                        if let Some(j) = b {
-                            taken[j].1 += left;
-                        }
-                        u32::try_from(left).unwrap_or(u32::MAX)
-                    }
-                },
-            })
-            .collect()
+        self.section_refs().into_iter().map(|r| r.turns).collect()
     }
 }

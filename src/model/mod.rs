@@ -4,11 +4,13 @@
 mod bobbin;
 mod build;
 mod isolation;
+mod name;
 mod operating;
 mod wire;
 
 pub use bobbin::{Bobbin, Core, Tube, Window};
-pub use build::{BobbinSource, Build, Role, Section, Setup, Winding, WindingSection};
+pub use build::{BobbinSource, Build, Role, Section, SectionRef, Setup, Winding, WindingSection};
 pub use isolation::{Isolation, IsolationClass};
+pub use name::Name;
 pub use operating::{Material, Operating, ResetSide, Steinmetz};
 pub use wire::{Insulation, WireSize, trim_mm};

@@ -520,7 +520,7 @@ impl App {
         self.build
             .windings
             .get(self.winding_sel)
-            .map(|w| w.name.clone())
+            .map(|w| w.name.to_string())
             .unwrap_or_default()
     }
 
@@ -1005,7 +1005,7 @@ impl App {
                     w.wire,
                     w.turns
                 ),
-                value: PickValue::Partner(Some(w.name.clone())),
+                value: PickValue::Partner(Some(w.name.to_string())),
             });
         }
         let selected = items
@@ -1032,7 +1032,7 @@ impl App {
         for w in &self.build.windings {
             items.push(PickItem {
                 label: format!("a share of {} (half of its outermost section)", w.name),
-                value: PickValue::AddShare(w.name.clone()),
+                value: PickValue::AddShare(w.name.to_string()),
             });
         }
         self.overlays.push(Overlay::Picker(Picker {
@@ -1234,7 +1234,7 @@ impl App {
                     w.finish_pin.as_deref().unwrap_or("-")
                 );
                 vec![
-                    (Field::WName(k), "name", w.name.clone()),
+                    (Field::WName(k), "name", w.name.to_string()),
                     (Field::WRole(k), "role", w.role.key().to_string()),
                     (Field::WTurns(k), "turns", w.turns.to_string()),
                     (Field::WWire(k), "wire", w.wire.to_string()),
@@ -1394,7 +1394,7 @@ impl App {
                 .frequency_khz
                 .map(|f| f.to_string())
                 .unwrap_or_default(),
-            Field::WName(k) => w(k).name.clone(),
+            Field::WName(k) => w(k).name.to_string(),
             Field::WTurns(k) => w(k).turns.to_string(),
             Field::WStrands(k) => w(k).strands.to_string(),
             Field::WCurrent(k) => w(k)

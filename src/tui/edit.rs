@@ -367,7 +367,7 @@ pub fn rename(b: &mut Build, k: usize, new: &str) -> Result<(), Refusal> {
     {
         return Err(format!("another winding is already called \"{new}\""));
     }
-    let old = std::mem::replace(&mut b.windings[k].name, new.to_string());
+    let old = std::mem::replace(&mut b.windings[k].name, new.into());
     for s in &mut b.stack {
         if let Section::Winding(ws) = s {
             if ws.winding == old {
@@ -443,7 +443,7 @@ pub fn fresh_name(b: &Build) -> String {
 pub fn add_winding(b: &mut Build) -> Result<usize, Refusal> {
     let name = fresh_name(b);
     b.windings.push(Winding {
-        name: name.clone(),
+        name: name.as_str().into(),
         role: Role::Auxiliary,
         turns: 10,
         wire: WireSize::Metric { bare_mm: 0.25 },

@@ -13,7 +13,7 @@ pub use space::{Arrangement, ResetPlace, WireChoice};
 
 use super::memo::Memo;
 use super::{Evaluation, evaluate_with, validate};
-use crate::model::{Build, Role};
+use crate::model::{Build, Name, Role};
 use std::sync::atomic::{AtomicUsize, Ordering};
 
 /// Which wire series the search draws sizes from.
@@ -169,6 +169,11 @@ pub fn search(
         let (mut evaluated, mut pruned, mut feasible) = (0usize, 0usize, 0usize);
         let mut reasons = space::Reasons::default();
         let mut candidate = build.clone();
+        // Names are shared text whose reference counts every evaluation bumps: each thread
+        // takes copies of its own, or the counts' cache line bounces between the cores.
+        for w in &mut candidate.windings {
+            w.name = Name::from(w.name.as_str());
+        }
         let mut laid_arrangement = None;
         let mut memo = Memo::new();
         let mut combo = space::Combo::default();

@@ -300,7 +300,7 @@ impl<'a> Space<'a> {
     pub fn out_of_band_windings(&self) -> Vec<String> {
         (0..self.choices.len())
             .filter(|&k| !self.choices[k].iter().any(|c| self.in_band(k, c)))
-            .map(|k| self.base.windings[k].name.clone())
+            .map(|k| self.base.windings[k].name.to_string())
             .collect()
     }
 
@@ -386,9 +386,9 @@ impl<'a> Space<'a> {
                 }
             }
             b.stack.push(Section::Winding(WindingSection {
-                winding: self.base.windings[k].name.clone(),
+                winding: self.base.windings[k].name.to_string(),
                 turns: Some(turns),
-                with: with.map(|w| self.base.windings[w].name.clone()),
+                with: with.map(|w| self.base.windings[w].name.to_string()),
                 layer_tape: 0,
             }));
         }

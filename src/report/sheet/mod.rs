@@ -181,7 +181,7 @@ pub fn sheet(build: &Build, eval: &Evaluation, measure_at_c: f64) -> Sheet {
                 CUT_ROUND_MM,
             );
             WireItem {
-                winding: w.name.clone(),
+                winding: w.name.to_string(),
                 role: w.role,
                 wire: wire_label(&w.wire, 1),
                 grade: w.insulation.to_string(),
@@ -240,7 +240,7 @@ pub fn sheet(build: &Build, eval: &Evaluation, measure_at_c: f64) -> Sheet {
         .windings
         .iter()
         .map(|w| Pin {
-            winding: w.name.clone(),
+            winding: w.name.to_string(),
             role: w.role,
             start: w.start_pin.clone(),
             finish: w.finish_pin.clone(),

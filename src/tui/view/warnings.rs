@@ -41,7 +41,7 @@ pub fn draw(app: &App, frame: &mut Frame, area: Rect) {
                 .build
                 .windings
                 .get(*k)
-                .map_or("winding".into(), |w| w.name.clone()),
+                .map_or("winding".into(), |w| w.name.to_string()),
             WarningAt::Converter => "converter".into(),
         };
         let mark = if w.at == selected { "▶" } else { "!" };

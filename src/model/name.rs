@@ -1,5 +1,5 @@
-//! A winding's name as the evaluation carries it: shared, so that the sections, pairs and
-//! warnings that name a winding cost no copy of the text. Reads like a `&str`.
+//! A winding's name: shared, so that the evaluation's sections, pairs and warnings that name
+//! a winding cost no copy of the text. Reads like a `&str`.
 
 use std::fmt;
 use std::ops::Deref;
