@@ -393,3 +393,187 @@ impl fmt::Display for Note {
         }
     }
 }
+
+#[cfg(test)]
+mod tests {
+    use super::*;
+    use crate::engine::validate::Place;
+
+    /// One warning of every kind. The match makes adding a kind without a sample here fail
+    /// to compile (its arm is missing), and the count below fails if a sample is missing.
+    pub(super) fn samples() -> Vec<WarningKind> {
+        let n = || Name::from("P");
+        let class = IsolationClass::Reinforced;
+        vec![
+            WarningKind::Invalid(Invalid {
+                place: Place::Top("stack"),
+                message: "a build needs at least one [[stack]] section".into(),
+            }),
+            WarningKind::DoesNotFit {
+                height_with_allowance_mm: 4.4,
+                bulge: 1.1,
+                window_height_mm: 4.0,
+                over_mm: 0.4,
+            },
+            WarningKind::PastWindow {
+                section: 2,
+                winding: n(),
+            },
+            WarningKind::PartialLayer {
+                section: 0,
+                winding: n(),
+                last_layer_turns: 3,
+                turns_per_layer: 21,
+            },
+            WarningKind::MarginCrowded {
+                section: 0,
+                winding: n(),
+                spare_mm: 0.05,
+            },
+            WarningKind::FillHigh { fill_factor: 0.5 },
+            WarningKind::TiwStrands { winding: n() },
+            WarningKind::ResetBelowController {
+                duty_limit: 0.6,
+                reset_duty_limit: 0.5,
+            },
+            WarningKind::DutyShort {
+                needed: 0.6,
+                available: 0.5,
+            },
+            WarningKind::ResetImpossible { nr: 12, ns: 10 },
+            WarningKind::ResetSteady {
+                ceiling: 0.4,
+                needed: 0.45,
+            },
+            WarningKind::ResetStartup,
+            WarningKind::Saturation {
+                swing_mt: 320.0,
+                headroom_mt: 280.0,
+            },
+            WarningKind::CurrentDensity {
+                winding: n(),
+                density_a_mm2: 7.0,
+                band: (3.0, 6.0),
+                reset: false,
+            },
+            WarningKind::TemperatureRise {
+                rise_c: 60.0,
+                limit_c: 40.0,
+                loss_w: 1.66,
+                surface_cm2: 19.0,
+            },
+            WarningKind::AcBifilarPs {
+                primary: n(),
+                secondary: Name::from("S"),
+            },
+            WarningKind::IsolationBifilar {
+                class,
+                section: 1,
+                a: n(),
+                b: Name::from("S"),
+            },
+            WarningKind::IsolationWraps {
+                class,
+                wraps: 1,
+                need: 3,
+                inner: (0, n()),
+                outer: (2, Name::from("S")),
+            },
+            WarningKind::IsolationMargin {
+                class,
+                margin_mm: 2.0,
+                creepage_mm: 6.0,
+            },
+            WarningKind::IsolationCreepageUnset { class },
+        ]
+    }
+
+    fn ordinal(k: &WarningKind) -> usize {
+        match k {
+            WarningKind::Invalid(_) => 0,
+            WarningKind::DoesNotFit { .. } => 1,
+            WarningKind::PastWindow { .. } => 2,
+            WarningKind::PartialLayer { .. } => 3,
+            WarningKind::MarginCrowded { .. } => 4,
+            WarningKind::FillHigh { .. } => 5,
+            WarningKind::TiwStrands { .. } => 6,
+            WarningKind::ResetBelowController { .. } => 7,
+            WarningKind::DutyShort { .. } => 8,
+            WarningKind::ResetImpossible { .. } => 9,
+            WarningKind::ResetSteady { .. } => 10,
+            WarningKind::ResetStartup => 11,
+            WarningKind::Saturation { .. } => 12,
+            WarningKind::CurrentDensity { .. } => 13,
+            WarningKind::TemperatureRise { .. } => 14,
+            WarningKind::AcBifilarPs { .. } => 15,
+            WarningKind::IsolationBifilar { .. } => 16,
+            WarningKind::IsolationWraps { .. } => 17,
+            WarningKind::IsolationMargin { .. } => 18,
+            WarningKind::IsolationCreepageUnset { .. } => 19,
+        }
+    }
+    const KINDS: usize = 20;
+
+    /// Every kind has a sample, a code of its own, a sentence, and a row in FORMAT.md's
+    /// table of warning codes (the codes are a stable interface, documented there).
+    #[test]
+    fn every_warning_code_is_unique_rendered_and_documented() {
+        let format = include_str!("../../FORMAT.md");
+        let samples = samples();
+        let mut seen: Vec<usize> = samples.iter().map(ordinal).collect();
+        seen.sort_unstable();
+        assert_eq!(seen, (0..KINDS).collect::<Vec<_>>());
+        let mut codes: Vec<&str> = samples.iter().map(WarningKind::code).collect();
+        codes.sort_unstable();
+        codes.dedup();
+        assert_eq!(codes.len(), KINDS);
+        for k in &samples {
+            let text = k.to_string();
+            assert!(
+                text.len() > 20 && !text.contains('{'),
+                "{}: {text}",
+                k.code()
+            );
+            assert!(
+                format.contains(&format!("`{}`", k.code())),
+                "{} is not in FORMAT.md",
+                k.code()
+            );
+        }
+    }
+
+    /// The sentences quote their figures at the precision a winder reads (the project's own
+    /// wording; a regression check of the rendering, no outside source).
+    #[test]
+    fn sentences_quote_their_figures() {
+        let s = samples();
+        assert_eq!(
+            s[1].to_string(),
+            "does not fit: 4.40 mm with the 10 % allowance against a 4.00 mm window, 0.40 mm too tall"
+        );
+        assert_eq!(
+            s[3].to_string(),
+            "section 1 (P): the last layer holds 3 of 21 turns, so the section above sits on a step \
+             and the finish lead crosses over it (spread the turns across the width, or change the turns)"
+        );
+        assert_eq!(
+            s[17].to_string(),
+            "reinforced isolation: 1 wrap(s) of tape between stack #1 (P) and stack #3 (S); the usual \
+             layout is at least 3 (or triple-insulated wire on one side)"
+        );
+        let w = Warning {
+            at: WarningAt::Section(0),
+            kind: s[3].clone(),
+        };
+        assert_eq!(w.code(), "partial-layer");
+        assert_eq!(w.message(), s[3].to_string());
+        let pairs = Note::BifilarPairs(vec![(Name::from("P"), Name::from("R"))]);
+        assert!(
+            pairs
+                .to_string()
+                .starts_with("bifilar sections (P with R) share")
+        );
+        let none = Note::NoCurrent(vec![Name::from("A"), Name::from("B")]);
+        assert!(none.to_string().starts_with("no current for A, B: "));
+    }
+}
