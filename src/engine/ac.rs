@@ -29,7 +29,7 @@ pub fn g2(d: f64) -> f64 {
 
 /// Below this D the layer is resistive to better than 1e-12 and the hyperbolic forms lose
 /// precision to cancellation.
-const D_SMALL: f64 = 1e-3;
+pub const D_SMALL: f64 = 1e-3;
 /// Above this D, sinh and cosh would overflow; G1 -> 1 and G2 -> 0 long before.
 const D_LARGE: f64 = 300.0;
 

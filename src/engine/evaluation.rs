@@ -13,8 +13,7 @@ use super::remarks::{Note, Warning, WarningAt, WarningKind};
 use super::resistance::{area_mm2, ohm_per_m, rho_ohm_m};
 use super::validate::validate_resolved;
 use super::warnings;
-pub use crate::model::Name;
-use crate::model::{Build, Role};
+use crate::model::{Build, Name, Role};
 
 #[derive(Debug, Clone, PartialEq)]
 pub struct Evaluation {
@@ -130,6 +129,7 @@ pub struct LeakageEval {
 }
 
 pub(super) fn evaluate(build: &Build, memo: &mut Memo) -> Evaluation {
+    memo.trim();
     let resolved = layout::Resolved::new(build);
     let wires = &resolved.wires;
     let laid = layout::lay_out(build, &resolved);
@@ -271,6 +271,7 @@ fn winding_length_mm(laid: &[Laid], k: usize) -> f64 {
             ..
         } = &l.kind
         {
+            // Twice for a section bifilar with itself (refused by validation), as a pair.
             let times = usize::from(*winding == Some(k)) + usize::from(*with == Some(k));
             for _ in 0..times {
                 length_mm += layers
@@ -404,10 +405,12 @@ impl AcSums {
     fn layer(&mut self, memo: &mut Memo, d: f64, f_a: f64, f_b: f64, length: f64) {
         self.length += length;
         self.sine += memo.layer_factor(d, f_a, f_b) * length;
-        if let Some((si, dc, rms_sq)) = self.spectrum {
+        if let Some((si, dc, rms_sq)) = self.spectrum
+            && rms_sq > 0.0
+        {
             // Hurley's sum is linear in each layer's two Dowell terms, and layers of the same
             // turns share their D: the harmonics are summed once per distinct D (memoised).
-            let share = if f_b == f_a || d < 1e-3 {
+            let share = if f_b == f_a || d < ac::D_SMALL {
                 rms_sq - dc * dc
             } else {
                 ac::layer_factor_from(memo.summed_terms(si, d), f_a, f_b)
@@ -476,11 +479,7 @@ fn ac_figures(
             sums[s].paired = true;
             let return_per_turn =
                 -f64::from(build.windings[p].turns) / f64::from(build.windings[s].turns.max(1));
-            let weight = |i: usize| match i {
-                _ if i == p => 1.0,
-                _ if i == s => return_per_turn,
-                _ => 0.0,
-            };
+            let weight = leakage::pair_weights(p, s, return_per_turn);
             leakage::for_each_slab_by(laid, weight, |slab| {
                 let Some((si, li)) = slab.layer else { return };
                 let LaidKind::Winding {

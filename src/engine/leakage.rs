@@ -104,6 +104,16 @@ pub fn energy_integral_m2(slabs: &[Slab], tube: &Tube) -> f64 {
     slabs.iter().map(|s| slab_energy_m2(s, tube)).sum()
 }
 
+/// The weights of a pair excitation: unit current in winding `x`, `y_per_turn` ampere-turns
+/// per turn in winding `y` (which wins should the two be one), nothing elsewhere.
+pub fn pair_weights(x: usize, y: usize, y_per_turn: f64) -> impl Fn(usize) -> f64 {
+    move |i| match i {
+        _ if i == y => y_per_turn,
+        _ if i == x => 1.0,
+        _ => 0.0,
+    }
+}
+
 /// Leakage inductance (H) between windings `x` and `y` (index, turns), referred to `x`.
 /// `winding_count` is the number of windings the indices count.
 pub fn leakage_h(
@@ -119,12 +129,7 @@ pub fn leakage_h(
     if ny == 0 || window_width_mm <= 0.0 || xi >= winding_count || yi >= winding_count {
         return 0.0;
     }
-    let return_per_turn = -f64::from(nx) / f64::from(ny);
-    let weight = |i: usize| match i {
-        _ if i == yi => return_per_turn,
-        _ if i == xi => 1.0,
-        _ => 0.0,
-    };
+    let weight = pair_weights(xi, yi, -f64::from(nx) / f64::from(ny));
     let mut energy = 0.0;
     for_each_slab_by(laid, weight, |s| energy += slab_energy_m2(&s, tube));
     MU0_H_PER_M / (window_width_mm * MM) * energy

@@ -1,7 +1,7 @@
 //! What limits the design: each constraint's margin as a fraction of what it allows,
 //! sorted so the binding one (the smallest margin) comes first.
 
-use super::evaluation::Name;
+use crate::model::Name;
 
 /// Current density that small switch-mode transformers run at with natural convection,
 /// 3-6 A/mm^2 RMS (common practice; 500 circular mils per ampere is 3.95 A/mm^2).

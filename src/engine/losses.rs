@@ -2,11 +2,11 @@
 
 use super::converter::ConverterEval;
 use super::core_loss;
-use super::evaluation::{Name, WindingEval};
+use super::evaluation::WindingEval;
 use super::magnetics;
 use super::memo::Memo;
 use super::thermal::{self, DEFAULT_RISE_LIMIT_C};
-use crate::model::{Build, ResetSide};
+use crate::model::{Build, Name, ResetSide};
 
 #[derive(Debug, Clone, PartialEq)]
 pub struct LossEval {

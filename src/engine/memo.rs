@@ -10,6 +10,9 @@ use std::hash::{BuildHasherDefault, Hasher};
 /// Entries kept before the memo starts afresh; a search visits a few dozen distinct wires.
 const MAX_ENTRIES: usize = 4096;
 
+// The memo starts afresh only between evaluations (`trim`), never during one: an evaluation
+// holds the spectrum indices it was handed until it ends.
+
 #[derive(Debug, Default, Clone)]
 pub struct Memo {
     spectra: Vec<(Waveform, Spectrum)>,
@@ -27,14 +30,26 @@ impl Memo {
         Self::default()
     }
 
-    /// The spectrum of a waveform (index, for [`Memo::summed_terms`]).
-    pub fn spectrum(&mut self, wave: &Waveform) -> usize {
-        if let Some(i) = self.spectra.iter().position(|(w, _)| w == wave) {
-            return i;
-        }
+    /// Start afresh where the memo has grown past its size; called before an evaluation, so
+    /// that the indices handed out during one stay valid to its end.
+    pub(super) fn trim(&mut self) {
         if self.spectra.len() >= MAX_ENTRIES {
             self.spectra.clear();
             self.terms.clear();
+        }
+        if self.terms.len() >= MAX_ENTRIES {
+            self.terms.clear();
+        }
+        if self.sine_terms.len() >= MAX_ENTRIES {
+            self.sine_terms.clear();
+        }
+    }
+
+    /// The spectrum of a waveform (index, for [`Memo::summed_terms`]; valid until the
+    /// evaluation ends).
+    pub fn spectrum(&mut self, wave: &Waveform) -> usize {
+        if let Some(i) = self.spectra.iter().position(|(w, _)| w == wave) {
+            return i;
         }
         self.spectra
             .push((wave.clone(), harmonics::spectrum(wave, HARMONICS)));
@@ -48,9 +63,6 @@ impl Memo {
     /// [`ac::layer_factor_fast`], the terms of each D found once.
     pub fn layer_factor(&mut self, d: f64, f_a: f64, f_b: f64) -> f64 {
         ac::layer_factor_by(d, f_a, f_b, |d| {
-            if self.sine_terms.len() >= MAX_ENTRIES {
-                self.sine_terms.clear();
-            }
             *self
                 .sine_terms
                 .entry(d.to_bits())
@@ -77,9 +89,6 @@ impl Memo {
         let key = (spectrum, d.to_bits());
         if let Some(t) = self.terms.get(&key) {
             return *t;
-        }
-        if self.terms.len() >= MAX_ENTRIES {
-            self.terms.clear();
         }
         let t = harmonics::summed_terms(&self.spectra[spectrum].1, d);
         self.terms.insert(key, t);
@@ -149,6 +158,26 @@ mod tests {
                 );
             }
         }
+    }
+
+    /// A memo kept past its size across many evaluations (here: one changed current each
+    /// time) starts afresh between them and gives the figures a fresh evaluation gives.
+    #[test]
+    fn a_full_memo_starts_afresh_between_evaluations() {
+        let path = concat!(env!("CARGO_MANIFEST_DIR"), "/examples/bench-forward.toml");
+        let mut build = crate::files::load_build(std::path::Path::new(path)).unwrap();
+        let mut memo = Memo::new();
+        for n in 0..MAX_ENTRIES + 3 {
+            build.windings[0].current_rms_a = Some(0.5 + n as f64 * 1e-4);
+            if n + 1 == MAX_ENTRIES {
+                build.windings[1].current_rms_a = Some(3.0);
+            }
+            let e = crate::engine::evaluate_with(&build, &mut memo);
+            if n + 3 >= MAX_ENTRIES {
+                assert_eq!(e, crate::engine::evaluate(&build));
+            }
+        }
+        assert!(memo.spectra.len() < MAX_ENTRIES);
     }
 
     /// The core-loss entry is recomputed when any input changes, and only then.

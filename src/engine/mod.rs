@@ -27,7 +27,7 @@ mod warnings;
 pub use converter::ConverterEval;
 pub use currents::CurrentSource;
 pub use evaluation::{
-    AcFigures, Evaluation, LayerEval, LeakageEval, Name, SectionEval, SectionKind, WindingEval,
+    AcFigures, Evaluation, LayerEval, LeakageEval, SectionEval, SectionKind, WindingEval,
 };
 pub use limits::{Constraint, Limit};
 pub use losses::LossEval;

@@ -3,11 +3,10 @@
 //! sentence a person reads is rendered from it only when a front end shows it, so that an
 //! evaluation nobody reads (the search's candidates) spends nothing on text.
 
-use super::evaluation::Name;
 use super::thermal::SURFACE_KS;
 use super::validate::Invalid;
 use super::warnings::FILL_FACTOR_HAND_LIMIT;
-use crate::model::IsolationClass;
+use crate::model::{IsolationClass, Name};
 use std::fmt;
 
 /// What a warning is about, so that every front end can show it next to that thing.

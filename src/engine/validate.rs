@@ -369,10 +369,9 @@ pub(super) fn validate_resolved(build: &Build, resolved: &Resolved) -> Vec<Inval
         let sum: u64 = resolved
             .sections
             .iter()
-            .map(|r| {
-                u64::from(r.turns) * u64::from(r.winding == Some(k))
-                    + u64::from(r.turns) * u64::from(r.with == Some(k))
-            })
+            .flat_map(|r| [(r.winding, r.turns), (r.with, r.turns)])
+            .filter(|&(i, _)| i == Some(k))
+            .map(|(_, turns)| u64::from(turns))
             .sum();
         if w.turns > 0 && sum != u64::from(w.turns) {
             let msg = if sum == 0 {

@@ -1,10 +1,10 @@
 //! Warnings as data: what a winder should know about a build that is valid but risky.
 
-use super::evaluation::{Evaluation, Name, SectionKind};
+use super::evaluation::{Evaluation, SectionKind};
 use super::limits::CURRENT_DENSITY_BAND_A_MM2;
 use super::remarks::{Note, Warning, WarningAt, WarningKind};
 use super::validate::Invalid;
-use crate::model::{Build, Insulation};
+use crate::model::{Build, Insulation, Name};
 
 /// Window utilisation that hand winding on a bobbin rarely beats: about 0.3-0.5 of the window
 /// is copper (McLyman, Transformer and Inductor Design Handbook, window utilisation K_u ~ 0.4).

@@ -211,14 +211,14 @@ pub fn search(
                 spare_height_mm: eval.spare_height_mm,
             };
             let coarse = objectives.coarse();
-            // Indices rise within a thread, so of equal candidates the first stays.
-            if front
-                .iter()
-                .any(|(_, o, _)| o.dominates(&coarse) || *o == coarse)
-            {
+            // Of candidates alike at the front's resolution the finer one stays (see
+            // `Objectives::finer`); indices rise within a thread, so of exact equals the first.
+            if front.iter().any(|(_, o, c)| {
+                o.dominates(&coarse) || (*o == coarse && !objectives.finer(&c.objectives))
+            }) {
                 continue;
             }
-            front.retain(|(_, o, _)| !coarse.dominates(o));
+            front.retain(|(_, o, _)| !(coarse.dominates(o) || *o == coarse));
             front.push((
                 index,
                 coarse,
@@ -256,7 +256,9 @@ pub fn search(
         feasible += f;
         reasons.merge(&r);
     }
-    all.sort_by_key(|(i, _, _)| *i);
+    // Finest first, then by index: the first of each alike group is the one the front keeps,
+    // whichever thread found it.
+    all.sort_by(|(i, _, a), (k, _, b)| a.objectives.exact_cmp(&b.objectives).then(i.cmp(k)));
     let coarse: Vec<Objectives> = all.iter().map(|(_, o, _)| *o).collect();
     let keep = pareto_indices(&coarse);
     let mut candidates: Vec<Candidate> = keep.into_iter().map(|k| all[k].2.clone()).collect();

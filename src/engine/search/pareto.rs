@@ -28,6 +28,20 @@ impl Objectives {
         }
     }
 
+    /// The exact objectives in the order the front prefers among candidates alike at its
+    /// resolution: least loss, then least leakage, then most spare height.
+    pub fn exact_cmp(&self, other: &Objectives) -> std::cmp::Ordering {
+        self.loss_w
+            .total_cmp(&other.loss_w)
+            .then(self.leakage_uh.total_cmp(&other.leakage_uh))
+            .then(other.spare_height_mm.total_cmp(&self.spare_height_mm))
+    }
+
+    /// Strictly ahead of `other` in [`Objectives::exact_cmp`]'s order.
+    pub fn finer(&self, other: &Objectives) -> bool {
+        self.exact_cmp(other).is_lt()
+    }
+
     /// `self` is at least as good on every objective and strictly better on one.
     pub fn dominates(&self, other: &Objectives) -> bool {
         let no_worse = self.loss_w <= other.loss_w
