@@ -4,7 +4,7 @@
 use super::evaluation::Evaluation;
 use super::remarks::{Warning, WarningAt, WarningKind};
 use super::validate::{Invalid, Place};
-use crate::model::{Build, Insulation, IsolationClass, Role, Section};
+use crate::model::{Build, Insulation, IsolationClass, Role, Section, SectionRef};
 
 /// Tape wraps between primary and secondary for reinforced insulation of thin sheet: three
 /// layers, any two of which pass the test (IEC 60950-1 cl. 2.10.5.6; kept in IEC 62368-1).
@@ -60,18 +60,14 @@ pub fn validate(build: &Build) -> Vec<Invalid> {
     out
 }
 
-/// One winding section's windings (the winding, then its bifilar partner), as (index, side,
+/// One section's windings (the winding, then its bifilar partner), as (index, side,
 /// triple-insulated); empty for tape and for names no winding has.
-fn section_windings(build: &Build, s: &Section) -> SectionWindings {
-    let Section::Winding(ws) = s else {
-        return [None, None];
+fn section_windings(build: &Build, s: &SectionRef) -> SectionWindings {
+    let of = |k: Option<usize>| {
+        let w = &build.windings[k?];
+        Some((k?, side_of(build, w.role), w.insulation == Insulation::Tiw))
     };
-    let of = |name: Option<&str>| {
-        let k = build.winding_index(name?)?;
-        let w = &build.windings[k];
-        Some((k, side_of(build, w.role), w.insulation == Insulation::Tiw))
-    };
-    let (a, b) = (of(Some(&ws.winding)), of(ws.with.as_deref()));
+    let (a, b) = (of(s.winding), of(s.with));
     if a.is_none() { [b, None] } else { [a, b] }
 }
 
@@ -94,7 +90,7 @@ pub fn warnings(build: &Build, eval: &Evaluation) -> Vec<Warning> {
     };
     let class = iso.class;
     let sections: Vec<SectionWindings> = build
-        .stack
+        .section_refs()
         .iter()
         .map(|s| section_windings(build, s))
         .collect();

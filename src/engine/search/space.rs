@@ -263,8 +263,8 @@ impl<'a> Space<'a> {
         self.notes.clone()
     }
 
-    /// Decode an index into `combo`: the wire of each winding in turn are the fastest digits,
-    /// the arrangement the slowest, so that consecutive indices share their stack.
+    /// Decode an index into `combo`: the windings' wire choices are the fastest digits, in
+    /// winding order, and the arrangement the slowest, so consecutive indices share a stack.
     pub fn decode(&self, mut index: usize, combo: &mut Combo) {
         combo.choice.clear();
         for c in &self.choices {
