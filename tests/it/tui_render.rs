@@ -2,9 +2,8 @@
 //! engine's figures appear, an overflow is marked, the help lists every key, small terminals
 //! get a plain message, and no size makes drawing panic.
 
-mod tui_support;
+use crate::tui_support::*;
 use ratatui::style::{Color, Modifier};
-use tui_support::*;
 use turnstack::tui::keymap::BINDINGS;
 use turnstack::tui::theme::Theme;
 use turnstack::tui::view;

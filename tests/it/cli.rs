@@ -2,9 +2,7 @@
 //! 2 bad input), the text report within 80 columns, the JSON report's keys (FORMAT.md "The JSON
 //! report") agreeing with the text, the listings, and the user's bobbin folder.
 
-mod common;
-
-use common::{broken_files, read_expected};
+use crate::common::{broken_files, read_expected};
 use serde_json::Value;
 use std::path::{Path, PathBuf};
 use std::process::{Command, Output};

@@ -2,8 +2,7 @@
 //! material and isolation forms, the ranked bobbin list, the measured core, the sheet prompt
 //! and the search's candidate list; and no panic at any size with each of them open.
 
-mod tui_support;
-use tui_support::*;
+use crate::tui_support::*;
 use turnstack::tui::{App, Effect, run::perform};
 
 /// The demo with each new overlay open, by the keys a user presses.

@@ -1,8 +1,7 @@
 //! App-state tests of the planner: each action changes the Build as intended, undo and redo
 //! round-trip, invalid edits are refused with a message, saving reloads the same build.
 
-mod tui_support;
-use tui_support::*;
+use crate::tui_support::*;
 use turnstack::files::{BobbinLibrary, load_build, parse_build};
 use turnstack::model::{Section, WireSize};
 use turnstack::tui::app::{Focus, Overlay, StatusKind};

@@ -3,9 +3,7 @@
 //! file, the line:column where the toml library gives one, and the key. Also: parse never
 //! panics on arbitrary text or on mutations of the examples.
 
-mod common;
-
-use common::{Expected, broken_dir, broken_files, read_expected};
+use crate::common::{Expected, broken_dir, broken_files, read_expected};
 use proptest::prelude::*;
 use std::path::{Path, PathBuf};
 use turnstack::files::{self, BobbinLibrary, LoadError};

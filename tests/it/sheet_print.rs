@@ -1,6 +1,6 @@
 //! Manual check, ignored by default (CI installs no browser): print each example's HTML sheet
 //! to PDF with headless Chromium (Debian's `chromium`) and check a PDF comes out. Run with
-//! `cargo test --test sheet_print -- --ignored`, then look at the PDFs it names.
+//! `cargo test --test it sheet_print -- --ignored`, then look at the PDFs it names.
 
 use std::path::Path;
 use std::process::Command;

@@ -2,8 +2,7 @@
 //! ranked bobbin list, the measured core, the winding sheet and the search: each changes the
 //! Build as intended, undo restores it, and invalid input is refused with a message.
 
-mod tui_support;
-use tui_support::*;
+use crate::tui_support::*;
 use turnstack::engine::core_test;
 use turnstack::model::{BobbinSource, IsolationClass, ResetSide};
 use turnstack::tui::app::{Overlay, PickValue, StatusKind};

@@ -3,9 +3,7 @@
 //! windings), Dowell 1966 (AC resistance) and the forward converter's reset relations. Each
 //! check names its source. (ASTM B258 diameters are held in wire_tables.rs.)
 
-mod common;
-
-use common::{assert_rel, eval, measured_winding, rect_bobbin, round_bobbin};
+use crate::common::{assert_rel, eval, measured_winding, rect_bobbin, round_bobbin};
 use std::f64::consts::PI;
 use turnstack::engine::constants::{ALPHA20_PER_K, RHO20_OHM_M};
 use turnstack::engine::geometry::mlt_at_mm;

@@ -3,9 +3,7 @@
 //! and the three examples hand-checked to 0.5 % (IEC 60317-0-1 grade 2 overall diameters,
 //! IEC 60028 copper).
 
-mod common;
-
-use common::{
+use crate::common::{
     assert_rel, eval, example, measured_winding, rect_bobbin, round_bobbin, winding_section,
 };
 use std::f64::consts::PI;
