@@ -10,6 +10,7 @@ mod converter_examples;
 mod converter_forward;
 mod core_relations;
 mod fit_ranking;
+mod golden_outputs;
 mod layout_cases;
 mod reference_figures;
 mod search_props;
