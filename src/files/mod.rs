@@ -3,16 +3,20 @@
 
 mod convert;
 mod error;
+mod keep;
 mod lookup;
 mod raw;
 mod save;
 
 pub use error::LoadError;
+pub use keep::merge_onto;
 pub use lookup::{BobbinEntry, BobbinLibrary, BobbinOrigin, USER_BOBBINS_ENV, user_bobbin_dir};
-pub use save::{bobbin_to_toml, build_to_toml, write_atomic};
+pub use save::{
+    bobbin_to_toml, build_to_toml, check_output, resolve_target, wire_text, write_atomic,
+};
 
 use crate::model::{Bobbin, Build};
-use std::path::Path;
+use std::path::{Path, PathBuf};
 
 /// Read and check a build file; its bobbin id is looked up beside the file, in the user's
 /// folder, then in the bundled library.
@@ -36,7 +40,82 @@ pub fn parse_bobbin(text: &str, path: Option<&Path>) -> Result<Bobbin, LoadError
     convert::bobbin_file(text, path)
 }
 
-/// Save a build as a tidy TOML file, atomically (temporary file, then rename).
+/// What a save did besides writing the figures.
+#[derive(Debug, Clone, PartialEq)]
+pub struct Saved {
+    /// The build as written (its bobbin inlined when the id would not find the same bobbin
+    /// from the new folder); reading the file back gives exactly this.
+    pub build: Build,
+    /// The file written (through a symbolic link, the file it points at).
+    pub path: PathBuf,
+    /// The text was written onto an earlier one, keeping its comments and layout.
+    pub kept_layout: bool,
+    /// The bobbin id would not find the same bobbin beside the new file, so its dimensions
+    /// were written into the build instead (`[bobbin]` table): the id.
+    pub bobbin_inlined: Option<String>,
+}
+
+impl Saved {
+    /// A short note for the status line or the terminal, empty when there is nothing to say.
+    pub fn note(&self) -> String {
+        match &self.bobbin_inlined {
+            Some(id) => format!(
+                "bobbin \"{id}\" would not be the same bobbin from the new folder, so its dimensions are written into the file"
+            ),
+            None => String::new(),
+        }
+    }
+}
+
+/// The text a save of `build` to `target` writes, onto `base` (the text it was read from)
+/// when there is one. Only values the build changed are rewritten; a base that is not a build
+/// file, or a merge that would not read back as the same build, gives the tidy generated text.
+pub fn build_text(build: &Build, base: Option<&str>, target: &Path) -> (String, Saved) {
+    let library = BobbinLibrary::for_build(target);
+    let mut written = build.clone();
+    let mut bobbin_inlined = None;
+    // A bobbin named by id must mean the same bobbin from the new folder; otherwise (a
+    // bobbin from the old folder's bobbins/, or a bundled one shadowed by a file of the same
+    // id beside the new one) the dimensions go into the build.
+    if let crate::model::BobbinSource::Id(id) = &build.bobbin_source {
+        let same = matches!(library.find(id), Some(Ok(b)) if b == build.bobbin);
+        if !same {
+            written.bobbin_source = crate::model::BobbinSource::Inline;
+            bobbin_inlined = Some(id.clone());
+        }
+    }
+    let reads_back =
+        |text: &str| parse_build(text, Some(target), &library).is_ok_and(|b| b == written);
+    let merged = base
+        .and_then(|b| merge_onto(b, &written))
+        .filter(|t| reads_back(t));
+    let kept_layout = merged.is_some();
+    let text = merged.unwrap_or_else(|| build_to_toml(&written));
+    let saved = Saved {
+        build: written,
+        path: resolve_target(target),
+        kept_layout,
+        bobbin_inlined,
+    };
+    (text, saved)
+}
+
+/// Save a build to `target`, keeping the comments and layout of `source` (the file it was
+/// read from) or, failing that, of the file being replaced. Atomic: temporary file, rename.
+pub fn save_build_keeping(
+    target: &Path,
+    source: Option<&Path>,
+    build: &Build,
+) -> std::io::Result<Saved> {
+    let base = source
+        .and_then(|p| std::fs::read_to_string(p).ok())
+        .or_else(|| std::fs::read_to_string(target).ok());
+    let (text, saved) = build_text(build, base.as_deref(), target);
+    write_atomic(target, &text)?;
+    Ok(saved)
+}
+
+/// Save a build, keeping the layout of the file it replaces (if any).
 pub fn save_build(path: &Path, build: &Build) -> std::io::Result<()> {
-    write_atomic(path, &build_to_toml(build))
+    save_build_keeping(path, None, build).map(|_| ())
 }

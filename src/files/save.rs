@@ -3,7 +3,7 @@
 use crate::model::{Bobbin, BobbinSource, Build, ResetSide, Section, Tube, WireSize};
 use std::fmt::Write as _;
 use std::io::Write as _;
-use std::path::Path;
+use std::path::{Path, PathBuf};
 
 /// Shortest text that reads back as the same number, always with a decimal point.
 fn num(x: f64) -> String {
@@ -15,35 +15,166 @@ fn num(x: f64) -> String {
     }
 }
 
+/// A named wire as text that reads back as the same size: a metric diameter is written with
+/// all its digits (`"0.31549mm"`, `"0.00004mm"`), never rounded.
+pub fn wire_text(w: &WireSize) -> String {
+    match *w {
+        // `{}` of an f64 is the shortest decimal that reads back as the same number.
+        WireSize::Metric { bare_mm } => format!("{bare_mm}mm"),
+        other => other.key().unwrap_or_default(),
+    }
+}
+
 fn quote(s: &str) -> String {
     toml::Value::String(s.to_string()).to_string()
 }
 
-/// Write `text` to `path` by a temporary file in the same folder, synced, then renamed over
-/// the old file: a crash leaves either the old file or the new one, never half of either.
-pub fn write_atomic(path: &Path, text: &str) -> std::io::Result<()> {
-    let dir = match path.parent() {
+/// Our temporary files older than this, left by a crash, are removed on the next save.
+const STALE_TEMP: std::time::Duration = std::time::Duration::from_secs(3600);
+
+/// The folder a file is written into.
+fn folder_of(path: &Path) -> &Path {
+    match path.parent() {
         Some(p) if !p.as_os_str().is_empty() => p,
         _ => Path::new("."),
+    }
+}
+
+/// The file a save really writes: through a symbolic link to the file it points at.
+pub fn resolve_target(path: &Path) -> PathBuf {
+    let mut p = path.to_path_buf();
+    // A chain of links, but never a loop.
+    for _ in 0..40 {
+        match std::fs::symlink_metadata(&p) {
+            Ok(m) if m.file_type().is_symlink() => match std::fs::read_link(&p) {
+                Ok(next) => p = folder_of(&p).join(next),
+                Err(_) => break,
+            },
+            _ => break,
+        }
+    }
+    p
+}
+
+/// Remove `.turnstack-*.tmp` files this program left in `dir` in a crash, once they are old
+/// enough that no running save can own them.
+fn remove_stale_temps(dir: &Path) {
+    let Ok(entries) = std::fs::read_dir(dir) else {
+        return;
     };
+    for e in entries.flatten() {
+        let name = e.file_name();
+        let name = name.to_string_lossy();
+        if !(name.starts_with(".turnstack-") && name.ends_with(".tmp")) {
+            continue;
+        }
+        let old = e
+            .metadata()
+            .ok()
+            .filter(std::fs::Metadata::is_file)
+            .and_then(|m| m.modified().ok())
+            .and_then(|t| t.elapsed().ok())
+            .is_some_and(|age| age > STALE_TEMP);
+        if old {
+            let _ = std::fs::remove_file(e.path());
+        }
+    }
+}
+
+/// Write `text` to `path` by a temporary file in the same folder, synced, then renamed over
+/// the old file, and the folder synced: a crash leaves either the old file or the new one,
+/// never half of either. A symbolic link is written through (the file it points at gets the
+/// text; the link stays). Errors name the user's file, never the temporary one.
+pub fn write_atomic(path: &Path, text: &str) -> std::io::Result<()> {
+    let target = resolve_target(path);
+    let dir = folder_of(&target);
+    if !dir.is_dir() {
+        return Err(std::io::Error::new(
+            std::io::ErrorKind::NotFound,
+            format!("the folder {} does not exist", dir.display()),
+        ));
+    }
+    remove_stale_temps(dir);
     let mut tmp = tempfile::Builder::new()
         .prefix(".turnstack-")
         .suffix(".tmp")
-        .tempfile_in(dir)?;
-    tmp.write_all(text.as_bytes())?;
+        .tempfile_in(dir)
+        .map_err(|e| plain(e, dir))?;
+    tmp.write_all(text.as_bytes()).map_err(|e| plain(e, dir))?;
     // The temporary file is private (0600); the saved file keeps the old file's permissions,
     // or gets the usual ones for a document the user may share.
-    let permissions = match std::fs::metadata(path) {
+    let permissions = match std::fs::metadata(&target) {
         Ok(m) => Some(m.permissions()),
         Err(_) => default_permissions(),
     };
     if let Some(p) = permissions {
-        tmp.as_file().set_permissions(p)?;
+        tmp.as_file()
+            .set_permissions(p)
+            .map_err(|e| plain(e, dir))?;
     }
-    tmp.as_file().sync_all()?;
-    tmp.persist(path).map_err(|e| e.error)?;
+    tmp.as_file().sync_all().map_err(|e| plain(e, dir))?;
+    tmp.persist(&target).map_err(|e| plain(e.error, dir))?;
+    sync_folder(dir);
     Ok(())
 }
+
+/// An I/O error in words that do not name the temporary file.
+fn plain(e: std::io::Error, dir: &Path) -> std::io::Error {
+    let why = match e.kind() {
+        std::io::ErrorKind::PermissionDenied => {
+            format!("no permission to write in the folder {}", dir.display())
+        }
+        std::io::ErrorKind::NotFound => format!("the folder {} does not exist", dir.display()),
+        _ => {
+            // The kind's own words; the OS message may carry the temporary path.
+            let k = e.kind().to_string();
+            format!("cannot write in the folder {}: {k}", dir.display())
+        }
+    };
+    std::io::Error::new(e.kind(), why)
+}
+
+/// May a command write `out`? Never over its input (even with `--force`: the build would be
+/// lost), never over a folder, and over another existing file only with `force`.
+pub fn check_output(out: &Path, input: Option<&Path>, force: bool) -> Result<(), String> {
+    let same = |a: &Path, b: &Path| match (std::fs::canonicalize(a), std::fs::canonicalize(b)) {
+        (Ok(x), Ok(y)) => x == y,
+        _ => a == b,
+    };
+    if let Some(i) = input
+        && same(out, i)
+    {
+        return Err(format!(
+            "{} is the input build: the output never replaces it (name another file)",
+            out.display()
+        ));
+    }
+    if out.is_dir() {
+        return Err(format!("{} is a folder: name a file", out.display()));
+    }
+    if !force && std::fs::symlink_metadata(out).is_ok() {
+        return Err(format!(
+            "{} exists: not replaced (add --force to replace it)",
+            out.display()
+        ));
+    }
+    let dir = folder_of(out);
+    if !dir.is_dir() {
+        return Err(format!("the folder {} does not exist", dir.display()));
+    }
+    Ok(())
+}
+
+#[cfg(unix)]
+fn sync_folder(dir: &Path) {
+    // A rename is durable only once the folder's entry is on disk.
+    if let Ok(f) = std::fs::File::open(dir) {
+        let _ = f.sync_all();
+    }
+}
+
+#[cfg(not(unix))]
+fn sync_folder(_dir: &Path) {}
 
 #[cfg(unix)]
 fn default_permissions() -> Option<std::fs::Permissions> {
@@ -144,7 +275,7 @@ pub fn build_to_toml(build: &Build) -> String {
                 );
             }
             other => {
-                let _ = writeln!(out, "wire = {}", quote(&other.key().unwrap_or_default()));
+                let _ = writeln!(out, "wire = {}", quote(&wire_text(&other)));
             }
         }
         let _ = writeln!(out, "insulation = \"{}\"", w.insulation.key());

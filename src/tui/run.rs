@@ -4,7 +4,7 @@
 
 use super::app::{App, Effect};
 use super::view;
-use crate::files::{load_build, save_build};
+use crate::files::{load_build, save_build_keeping};
 use ratatui::DefaultTerminal;
 use ratatui::crossterm::event::{self, Event, KeyEventKind};
 use std::path::Path;
@@ -69,10 +69,17 @@ pub fn perform(app: &mut App, effect: Effect) -> bool {
     }
 }
 
+/// Save onto the text of the file the build was read from, so its comments and layout stay.
 fn save(app: &mut App, path: &Path) -> bool {
-    match save_build(path, &app.build) {
-        Ok(()) => {
+    match save_build_keeping(path, app.path.as_deref(), &app.build) {
+        Ok(saved) => {
+            // The bobbin may have been written inline: the planner holds what the file says.
+            app.build = saved.build.clone();
             app.saved_to(path.to_path_buf());
+            let note = saved.note();
+            if !note.is_empty() {
+                app.info(format!("saved {}; {note}", path.display()));
+            }
             true
         }
         Err(e) => {

@@ -6,6 +6,7 @@ mod tui_support;
 
 mod ac_dowell_harmonics;
 mod cli;
+mod cli_writes;
 mod converter_examples;
 mod converter_forward;
 mod core_relations;
@@ -13,6 +14,7 @@ mod fit_ranking;
 mod golden_outputs;
 mod layout_cases;
 mod reference_figures;
+mod save_roundtrip;
 mod search_props;
 mod sheet_content;
 mod sheet_isolation;
