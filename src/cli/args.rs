@@ -69,6 +69,9 @@ pub enum Command {
         /// Which candidate --out writes, 1 = the first listed.
         #[arg(long, default_value_t = 1)]
         pick: usize,
+        /// With --out: replace an existing file (never the input build).
+        #[arg(long, requires = "out")]
+        force: bool,
         /// Print JSON.
         #[arg(long)]
         json: bool,
@@ -80,6 +83,9 @@ pub enum Command {
         /// Write a self-contained, printable HTML page (with the cross-section) to this file.
         #[arg(long, value_name = "OUT.html")]
         html: Option<PathBuf>,
+        /// With --html: replace an existing file (never the input build).
+        #[arg(long, requires = "html")]
+        force: bool,
         /// Temperature (C) at which the DC resistance will be measured.
         #[arg(long, value_name = "C", default_value_t = 20.0)]
         measure_at_c: f64,

@@ -33,9 +33,15 @@ pub fn main() -> ExitCode {
         Some(Command::Sheet {
             file,
             html,
+            force,
             measure_at_c,
             page_lines,
-        }) => sheet::sheet(file.as_deref(), html.as_deref(), measure_at_c, page_lines),
+        }) => sheet::sheet(
+            file.as_deref(),
+            html.as_deref().map(|h| (h, force)),
+            measure_at_c,
+            page_lines,
+        ),
         Some(Command::Fit {
             file,
             bobbins,
@@ -60,6 +66,7 @@ pub fn main() -> ExitCode {
             no_prune,
             out,
             pick,
+            force,
             json,
         }) => search::run(&search::SearchArgs {
             file: file.as_deref(),
@@ -81,6 +88,7 @@ pub fn main() -> ExitCode {
             json,
             out: out.as_deref(),
             pick,
+            force,
         }),
     }
 }

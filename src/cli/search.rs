@@ -3,7 +3,7 @@
 
 use super::{EXIT_BAD_INPUT, emit, fail, load_or_demo};
 use crate::engine::search::{self, Outcome, Series, Settings};
-use crate::files::{build_to_toml, save_build};
+use crate::files::{build_to_toml, check_output, save_build_keeping};
 use crate::report::text::truncate;
 use serde_json::json;
 use std::fmt::Write as _;
@@ -17,9 +17,18 @@ pub struct SearchArgs<'a> {
     pub json: bool,
     pub out: Option<&'a Path>,
     pub pick: usize,
+    /// `--out` may replace an existing file (never the input).
+    pub force: bool,
 }
 
 pub fn run(args: &SearchArgs) -> ExitCode {
+    // Before the search: its result never replaces the input, nor another file unasked.
+    if let Some(out) = args.out
+        && let Err(why) = check_output(out, args.file, args.force)
+    {
+        eprintln!("turnstack: search --out: {why}");
+        return ExitCode::from(EXIT_BAD_INPUT);
+    }
     let build = match load_or_demo(args.file) {
         Ok(b) => b,
         Err(e) => return fail(&e),
@@ -49,9 +58,15 @@ pub fn run(args: &SearchArgs) -> ExitCode {
             );
             return ExitCode::from(EXIT_BAD_INPUT);
         };
-        if let Err(e) = save_build(out, &c.build) {
-            eprintln!("turnstack: cannot write {}: {e}", out.display());
-            return ExitCode::from(EXIT_BAD_INPUT);
+        // Written onto the input's text: its comments and layout stay, only the values the
+        // search changed are rewritten.
+        match save_build_keeping(out, args.file, &c.build) {
+            Ok(saved) if !saved.note().is_empty() => eprintln!("turnstack: {}", saved.note()),
+            Ok(_) => {}
+            Err(e) => {
+                eprintln!("turnstack: cannot write {}: {e}", out.display());
+                return ExitCode::from(EXIT_BAD_INPUT);
+            }
         }
         eprintln!(
             "wrote candidate {} to {}: {}",
