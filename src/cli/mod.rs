@@ -164,15 +164,32 @@ pub fn run_editor(file: Option<&Path>) -> ExitCode {
         eprintln!(
             "turnstack: the planner needs a terminal; for a report use `turnstack check [FILE]`"
         );
+        if let (Some(p), Some(dir)) = (file, crate::files::recovery_dir())
+            && crate::files::read_recovery(&dir, p).is_some()
+        {
+            eprintln!(
+                "turnstack: {} has unsaved edits from an earlier session; run `turnstack edit` in a terminal to restore or discard them",
+                p.display()
+            );
+        }
         return ExitCode::from(EXIT_BAD_INPUT);
     }
-    let app = match file {
+    let mut app = match file {
         Some(p) if !p.exists() => crate::tui::App::new_file(p.to_path_buf()),
         _ => match load_or_demo(file) {
             Ok(b) => crate::tui::App::new(b, file.map(Path::to_path_buf)),
             Err(e) => return fail(&e),
         },
     };
+    // Unsaved edits an earlier session left (a crash, a closed terminal): offered back.
+    if let Some(dir) = crate::files::recovery_dir() {
+        crate::tui::run::offer_recovery(
+            &mut app,
+            &dir,
+            &mut std::io::stdin().lock(),
+            &mut std::io::stderr(),
+        );
+    }
     match crate::tui::run::run(app) {
         Ok(()) => ExitCode::SUCCESS,
         Err(e) => {

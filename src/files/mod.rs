@@ -6,11 +6,15 @@ mod error;
 mod keep;
 mod lookup;
 mod raw;
+mod recovery;
 mod save;
 
 pub use error::LoadError;
 pub use keep::merge_onto;
 pub use lookup::{BobbinEntry, BobbinLibrary, BobbinOrigin, USER_BOBBINS_ENV, user_bobbin_dir};
+pub use recovery::{
+    RECOVERY_ENV, discard_recovery, read_recovery, recovery_dir, recovery_path, write_recovery,
+};
 pub use save::{
     bobbin_to_toml, build_to_toml, check_output, resolve_target, wire_text, write_atomic,
 };

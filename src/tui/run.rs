@@ -4,10 +4,15 @@
 
 use super::app::{App, Effect};
 use super::view;
-use crate::files::{load_build, save_build_keeping};
+use crate::files::{
+    BobbinLibrary, build_text, discard_recovery, load_build, parse_build, read_recovery,
+    recovery_path, save_build_keeping, write_recovery,
+};
+use crate::model::Build;
 use ratatui::DefaultTerminal;
 use ratatui::crossterm::event::{self, Event, KeyEventKind};
-use std::path::Path;
+use std::io::{BufRead, Write};
+use std::path::{Path, PathBuf};
 
 /// Run the planner until the user quits.
 pub fn run(mut app: App) -> std::io::Result<()> {
@@ -20,7 +25,9 @@ pub fn run(mut app: App) -> std::io::Result<()> {
 }
 
 fn event_loop(terminal: &mut DefaultTerminal, app: &mut App) -> std::io::Result<()> {
+    let mut recovery = Recovery::new(crate::files::recovery_dir());
     loop {
+        recovery.update(app);
         terminal.draw(|f| view::draw(app, f))?;
         // A resize needs nothing: the next draw takes the new size.
         if let Event::Key(key) = event::read()?
@@ -31,7 +38,11 @@ fn event_loop(terminal: &mut DefaultTerminal, app: &mut App) -> std::io::Result<
             if effect == Effect::Search {
                 terminal.draw(|f| view::draw(app, f))?;
             }
+            if effect == Effect::Quit {
+                recovery.quit(app);
+            }
             if perform(app, effect) {
+                recovery.update(app);
                 return Ok(());
             }
         }
@@ -85,6 +96,140 @@ fn save(app: &mut App, path: &Path) -> bool {
         Err(e) => {
             app.error(format!("cannot save {}: {e}", path.display()));
             false
+        }
+    }
+}
+
+/// Keeps the recovery copy in step with the document: written when the build differs from
+/// the file, removed when it no longer does (saved, or edits undone).
+pub struct Recovery {
+    /// The recovery folder (`None`: the platform has none, and nothing is kept).
+    dir: Option<PathBuf>,
+    /// The file and the build last written as its recovery copy.
+    last: Option<(PathBuf, Build)>,
+}
+
+impl Recovery {
+    pub fn new(dir: Option<PathBuf>) -> Self {
+        Recovery { dir, last: None }
+    }
+
+    /// Call after every key: writes the copy only when the build changed since the last one.
+    pub fn update(&mut self, app: &App) {
+        let (Some(path), Some(dir)) = (app.path.clone(), self.dir.clone()) else {
+            return;
+        };
+        if let Some((old, _)) = &self.last
+            && *old != path
+        {
+            discard_recovery(&dir, old);
+            self.last = None;
+        }
+        if !app.dirty() {
+            if self.last.take().is_some() {
+                discard_recovery(&dir, &path);
+            }
+            return;
+        }
+        if self.last.as_ref().is_some_and(|(_, b)| *b == app.build) {
+            return;
+        }
+        // The text a save would write, so a restored copy keeps the file's comments.
+        let base = std::fs::read_to_string(&path).ok();
+        let (text, _) = build_text(&app.build, base.as_deref(), &path);
+        if write_recovery(&dir, &path, &text).is_ok() {
+            self.last = Some((path, app.build.clone()));
+        }
+    }
+
+    /// The user quits without saving: that discards the edits, and their copy.
+    pub fn quit(&mut self, app: &App) {
+        if let (Some(path), Some(dir)) = (&app.path, &self.dir) {
+            discard_recovery(dir, path);
+        }
+        self.last = None;
+    }
+}
+
+/// What the user answered to the recovery offer.
+#[derive(Debug, Clone, Copy, PartialEq, Eq)]
+pub enum Offer {
+    /// No copy, or none that reads as a build.
+    Nothing,
+    Restored,
+    Kept,
+    Discarded,
+}
+
+/// Before the planner starts: when an earlier session left unsaved edits of this file, ask
+/// on `out` whether to restore them, keep the copy for later, or discard it (a line read from
+/// `input`: y, n or d). End of input keeps the copy. `dir` is the recovery folder.
+pub fn offer_recovery(
+    app: &mut App,
+    dir: &Path,
+    input: &mut dyn BufRead,
+    out: &mut dyn Write,
+) -> Offer {
+    let Some(path) = app.path.clone() else {
+        return Offer::Nothing;
+    };
+    let Some(text) = read_recovery(dir, &path) else {
+        return Offer::Nothing;
+    };
+    let copy = recovery_path(dir, &path).unwrap_or_default();
+    let recovered = match parse_build(&text, Some(&path), &BobbinLibrary::for_build(&path)) {
+        Ok(b) => b,
+        Err(e) => {
+            let _ = writeln!(
+                out,
+                "turnstack: a recovery copy of {} cannot be read ({}); it is left at {}",
+                path.display(),
+                e.message,
+                copy.display()
+            );
+            return Offer::Nothing;
+        }
+    };
+    if recovered == app.build {
+        discard_recovery(dir, &path);
+        return Offer::Nothing;
+    }
+    let age = std::fs::metadata(&copy)
+        .ok()
+        .and_then(|m| m.modified().ok())
+        .and_then(|t| t.elapsed().ok())
+        .map_or_else(String::new, |d| format!(" ({} min ago)", d.as_secs() / 60));
+    let _ = write!(
+        out,
+        "turnstack: {} has unsaved edits from an earlier session{age}.\n\
+         Restore them? y = restore, n = not now (keep the copy), d = discard the copy: ",
+        path.display()
+    );
+    let _ = out.flush();
+    let mut line = String::new();
+    let _ = input.read_line(&mut line);
+    match line.trim().to_ascii_lowercase().as_str() {
+        "y" | "yes" => {
+            let original = app.build.clone();
+            let theme = app.theme;
+            *app = App::new(recovered, Some(path));
+            app.theme = theme;
+            app.saved = Some(original);
+            app.info("restored the unsaved edits of an earlier session: W saves them, u cannot undo past them");
+            Offer::Restored
+        }
+        "d" | "discard" => {
+            discard_recovery(dir, &path);
+            let _ = writeln!(out, "turnstack: the recovery copy is discarded");
+            Offer::Discarded
+        }
+        _ => {
+            let _ = writeln!(
+                out,
+                "turnstack: the recovery copy is kept at {}; it is offered again next time",
+                copy.display()
+            );
+            Offer::Kept
         }
     }
 }

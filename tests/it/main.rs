@@ -13,6 +13,7 @@ mod core_relations;
 mod fit_ranking;
 mod golden_outputs;
 mod layout_cases;
+mod recovery;
 mod reference_figures;
 mod save_roundtrip;
 mod search_props;
