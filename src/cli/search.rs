@@ -21,7 +21,67 @@ pub struct SearchArgs<'a> {
     pub force: bool,
 }
 
+/// Every flag checked before any work, each with what it expects.
+fn check_flags(args: &SearchArgs) -> Result<(), String> {
+    use search::{MAX_STRANDS, MAX_THREADS};
+    let s = &args.settings;
+    if !(1..=MAX_THREADS).contains(&s.threads) {
+        return Err(format!(
+            "--threads {}: expected 1 to {MAX_THREADS}",
+            s.threads
+        ));
+    }
+    if !(1..=MAX_STRANDS).contains(&s.max_strands) {
+        return Err(format!(
+            "--max-strands {}: expected 1 to {MAX_STRANDS} (strands paralleled by hand)",
+            s.max_strands
+        ));
+    }
+    for (flag, v) in [("--j-min", s.j_min_a_mm2), ("--j-max", s.j_max_a_mm2)] {
+        if !(v.is_finite() && v > 0.0 && v <= 100.0) {
+            return Err(format!(
+                "{flag} {v}: expected a current density above 0 and at most 100 A/mm2"
+            ));
+        }
+    }
+    if s.j_min_a_mm2 > s.j_max_a_mm2 {
+        return Err(format!(
+            "--j-min {} is above --j-max {}: expected the lower bound first",
+            s.j_min_a_mm2, s.j_max_a_mm2
+        ));
+    }
+    if let Some(v) = s.max_leakage_uh
+        && !(v.is_finite() && v > 0.0)
+    {
+        return Err(format!(
+            "--max-leakage-uh {v}: expected a leakage inductance above 0 uH"
+        ));
+    }
+    if let Some(v) = s.max_rise_c
+        && !(v.is_finite() && v > 0.0 && v <= 200.0)
+    {
+        return Err(format!(
+            "--max-rise-c {v}: expected a temperature rise above 0 and at most 200 C"
+        ));
+    }
+    if let Some(w) = s.isolation_wraps
+        && w > 100
+    {
+        return Err(format!(
+            "--isolation-wraps {w}: expected at most 100 wraps of tape"
+        ));
+    }
+    if args.pick == 0 {
+        return Err("--pick 0: expected 1 or more (1 = the first candidate listed)".into());
+    }
+    Ok(())
+}
+
 pub fn run(args: &SearchArgs) -> ExitCode {
+    if let Err(why) = check_flags(args) {
+        eprintln!("turnstack: search: {why}");
+        return ExitCode::from(EXIT_BAD_INPUT);
+    }
     // Before the search: its result never replaces the input, nor another file unasked.
     if let Some(out) = args.out
         && let Err(why) = check_output(out, args.file, args.force)
@@ -33,7 +93,29 @@ pub fn run(args: &SearchArgs) -> ExitCode {
         Ok(b) => b,
         Err(e) => return fail(&e),
     };
+    if let Err(e) = search::search_ready(&build) {
+        match args.file {
+            Some(p) => eprintln!("turnstack: {}: {e}", p.display()),
+            None => eprintln!("turnstack: {e}"),
+        }
+        return ExitCode::from(EXIT_BAD_INPUT);
+    }
+    // The size of the search, said before it starts; too large a one is refused.
+    let size = search::space_size(&build, &args.settings);
+    if size > search::MAX_SPACE {
+        eprintln!(
+            "turnstack: search: {size} combinations is more than the {} a search goes through; narrow it with a lower --max-strands, a narrower --j-min/--j-max band or --isolation-wraps",
+            search::MAX_SPACE
+        );
+        return ExitCode::from(EXIT_BAD_INPUT);
+    }
     let tty = std::io::stderr().is_terminal();
+    if size > 1_000_000 {
+        eprintln!(
+            "turnstack: searching {size} combinations on {} threads (Ctrl-C stops it)",
+            args.settings.threads
+        );
+    }
     let progress = move |done: usize, total: usize| {
         if tty && total > 20_000 {
             eprint!("\rsearching: {done} of {total}");

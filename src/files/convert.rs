@@ -16,6 +16,11 @@ use toml::Spanned;
 
 type Span = Range<usize>;
 
+/// Most `[[winding]]` tables a build may have.
+pub const MAX_WINDINGS: usize = 32;
+/// Most `[[stack]]` sections a build may have.
+pub const MAX_SECTIONS: usize = 200;
+
 /// Spans of the keys validation may point at, by place.
 #[derive(Default)]
 struct Spans {
@@ -75,8 +80,26 @@ impl Ctx<'_> {
         ] {
             message = message.replace(rust, words);
         }
-        let key = e.span().and_then(|span| key_before(self.text, span.start));
-        LoadError::at(self.text, self.path, e.span(), key, message)
+        let mut span = e.span();
+        let mut key = span
+            .clone()
+            .and_then(|span| key_before(self.text, span.start));
+        if message.contains("recursion limit") || message.contains("max recursion depth") {
+            // The parser stops without a place, or at a bracket: name the deepest line.
+            let (at, depth) = deepest_line(self.text);
+            if span.is_none() {
+                span = Some(at..at);
+                key = None;
+            }
+            message = format!(
+                "keys nested {depth} levels deep; a build file nests at most 3, as in `[bobbin.window]`"
+            );
+        } else if message.starts_with("invalid type")
+            && let Some(better) = span.clone().and_then(|s| header_shape(self.text, s.start))
+        {
+            message = better;
+        }
+        LoadError::at(self.text, self.path, span, key, message)
     }
 
     fn invalid(&self, spans: &Spans, problems: &[Invalid]) -> LoadError {
@@ -117,6 +140,71 @@ impl Ctx<'_> {
             Some(_) => Ok(()),
         }
     }
+}
+
+/// The tables a build has once (`[setup]`) and the lists it has one of per entry
+/// (`[[winding]]`): a header of the wrong shape, said in those words.
+fn header_shape(text: &str, offset: usize) -> Option<String> {
+    let start = text[..offset.min(text.len())]
+        .rfind('\n')
+        .map_or(0, |i| i + 1);
+    let line = text[start..].lines().next()?.trim();
+    let line = line.split('#').next()?.trim();
+    let lists = ["winding", "stack"];
+    if let Some(name) = line.strip_prefix("[[").and_then(|l| l.strip_suffix("]]")) {
+        let name = name.trim();
+        if !lists.contains(&name) {
+            return Some(format!(
+                "`[[{name}]]` makes a list of tables, but a build has one `{name}`: expected `[{name}]`"
+            ));
+        }
+    } else if let Some(name) = line.strip_prefix('[').and_then(|l| l.strip_suffix(']')) {
+        let name = name.trim();
+        if lists.contains(&name) {
+            return Some(format!(
+                "`[{name}]` is one table, but a build lists its {name} entries: expected `[[{name}]]`, once for each"
+            ));
+        }
+    }
+    None
+}
+
+/// The start of the most deeply nested line (dotted keys, brackets and braces) and its depth.
+fn deepest_line(text: &str) -> (usize, usize) {
+    let mut best = (0, 0);
+    let mut offset = 0;
+    let mut open = 0usize;
+    for line in text.split_inclusive('\n') {
+        let mut depth = open;
+        let mut peak = open;
+        let mut quoted = false;
+        for c in line.chars() {
+            match c {
+                '"' => quoted = !quoted,
+                '#' if !quoted => break,
+                '[' | '{' if !quoted => {
+                    depth += 1;
+                    peak = peak.max(depth);
+                }
+                ']' | '}' if !quoted => depth = depth.saturating_sub(1),
+                _ => {}
+            }
+        }
+        let key = line.split('=').next().unwrap_or("");
+        let dots = if line.contains('=') || line.trim_start().starts_with('[') {
+            key.matches('.').count() + 1
+        } else {
+            0
+        };
+        let here = peak.max(dots);
+        if here > best.1 {
+            best = (offset, here);
+        }
+        // Arrays may run over several lines.
+        open = depth;
+        offset += line.len();
+    }
+    best
 }
 
 /// The key of a `key = value` line when `offset` lies in its value.
@@ -262,6 +350,35 @@ pub(super) fn build(
     spans.top.insert("winding", 0..0);
     spans.top.insert("stack", 0..0);
 
+    // Build size: far above any hand-wound part, so that a generated or mistyped file cannot
+    // make a check run for minutes (documented in FORMAT.md).
+    for (what, count, limit, span) in [
+        (
+            "windings",
+            file.winding.len(),
+            MAX_WINDINGS,
+            file.winding.get(MAX_WINDINGS).map(Spanned::span),
+        ),
+        (
+            "stack sections",
+            file.stack.len(),
+            MAX_SECTIONS,
+            file.stack.get(MAX_SECTIONS).map(Spanned::span),
+        ),
+    ] {
+        if count > limit {
+            let key = if what == "windings" {
+                format!("winding #{}", limit + 1)
+            } else {
+                format!("stack #{}", limit + 1)
+            };
+            return Err(cx.err(
+                span,
+                key,
+                format!("{count} {what} is more than this program takes (at most {limit}; a hand-wound part has a few)"),
+            ));
+        }
+    }
     let bobbin_span = file.bobbin.span();
     let (bobbin_source, bobbin) = match file.bobbin.into_inner() {
         BobbinField::Id(id) => match library.find(&id) {

@@ -9,6 +9,7 @@ mod raw;
 mod recovery;
 mod save;
 
+pub use convert::{MAX_SECTIONS, MAX_WINDINGS};
 pub use error::LoadError;
 pub use keep::merge_onto;
 pub use lookup::{BobbinEntry, BobbinLibrary, BobbinOrigin, USER_BOBBINS_ENV, user_bobbin_dir};

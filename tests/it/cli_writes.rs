@@ -191,3 +191,73 @@ fn saving_elsewhere_keeps_a_bobbin_from_beside_the_build() {
     let again = save_build_keeping(&build, Some(&build), &b).unwrap();
     assert_eq!(again.bobbin_inlined, None);
 }
+
+/// Every bounded flag of `search` is refused with what it expects, before any work.
+#[test]
+fn search_flags_out_of_bounds_are_refused_with_what_they_expect() {
+    let b = example("bench-forward");
+    let b = b.to_str().unwrap();
+    for (flags, says) in [
+        (
+            &["--threads", "100000"][..],
+            "--threads 100000: expected 1 to 64",
+        ),
+        (&["--threads", "0"][..], "--threads 0: expected 1 to 64"),
+        (
+            &["--max-strands", "4000000000"][..],
+            "--max-strands 4000000000: expected 1 to 32",
+        ),
+        (
+            &["--j-min", "NaN"][..],
+            "--j-min NaN: expected a current density",
+        ),
+        (
+            &["--j-max", "inf"][..],
+            "--j-max inf: expected a current density",
+        ),
+        (&["--j-min", "7"][..], "--j-min 7 is above --j-max 6"),
+        (
+            &["--max-rise-c=-1"][..],
+            "--max-rise-c -1: expected a temperature rise",
+        ),
+        (
+            &["--max-leakage-uh", "0"][..],
+            "--max-leakage-uh 0: expected a leakage inductance",
+        ),
+        (
+            &["--isolation-wraps", "1000"][..],
+            "--isolation-wraps 1000: expected at most 100",
+        ),
+        (&["--pick", "0"][..], "--pick 0: expected 1 or more"),
+    ] {
+        let mut args = vec!["search", b];
+        args.extend_from_slice(flags);
+        let started = std::time::Instant::now();
+        let o = run(&args);
+        assert_eq!(o.status.code(), Some(2), "{flags:?}");
+        assert!(stderr(&o).contains(says), "{flags:?}: {}", stderr(&o));
+        assert!(
+            started.elapsed().as_secs() < 20,
+            "{flags:?} is refused at once"
+        );
+    }
+}
+
+#[test]
+fn search_on_a_build_without_a_secondary_names_the_file() {
+    let dir = tempfile::tempdir().unwrap();
+    let p = dir.path().join("primary-only.toml");
+    std::fs::write(
+        &p,
+        "format = 1\nbobbin = \"e25-13-7\"\n[[winding]]\nname = \"P\"\nrole = \"primary\"\nturns = 24\nwire = \"0.63mm\"\n[[stack]]\nwinding = \"P\"\n",
+    )
+    .unwrap();
+    let o = run(&["search", p.to_str().unwrap()]);
+    assert_eq!(o.status.code(), Some(2));
+    let e = stderr(&o);
+    assert!(
+        e.contains("primary-only.toml: the search needs a primary and a secondary"),
+        "{e}"
+    );
+    assert!(e.contains("role = \"secondary\""), "{e}");
+}

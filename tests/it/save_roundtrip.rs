@@ -283,3 +283,24 @@ fn a_metric_wire_keeps_all_its_digits() {
         assert!(fresh.contains(digits), "{wire}: {fresh}");
     }
 }
+
+proptest::proptest! {
+    #![proptest_config(proptest::prelude::ProptestConfig { cases: 64, ..Default::default() })]
+
+    /// Whatever text the base file holds (a half-edited file, another program's TOML), the
+    /// save never panics and what it writes reads back as the build.
+    #[test]
+    fn a_save_onto_any_text_reads_back_as_the_build(
+        base in "(format = 1\n|bobbin = \"e13-7-4\"\n|\\[\\[winding\\]\\]\n|\\[\\[stack\\]\\]\n|\\[setup\\]\n|\\[operating\\]\n|name = \"[PSR]\"\n|turns = [0-9]{1,3}\n|wire = \"awg2[0-9]\"\n|tape = [0-9]\n|# a note\n|winding = \"[PS]\"\n|[a-z_]{1,8} = [0-9.]{1,4}\n|\n){0,30}"
+    ) {
+        let path = Path::new(env!("CARGO_MANIFEST_DIR")).join("examples/bench-forward.toml");
+        let build = load_build(&path).unwrap();
+        let (text, _) = build_text(&build, Some(&base), &path);
+        let back = turnstack::files::parse_build(
+            &text,
+            Some(&path),
+            &turnstack::files::BobbinLibrary::for_build(&path),
+        );
+        proptest::prop_assert_eq!(back.ok(), Some(build));
+    }
+}

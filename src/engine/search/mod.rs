@@ -113,7 +113,7 @@ impl std::fmt::Display for SearchError {
     fn fmt(&self, f: &mut std::fmt::Formatter<'_>) -> std::fmt::Result {
         match self {
             SearchError::NeedsRoles => {
-                f.write_str("the search needs a primary and a secondary winding")
+                f.write_str("the search needs a primary and a secondary winding (expected a [[winding]] with role = \"primary\" and one with role = \"secondary\")")
             }
             SearchError::Invalid(m) => write!(f, "the build is not valid: {m}"),
         }
@@ -143,22 +143,41 @@ pub fn total_loss_w(eval: &Evaluation) -> f64 {
 /// Combinations a thread goes through between two calls of `progress`.
 const PROGRESS_STEP: usize = 4096;
 
-/// Run the search. `progress` is called now and then with (done, total).
-pub fn search(
-    build: &Build,
-    settings: &Settings,
-    progress: &(dyn Fn(usize, usize) + Sync),
-) -> Result<Outcome, SearchError> {
+/// Most threads a search uses; more would only add start-up cost on any desktop machine.
+pub const MAX_THREADS: usize = 64;
+/// Most strands in parallel a search tries per winding: far beyond what is paralleled by hand
+/// (litz wire is bought, not wound strand by strand).
+pub const MAX_STRANDS: u32 = 32;
+/// Most combinations a search goes through; a larger space is refused with a hint to narrow it.
+pub const MAX_SPACE: usize = 100_000_000;
+
+/// The number of combinations `search` would go through, before it starts.
+pub fn space_size(build: &Build, settings: &Settings) -> usize {
+    space::Space::new(build, settings).len()
+}
+
+/// Whether `search` can start on this build (valid, with a primary and a secondary).
+pub fn search_ready(build: &Build) -> Result<(), SearchError> {
     if let Some(p) = validate(build).first() {
         return Err(SearchError::Invalid(p.to_string()));
     }
     if build.first_of(Role::Primary).is_none() || build.first_of(Role::Secondary).is_none() {
         return Err(SearchError::NeedsRoles);
     }
+    Ok(())
+}
+
+/// Run the search. `progress` is called now and then with (done, total).
+pub fn search(
+    build: &Build,
+    settings: &Settings,
+    progress: &(dyn Fn(usize, usize) + Sync),
+) -> Result<Outcome, SearchError> {
+    search_ready(build)?;
     let plan = space::Space::new(build, settings);
     let total = plan.len();
     let done = AtomicUsize::new(0);
-    let threads = settings.threads.max(1).min(total.max(1));
+    let threads = settings.threads.clamp(1, MAX_THREADS).min(total.max(1));
 
     // Each thread takes every n-th combination and keeps its own front; the fronts are merged
     // in index order, so the outcome does not depend on the thread count. The arrangement is

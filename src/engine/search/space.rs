@@ -159,7 +159,12 @@ impl<'a> Space<'a> {
                     for strands in 1..=most {
                         let a = f64::from(strands) * area_mm2(rw.bare_mm);
                         let j = i / a;
-                        if j < lo || j > hi || f64::from(strands) * rw.od_mm > w_u {
+                        // More strands only lower the density and widen the turn: past
+                        // the band's low end or the usable width, no more strands will do.
+                        if j < lo || f64::from(strands) * rw.od_mm > w_u {
+                            break;
+                        }
+                        if j > hi {
                             continue;
                         }
                         out.push(WireChoice {
@@ -251,7 +256,11 @@ impl<'a> Space<'a> {
 
     /// Combinations in the space.
     pub fn len(&self) -> usize {
-        self.choices.iter().map(Vec::len).product::<usize>() * self.arrangements.len()
+        // Saturating: a space too large to count is refused by the caller, never wrapped.
+        self.choices
+            .iter()
+            .map(Vec::len)
+            .fold(self.arrangements.len(), usize::saturating_mul)
     }
 
     /// True where the winding's wire is chosen from the series (false: held as it is).
