@@ -304,3 +304,88 @@ proptest::proptest! {
         proptest::prop_assert_eq!(back.ok(), Some(build));
     }
 }
+
+/// The line diff of a save of `build` onto `text`: (lines gone, lines new).
+fn diff_of(text: &str, path: &Path, build: &turnstack::model::Build) -> (Vec<String>, Vec<String>) {
+    let (saved, info) = build_text(build, Some(text), path);
+    assert!(info.kept_layout, "merged, not regenerated");
+    let back = load_build_text(&saved, path);
+    assert_eq!(&back, build);
+    let a: Vec<&str> = text.lines().collect();
+    let b: Vec<&str> = saved.lines().collect();
+    unmatched(&a, &b)
+}
+
+#[test]
+fn new_and_removed_tables_go_where_a_person_would_put_them() {
+    let path = examples()
+        .into_iter()
+        .find(|p| p.ends_with("salvaged-too-small.toml"))
+        .unwrap();
+    let text = std::fs::read_to_string(&path).unwrap();
+    let b = load_build(&path).unwrap();
+
+    // An inline bobbin's window height: that one line.
+    let mut taller = b.clone();
+    taller.bobbin.window.height_mm += 0.5;
+    let (gone, new) = diff_of(&text, &path, &taller);
+    assert_eq!(gone.len(), 1, "{gone:?}");
+    assert!(
+        gone[0].starts_with("height_mm") && new[0].starts_with("height_mm"),
+        "{new:?}"
+    );
+
+    // A new [isolation] table: one block, after the last table the build has before it.
+    let mut iso = b.clone();
+    iso.isolation = Some(turnstack::model::Isolation {
+        class: turnstack::model::IsolationClass::Functional,
+        working_voltage_v: None,
+        creepage_mm: None,
+    });
+    let (gone, new) = diff_of(&text, &path, &iso);
+    assert!(gone.is_empty(), "{gone:?}");
+    let mut new = new;
+    new.sort();
+    assert_eq!(new, ["", "[isolation]", "class = \"functional\""]);
+    // After the last table's keys, before the notes that close the file.
+    let (saved, _) = build_text(&iso, Some(&text), &path);
+    let at = saved.find("[isolation]").unwrap();
+    assert!(saved[..at].contains("duty_limit = 0.45"));
+    assert!(saved[at..].contains("# Expected layout, worked by hand"));
+
+    // The operating table removed: its lines go, the rest stays in order.
+    let mut bare = b.clone();
+    bare.operating = None;
+    let (gone, new) = diff_of(&text, &path, &bare);
+    assert!(new.is_empty(), "{new:?}");
+    assert!(gone.iter().any(|l| l == "[operating]"), "{gone:?}");
+
+    // A new winding goes after the last winding, before the stack.
+    let mut more = b.clone();
+    let mut aux = more.windings[0].clone();
+    aux.name = "AUX".into();
+    aux.role = turnstack::model::Role::Auxiliary;
+    aux.turns = 3;
+    more.windings.push(aux);
+    more.stack.push(turnstack::model::Section::Winding(
+        turnstack::model::WindingSection {
+            winding: "AUX".into(),
+            turns: None,
+            with: None,
+            layer_tape: 0,
+        },
+    ));
+    assert_eq!(turnstack::engine::validate(&more), []);
+    {
+        let (saved, _) = build_text(&more, Some(&text), &path);
+        let aux_at = saved.find("name = \"AUX\"").unwrap();
+        let first_stack = saved.find("[[stack]]").unwrap();
+        let last_winding_name = saved[..aux_at].rfind("[[winding]]").unwrap();
+        assert!(
+            aux_at < first_stack,
+            "the new winding is listed with the others"
+        );
+        assert!(saved[..last_winding_name].matches("[[winding]]").count() == b.windings.len());
+        assert_eq!(load_build_text(&saved, &path), more);
+    }
+}
