@@ -253,6 +253,13 @@ fn merge_table(b: &mut Table, g: &Table, path: &str) {
     }
     for (k, gi) in g.iter() {
         let here = child(path, k);
+        let shape = |i: &Item| (i.is_value(), i.is_table(), i.is_array_of_tables());
+        if b.get(k).is_some_and(|bi| shape(bi) != shape(gi))
+            && let Some(mut key) = b.key_mut(k)
+        {
+            // A table header's key spacing does not suit `key = value`, nor the other way.
+            key.leaf_decor_mut().clear();
+        }
         match b.get_mut(k) {
             Some(bi) => merge_item(bi, gi, &here, k),
             None => {

@@ -187,6 +187,15 @@ fn saving_elsewhere_keeps_a_bobbin_from_beside_the_build() {
         back.bobbin, b.bobbin,
         "the same bobbin, not the bundled one"
     );
+    // The rest of the file is as it was; the [bobbin] table comes before [setup].
+    assert!(saved.kept_layout);
+    let text = std::fs::read_to_string(&copy_path).unwrap();
+    assert!(text.contains("temperature_c = 100     # hot-spot figure for resistance"));
+    let (bobbin_at, setup_at) = (
+        text.find("[bobbin]").unwrap(),
+        text.find("[setup]").unwrap(),
+    );
+    assert!(bobbin_at < setup_at, "{text}");
     // Saved beside the original, the id still finds it: no inlining.
     let again = save_build_keeping(&build, Some(&build), &b).unwrap();
     assert_eq!(again.bobbin_inlined, None);

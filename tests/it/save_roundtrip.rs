@@ -360,6 +360,17 @@ fn new_and_removed_tables_go_where_a_person_would_put_them() {
     assert!(new.is_empty(), "{new:?}");
     assert!(gone.iter().any(|l| l == "[operating]"), "{gone:?}");
 
+    // The inline bobbin traded for a bundled id: the [bobbin] tables go, `bobbin = "id"`
+    // takes their place among the top keys, the rest stays.
+    let mut bundled = b.clone();
+    let lib = turnstack::files::BobbinLibrary::bundled_only();
+    bundled.bobbin = lib.find("e13-7-4").unwrap().unwrap();
+    bundled.bobbin_source = turnstack::model::BobbinSource::Id("e13-7-4".into());
+    let (gone, new) = diff_of(&text, &path, &bundled);
+    assert_eq!(new, ["bobbin = \"e13-7-4\""]);
+    assert!(gone.iter().any(|l| l == "[bobbin.window]"), "{gone:?}");
+    assert!(gone.iter().all(|l| !l.starts_with("[setup]")));
+
     // A new winding goes after the last winding, before the stack.
     let mut more = b.clone();
     let mut aux = more.windings[0].clone();
