@@ -4,6 +4,7 @@
 mod convert;
 mod error;
 mod lookup;
+mod measured;
 mod raw;
 mod save;
 
