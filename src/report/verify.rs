@@ -51,8 +51,10 @@ pub fn tolerance(p: &Prediction) -> String {
             } else {
                 0.0
             };
-            if rel >= 1.0 {
+            if rel >= 9.95 {
                 format!("+/-{rel:.0} %")
+            } else if rel >= 1.0 {
+                format!("+/-{rel:.1} %")
             } else {
                 format!("+/-{rel:.2} %")
             }
@@ -200,7 +202,9 @@ pub fn render(build: &Build, v: &Verification) -> String {
     } else {
         &build.title
     };
-    let _ = writeln!(out, "Readings against the plan: {title}");
+    for line in wrap(&format!("Readings against the plan: {title}"), 80, "  ") {
+        let _ = writeln!(out, "{line}");
+    }
     let _ = writeln!(
         out,
         "Resistances compared at {:.1} C{}.",
@@ -221,7 +225,10 @@ pub fn render(build: &Build, v: &Verification) -> String {
         if let Some(p) = &c.prediction {
             let dev = c
                 .deviation()
-                .map_or(String::new(), |d| format!(" ({:+.1} %)", d * 100.0));
+                .map_or(String::new(), |d| match c.quantity {
+                    Quantity::Ratio { .. } => format!(" ({:+.2} %)", d * 100.0),
+                    _ => format!(" ({:+.1} %)", d * 100.0),
+                });
             let _ = writeln!(out, "  expected  {}{dev}", value(&c.quantity, p.expected));
             let _ = writeln!(out, "  tolerance {}", tolerance(p));
         }
@@ -259,7 +266,10 @@ pub fn render(build: &Build, v: &Verification) -> String {
         }
     }
     if let Some(n) = &v.note {
-        let _ = writeln!(out, "\nNote: {n}");
+        out.push('\n');
+        for line in wrap(&format!("Note: {n}"), 80, "  ") {
+            let _ = writeln!(out, "{line}");
+        }
     }
     out.push('\n');
     let off: Vec<String> = v.out_of_tolerance().map(|c| what(&c.quantity)).collect();
