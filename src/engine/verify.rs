@@ -13,11 +13,11 @@
 //!   ideal transformer; the primary's share of the leakage and its resistance lower it by far
 //!   less than the tolerance below for the meters and parts this tool plans).
 
+use super::Evaluation;
 use super::constants::{MM, MM2, MU0_H_PER_M};
 use super::core_test;
 use super::magnetics::{self, AlSource};
 use super::resistance::temperature_ratio;
-use super::Evaluation;
 use crate::library::wires;
 use crate::model::{Build, Name, Role, WireSize};
 
@@ -328,8 +328,7 @@ pub fn verify(build: &Build, eval: &Evaluation) -> Option<Verification> {
             findings,
         });
     }
-    if let (Some(l), Some(p), Some(s)) = (m.leakage_uh, primary, build.first_of(Role::Secondary))
-    {
+    if let (Some(l), Some(p), Some(s)) = (m.leakage_uh, primary, build.first_of(Role::Secondary)) {
         let quantity = Quantity::Leakage {
             primary: p.name.clone(),
             secondary: s.name.clone(),

@@ -301,8 +301,7 @@ fn measured_keys(out: &mut String, m: &Measured) {
             .iter()
             .map(|(n, x)| {
                 let key = if !n.is_empty()
-                    && n
-                        .chars()
+                    && n.chars()
                         .all(|c| c.is_ascii_alphanumeric() || c == '_' || c == '-')
                 {
                     n.to_string()

@@ -130,7 +130,10 @@ pub fn finding_words(f: &Finding) -> String {
         } => {
             let gap = match (total_gap_mm, gapped) {
                 (Some(g), true) if *g > 0.0 => {
-                    format!("; the gap acts as {:.0} um, smaller than planned", g * 1000.0)
+                    format!(
+                        "; the gap acts as {:.0} um, smaller than planned",
+                        g * 1000.0
+                    )
                 }
                 (_, true) => "; the gap is smaller than planned".into(),
                 _ => String::new(),
@@ -223,12 +226,10 @@ pub fn render(build: &Build, v: &Verification) -> String {
         let _ = writeln!(out, "{}: {}", what(&c.quantity), result_word(c));
         let _ = writeln!(out, "  measured  {}", value(&c.quantity, c.measured));
         if let Some(p) = &c.prediction {
-            let dev = c
-                .deviation()
-                .map_or(String::new(), |d| match c.quantity {
-                    Quantity::Ratio { .. } => format!(" ({:+.2} %)", d * 100.0),
-                    _ => format!(" ({:+.1} %)", d * 100.0),
-                });
+            let dev = c.deviation().map_or(String::new(), |d| match c.quantity {
+                Quantity::Ratio { .. } => format!(" ({:+.2} %)", d * 100.0),
+                _ => format!(" ({:+.1} %)", d * 100.0),
+            });
             let _ = writeln!(out, "  expected  {}{dev}", value(&c.quantity, p.expected));
             let _ = writeln!(out, "  tolerance {}", tolerance(p));
         }
@@ -448,12 +449,9 @@ fn check_json(c: &ReadingCheck) -> CheckJson {
             Some(secondary.to_string()),
             "uH",
         ),
-        Quantity::Ratio { winding, primary } => (
-            "ratio",
-            winding.to_string(),
-            Some(primary.to_string()),
-            "",
-        ),
+        Quantity::Ratio { winding, primary } => {
+            ("ratio", winding.to_string(), Some(primary.to_string()), "")
+        }
     };
     let p = c.prediction.as_ref();
     CheckJson {

@@ -71,8 +71,16 @@ const SHORT_TURN: &str = "\n[measured]\nmagnetising_uh = 1180.0\nratio = { S = 0
 fn exit_0_when_every_reading_is_within_tolerance() {
     let o = verify_text(&format!("{PLAN}{CLEAN}"), false);
     assert_eq!(o.status.code(), Some(0), "{}{}", out(&o), err(&o));
-    assert!(out(&o).contains("every reading is within tolerance"), "{}", out(&o));
-    assert!(out(&o).lines().all(|l| l.chars().count() <= 80), "{}", out(&o));
+    assert!(
+        out(&o).contains("every reading is within tolerance"),
+        "{}",
+        out(&o)
+    );
+    assert!(
+        out(&o).lines().all(|l| l.chars().count() <= 80),
+        "{}",
+        out(&o)
+    );
 }
 
 #[test]
@@ -80,7 +88,10 @@ fn exit_1_when_a_reading_is_out_and_it_names_the_winding() {
     let o = verify_text(&format!("{PLAN}{SHORT_TURN}"), false);
     assert_eq!(o.status.code(), Some(1), "{}{}", out(&o), err(&o));
     let text = out(&o);
-    assert!(text.contains("Voltage ratio S / P: OUT OF TOLERANCE"), "{text}");
+    assert!(
+        text.contains("Voltage ratio S / P: OUT OF TOLERANCE"),
+        "{text}"
+    );
     assert!(text.contains("S most likely has 15 turns"), "{text}");
 }
 
@@ -152,7 +163,56 @@ fn the_example_part_has_a_dirty_core() {
     );
     assert!(text.contains("mating faces need cleaning"), "{text}");
     assert!(text.lines().all(|l| l.chars().count() <= 80), "{text}");
-    assert!(Path::new(env!("CARGO_MANIFEST_DIR"))
-        .join("examples/bench-forward-wound.toml")
-        .exists());
+    assert!(
+        Path::new(env!("CARGO_MANIFEST_DIR"))
+            .join("examples/bench-forward-wound.toml")
+            .exists()
+    );
+}
+
+#[test]
+fn the_sheet_carries_the_same_readings() {
+    // Filled from the [measured] table; the expected value and band beside each.
+    let o = run(&[
+        "sheet",
+        "examples/bench-forward-wound.toml",
+        "--page-lines",
+        "0",
+    ]);
+    let text = out(&o);
+    let line = |start: &str| {
+        text.lines()
+            .find(|l| l.trim_start().starts_with(start))
+            .unwrap_or_else(|| panic!("no line {start}: {text}"))
+            .to_string()
+    };
+    let l = line("L magnetising P");
+    // 2160 nH x 24^2 = 1244 uH, +/-25 %: 933 uH to 1555 uH.
+    assert!(l.contains("1.24 mH") && l.contains("933 uH-1.56 mH") && l.ends_with("905 uH"));
+    assert!(line("DCR P").ends_with("0.0575 ohm at 22 C"));
+    assert!(text.lines().all(|l| l.chars().count() <= 80));
+    // Without readings, a cell to write in.
+    let o = run(&["sheet", "examples/bench-forward.toml", "--page-lines", "0"]);
+    let text = out(&o);
+    let ratio = text
+        .lines()
+        .find(|l| l.trim_start().starts_with("ratio S/P"))
+        .unwrap();
+    // 16/24 = 0.6667, +/- 0.4/24 = 1.67 %: 0.6556 to 0.6778.
+    assert!(
+        ratio.contains("0.6667") && ratio.contains("0.6556-0.6778"),
+        "{ratio}"
+    );
+    assert!(ratio.ends_with("__________"), "{ratio}");
+    let dir = tempfile::tempdir().unwrap();
+    let html = dir.path().join("s.html");
+    let o = run(&[
+        "sheet",
+        "examples/bench-forward-wound.toml",
+        "--html",
+        html.to_str().unwrap(),
+    ]);
+    assert_eq!(o.status.code(), Some(0), "{}", err(&o));
+    let page = std::fs::read_to_string(&html).unwrap();
+    assert!(page.contains("<h2>Readings</h2>") && page.contains("<td>905 uH</td>"));
 }

@@ -111,7 +111,11 @@ fn gap_from_a_low_magnetising_inductance_by_the_magnetic_circuit() {
     // Planned L = AL Np^2 = 2160 nH x 576 = 1244.16 uH; the band +/-25 % of AL (common practice).
     let p = c.prediction.as_ref().unwrap();
     assert_rel(p.expected, 1244.16, 1e-9, "L = AL Np^2");
-    assert_eq!(c.within(), Some(false), "905 uH is under 0.75 x 1244 = 933 uH");
+    assert_eq!(
+        c.within(),
+        Some(false),
+        "905 uH is under 0.75 x 1244 = 933 uH"
+    );
     // By hand: AL = L / N^2 = 905e-6 / 576 = 1.57118e-6 H; mu_e = AL le / (mu0 Ae) (IEC 60205)
     // = 1.57118e-6 x 0.0575 / (1.25664e-6 x 52e-6) = 1382.6; the whole gap
     // l_g = le (1/mu_e - 1/mu_i) = 57.5 mm x (1/1382.6 - 1/2300) = 0.01659 mm.
@@ -152,7 +156,10 @@ fn a_high_inductance_says_al_is_above_the_figure_used() {
     let v = with_readings("magnetising_uh = 1742.0");
     let c = check(&v, &magnetising());
     assert_eq!(c.within(), Some(false));
-    assert!(matches!(c.findings[..], [Finding::AlHigher { gapped: false, .. }]));
+    assert!(matches!(
+        c.findings[..],
+        [Finding::AlHigher { gapped: false, .. }]
+    ));
 }
 
 #[test]
@@ -168,7 +175,12 @@ fn resistance_is_corrected_to_the_reading_temperature() {
         ("S", ls, 0.50, e.windings[1].dcr_ohm),
     ] {
         let p = check(&v, &dcr(name)).prediction.clone().unwrap();
-        assert_rel(p.expected / planned, 1.00786 / 1.3144, 1e-5, "IEC 60028 ratio");
+        assert_rel(
+            p.expected / planned,
+            1.00786 / 1.3144,
+            1e-5,
+            "IEC 60028 ratio",
+        );
         // And from the resistivity by hand: rho20 = 1/58 ohm mm^2/m, x (1 + 0.00393 x 2).
         assert_rel(p.expected, r_hand(bare, len, 22.0), 1e-3, "rho(22) L / A");
         // Tolerance +/-10 % (IEC 60317 diameter tolerance and the length estimate).
@@ -196,7 +208,12 @@ fn a_resistance_a_wire_size_off_names_the_size() {
                 ..
             },
         ] => {
-            assert_rel(*factor, (0.50f64 / 0.45).powi(2), 2e-3, "measured / expected");
+            assert_rel(
+                *factor,
+                (0.50f64 / 0.45).powi(2),
+                2e-3,
+                "measured / expected",
+            );
             assert_rel(*implied_bare_mm, 0.45, 1e-3, "diameter from R per metre");
             assert_eq!(*likely_wire, Some(WireSize::Metric { bare_mm: 0.45 }));
         }
@@ -260,7 +277,10 @@ fn one_turn_missing_on_the_secondary_is_flagged_with_that_winding() {
     let off: Vec<_> = v.out_of_tolerance().map(|c| c.quantity.clone()).collect();
     assert_eq!(off, vec![ratio("S")], "only the ratio shows one turn of 16");
     let words = turnstack::report::verify::finding_words(&c.findings[0]);
-    assert!(words.contains("S most likely has 15 turns, 1 turn fewer"), "{words}");
+    assert!(
+        words.contains("S most likely has 15 turns, 1 turn fewer"),
+        "{words}"
+    );
 }
 
 #[test]
@@ -322,7 +342,11 @@ fn load_err(readings: &str) -> files::LoadError {
 fn the_table_refuses_unknown_windings_and_bad_values_with_their_line() {
     let lines_before = PLAN.lines().count() + 2;
     let e = load_err("dcr_ohm = { P = 0.05, Q = 0.02 }");
-    assert!(e.message.contains("unknown winding \"Q\"; the windings are P, S"), "{e}");
+    assert!(
+        e.message
+            .contains("unknown winding \"Q\"; the windings are P, S"),
+        "{e}"
+    );
     assert_eq!(e.line, Some(lines_before + 1), "{e}");
     assert_eq!(e.key.as_deref(), Some("measured.dcr_ohm.Q"));
     let e = load_err("magnetising_uh = -3.0");
