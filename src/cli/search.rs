@@ -20,10 +20,12 @@ pub struct SearchArgs<'a> {
 }
 
 pub fn run(args: &SearchArgs) -> ExitCode {
-    let build = match load_or_demo(args.file) {
+    let mut build = match load_or_demo(args.file) {
         Ok(b) => b,
         Err(e) => return fail(&e),
     };
+    // The bench readings belong to the part wound from this build, not to other candidates.
+    build.set_measured(None);
     let tty = std::io::stderr().is_terminal();
     let progress = move |done: usize, total: usize| {
         if tty && total > 20_000 {

@@ -379,3 +379,14 @@ fn save_keeps_the_table() {
     assert!(!files::build_to_toml(&parse(PLAN)).contains("[measured]"));
     let _ = evaluate(&again);
 }
+
+#[test]
+fn readings_do_not_change_the_build_id() {
+    // The sheet's id names the plan; the bench readings of a part wound from it leave it be.
+    let with = parse(&format!("{PLAN}\n[measured]\nmagnetising_uh = 1200.0\n"));
+    let without = parse(PLAN);
+    assert_eq!(
+        turnstack::report::sheet::build_id(&with),
+        turnstack::report::sheet::build_id(&without)
+    );
+}
