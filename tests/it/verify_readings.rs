@@ -390,3 +390,26 @@ fn readings_do_not_change_the_build_id() {
         turnstack::report::sheet::build_id(&without)
     );
 }
+
+#[test]
+fn one_turn_either_way_on_either_winding_always_leaves_the_ratio_band() {
+    // Band +/- 0.4/max(Np, Nw); one turn moves Nw/Np by at least 1/(max + 1) relative, which
+    // is over 0.4/max for every max >= 1.
+    use turnstack::engine::verify::ratio_tolerance;
+    for np in 1..=120u32 {
+        for nw in 1..=120u32 {
+            let planned = f64::from(nw) / f64::from(np);
+            let band = ratio_tolerance(np, nw);
+            for (p, w) in [(np + 1, nw), (np - 1, nw), (np, nw + 1), (np, nw - 1)] {
+                if p == 0 || w == 0 {
+                    continue;
+                }
+                let off = (f64::from(w) / f64::from(p) / planned - 1.0).abs();
+                assert!(
+                    off > band,
+                    "Np {np} Nw {nw} -> {p}/{w}: {off} within {band}"
+                );
+            }
+        }
+    }
+}
