@@ -93,6 +93,16 @@ pub enum Command {
         #[arg(long, value_name = "N", default_value_t = 60)]
         page_lines: usize,
     },
+    /// Set the bench readings of a wound part (the build's [measured] table) against the plan
+    /// and say which are off and what that most likely means (exit 0 all within tolerance,
+    /// 1 one or more out, 2 bad input or no readings).
+    Verify {
+        /// The build file with a [measured] table.
+        file: PathBuf,
+        /// Print JSON (the `measured` and `verify` keys).
+        #[arg(long)]
+        json: bool,
+    },
     /// Lay a build's windings and stack onto every bobbin in the library and rank them.
     Fit {
         /// The build file.

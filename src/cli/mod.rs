@@ -7,6 +7,7 @@ mod lists;
 mod measure;
 mod search;
 mod sheet;
+mod verify;
 
 pub use args::{Cli, Command, MeasureBobbin, MeasureWhat};
 
@@ -42,6 +43,7 @@ pub fn main() -> ExitCode {
             measure_at_c,
             page_lines,
         ),
+        Some(Command::Verify { file, json }) => verify::run(&file, json),
         Some(Command::Fit {
             file,
             bobbins,

@@ -89,10 +89,12 @@ pub fn run(args: &SearchArgs) -> ExitCode {
         eprintln!("turnstack: search --out: {why}");
         return ExitCode::from(EXIT_BAD_INPUT);
     }
-    let build = match load_or_demo(args.file) {
+    let mut build = match load_or_demo(args.file) {
         Ok(b) => b,
         Err(e) => return fail(&e),
     };
+    // The bench readings belong to the part wound from this build, not to other candidates.
+    build.set_measured(None);
     if let Err(e) = search::search_ready(&build) {
         match args.file {
             Some(p) => eprintln!("turnstack: {}: {e}", p.display()),

@@ -22,6 +22,7 @@ pub mod resistance;
 pub mod search;
 pub mod thermal;
 pub mod validate;
+pub mod verify;
 mod warnings;
 
 pub use converter::ConverterEval;

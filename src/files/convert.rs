@@ -424,6 +424,7 @@ pub(super) fn build(
                 margin_mm: v(s.margin_mm, d.margin_mm),
                 tape_mm: v(s.tape_mm, d.tape_mm),
                 frequency_khz: s.frequency_khz.map(Spanned::into_inner),
+                measured: None,
             }
         }
     };
@@ -621,7 +622,8 @@ pub(super) fn build(
         }
     };
 
-    let build = Build {
+    let measured = super::measured::convert(text, path, file.measured, &windings)?;
+    let mut build = Build {
         title: file.title.unwrap_or_default(),
         bobbin_source,
         bobbin,
@@ -636,6 +638,7 @@ pub(super) fn build(
     if !problems.is_empty() {
         return Err(cx.invalid(&spans, &problems));
     }
+    build.set_measured(measured);
     Ok(build)
 }
 

@@ -5,6 +5,7 @@ mod convert;
 mod error;
 mod keep;
 mod lookup;
+mod measured;
 mod raw;
 mod recovery;
 mod save;

@@ -65,6 +65,8 @@ pub struct BuildFile {
     pub operating: Option<Spanned<OperatingRaw>>,
     pub material: Option<Spanned<MaterialRaw>>,
     pub isolation: Option<Spanned<IsolationRaw>>,
+    /// `[measured]`: the bench readings of the wound part (see `files::measured`).
+    pub measured: Option<Spanned<super::measured::MeasuredTable>>,
 }
 
 /// `[isolation]`: the declared class between primary and secondary sides.

@@ -1,6 +1,6 @@
 //! Writing builds and bobbins as tidy, hand-editable TOML, and replacing files atomically.
 
-use crate::model::{Bobbin, BobbinSource, Build, ResetSide, Section, Tube, WireSize};
+use crate::model::{Bobbin, BobbinSource, Build, Measured, ResetSide, Section, Tube, WireSize};
 use std::fmt::Write as _;
 use std::io::Write as _;
 use std::path::{Path, PathBuf};
@@ -379,6 +379,9 @@ pub fn build_to_toml(build: &Build) -> String {
             let _ = writeln!(out, "creepage_mm = {}", num(c));
         }
     }
+    if let Some(m) = build.measured() {
+        measured_keys(&mut out, m);
+    }
     out
 }
 
@@ -412,5 +415,51 @@ mod tests {
             .filter_map(|e| e.ok())
             .collect();
         assert_eq!(left.len(), 2);
+    }
+}
+
+/// `[measured]`: the bench readings, keys in the order FORMAT.md lists them.
+fn measured_keys(out: &mut String, m: &Measured) {
+    let _ = writeln!(out, "\n[measured]");
+    if let Some(c) = m.reading_c {
+        let _ = writeln!(out, "reading_c = {}", num(c));
+    }
+    if let Some(f) = m.frequency_khz {
+        let _ = writeln!(out, "frequency_khz = {}", num(f));
+    }
+    let table = |pairs: &[(crate::model::Name, f64)]| {
+        let items: Vec<String> = pairs
+            .iter()
+            .map(|(n, x)| {
+                let key = if !n.is_empty()
+                    && n.chars()
+                        .all(|c| c.is_ascii_alphanumeric() || c == '_' || c == '-')
+                {
+                    n.to_string()
+                } else {
+                    quote(n)
+                };
+                format!("{key} = {}", num(*x))
+            })
+            .collect();
+        format!("{{ {} }}", items.join(", "))
+    };
+    if !m.dcr_ohm.is_empty() {
+        let _ = writeln!(out, "dcr_ohm = {}", table(&m.dcr_ohm));
+    }
+    if let Some(l) = m.magnetising_uh {
+        let _ = writeln!(out, "magnetising_uh = {}", num(l));
+    }
+    if let Some(l) = m.leakage_uh {
+        let _ = writeln!(out, "leakage_uh = {}", num(l));
+    }
+    if !m.ratio.is_empty() {
+        let _ = writeln!(out, "ratio = {}", table(&m.ratio));
+    }
+    if let Some(h) = &m.hipot {
+        let _ = writeln!(out, "hipot = {}", quote(h));
+    }
+    if let Some(n) = &m.note {
+        let _ = writeln!(out, "note = {}", quote(n));
     }
 }

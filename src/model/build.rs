@@ -42,6 +42,9 @@ pub struct Setup {
     pub margin_mm: f64,
     pub tape_mm: f64,
     pub frequency_khz: Option<f64>,
+    /// The `[measured]` table (bench readings), kept here so every builder of a Build gets it
+    /// from `Setup::default()`; read it through `Build::measured`.
+    pub measured: Option<super::Measured>,
 }
 
 impl Default for Setup {
@@ -52,6 +55,7 @@ impl Default for Setup {
             margin_mm: 0.0,
             tape_mm: 0.06,
             frequency_khz: None,
+            measured: None,
         }
     }
 }

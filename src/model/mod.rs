@@ -4,6 +4,7 @@
 mod bobbin;
 mod build;
 mod isolation;
+mod measured;
 mod name;
 mod operating;
 mod wire;
@@ -11,6 +12,7 @@ mod wire;
 pub use bobbin::{Bobbin, Core, Tube, Window};
 pub use build::{BobbinSource, Build, Role, Section, SectionRef, Setup, Winding, WindingSection};
 pub use isolation::{Isolation, IsolationClass};
+pub use measured::{DEFAULT_READING_C, Measured};
 pub use name::Name;
 pub use operating::{Material, Operating, ResetSide, Steinmetz};
 pub use wire::{Insulation, WireSize, trim_mm};

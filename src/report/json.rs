@@ -193,5 +193,6 @@ pub fn report(build: &Build, eval: &Evaluation) -> Value {
             }))
             .collect::<Vec<_>>()
     );
+    super::verify::add_json(build, eval, &mut out);
     out
 }

@@ -5,6 +5,7 @@ pub mod fit;
 pub mod json;
 pub mod sheet;
 pub mod text;
+pub mod verify;
 mod wrap;
 
 pub use wrap::wrap;

@@ -25,4 +25,6 @@ mod tui_forms;
 mod tui_overlays;
 mod tui_render;
 mod validation_messages;
+mod verify_cli;
+mod verify_readings;
 mod wire_tables;

@@ -17,7 +17,17 @@ pub fn fnv1a64(bytes: &[u8]) -> u64 {
 }
 
 /// The identifier: 16 hex digits in four groups, e.g. `3f2a-91bc-0d44-7e10`.
+/// The `[measured]` table is left out: readings of a part do not change its plan.
 pub fn build_id(build: &Build) -> String {
+    let plan;
+    let build = if build.measured().is_some() {
+        let mut b = build.clone();
+        b.set_measured(None);
+        plan = b;
+        &plan
+    } else {
+        build
+    };
     let mut text = build_to_toml(build);
     text.push_str("\n# bobbin\n");
     text.push_str(&bobbin_to_toml(&build.bobbin));

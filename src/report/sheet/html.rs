@@ -133,7 +133,9 @@ pub fn render(s: &Sheet, svg: &str, scale: f64) -> String {
             e(&c.how)
         );
     }
-    o.push_str("</table><h2>Safety</h2><div class=\"caution\"><ul>");
+    o.push_str("</table>");
+    super::readings::html_table(&mut o, &s.readings, s.measure_at_c, escape);
+    o.push_str("<h2>Safety</h2><div class=\"caution\"><ul>");
     for c in &s.cautions {
         let _ = write!(o, "<li>{}</li>", e(c));
     }

@@ -3,6 +3,7 @@
 
 mod build_id;
 pub mod html;
+pub mod readings;
 pub mod svg;
 pub mod text;
 
@@ -92,6 +93,8 @@ pub struct Sheet {
     pub steps: Vec<Step>,
     pub measure_at_c: f64,
     pub checks: Vec<Check>,
+    /// Expected value, band and a cell to write each reading in (`readings.rs`).
+    pub readings: Vec<readings::ReadingRow>,
     /// The safety statements for the declared isolation.
     pub cautions: Vec<String>,
     pub warnings: Vec<String>,
@@ -421,6 +424,7 @@ pub fn sheet(build: &Build, eval: &Evaluation, measure_at_c: f64) -> Sheet {
         steps,
         measure_at_c,
         checks,
+        readings: readings::rows(build, eval, measure_at_c),
         cautions,
         warnings: eval
             .warnings

@@ -135,6 +135,7 @@ pub fn blocks(s: &Sheet) -> Vec<Vec<String>> {
         labelled(&mut checks, "  how", &c.how, 8);
     }
     out.push(checks);
+    out.push(super::readings::text_block(&s.readings, s.measure_at_c));
 
     let mut safety = Vec::new();
     block_title(&mut safety, "Safety");
