@@ -257,3 +257,27 @@ fn snapshot_wire_picker_80x24() {
     press(&mut app, "<tab><down><down>w");
     insta::assert_snapshot!(screen(&app, 80, 24));
 }
+
+/// At 120 columns the windings panel gives each heading its own column (a space between
+/// any two) and spells the roles out as the file writes them.
+#[test]
+fn windings_headings_apart_and_roles_whole_at_120x40() {
+    let app = bench_app();
+    let lines = render(&app, 120, 40);
+    let head = lines
+        .iter()
+        .find(|l| l.contains("name") && l.contains("turns"))
+        .expect("the windings heading");
+    for pair in ["ins len m", "len m   MLT", "MLT DCR ohm", "DCR ohm Rac ohm"] {
+        assert!(head.contains(pair), "{pair:?} not in {head}");
+    }
+    assert!(!head.contains("inslength"), "{head}");
+    for w in &app.build.windings {
+        let role = w.role.key();
+        let row = lines
+            .iter()
+            .find(|l| l.contains(&format!(" {:<4} {role} ", w.name)))
+            .unwrap_or_else(|| panic!("no row of {} with the role {role} whole", w.name));
+        assert!(row.contains(&format!(" {} ", w.turns)), "{row}");
+    }
+}

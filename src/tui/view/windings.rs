@@ -36,17 +36,19 @@ pub fn draw(app: &App, frame: &mut Frame, area: Rect) {
     if inner.height < 2 {
         return;
     }
-    let wide = inner.width >= 63;
-    let dense = inner.width >= 68;
+    // Wide: the roles in full and a space between every two headings (64 columns, the
+    // panel's inside at 120 columns); dense adds the current density.
+    let wide = inner.width >= 64;
+    let dense = inner.width >= 70;
     let head = if wide {
         format!(
-            " {:<4} {:<4}{:>6} {:<11} {:<3}{:>8}{:>7}{:>8}{:>8}{}",
+            " {:<4} {:<9}{:>5} {:<11} {:<3}{:>6}{:>6}{:>8}{:>8}{}",
             "name",
             "role",
             "turns",
             "wire",
             "ins",
-            "length m",
+            "len m",
             "MLT",
             "DCR ohm",
             "Rac ohm",
@@ -85,9 +87,9 @@ pub fn draw(app: &App, frame: &mut Frame, area: Rect) {
                 Span::raw(" ")
             };
             let role = if wide {
-                w.role.key()[..4].to_string()
+                w.role.key()
             } else {
-                w.role.key()[..3].to_string()
+                &w.role.key()[..3]
             };
             let (len, mlt, dcr, rac, j) = match e {
                 Some(e) => (
@@ -111,7 +113,7 @@ pub fn draw(app: &App, frame: &mut Frame, area: Rect) {
                     String::new()
                 };
                 format!(
-                    " {role:<4}{n:>6} {} {ins:<3}{len:>8}{mlt:>7}{dcr:>8}{rac:>8}{j}",
+                    " {role:<9}{n:>5} {} {ins:<3}{len:>6}{mlt:>6}{dcr:>8}{rac:>8}{j}",
                     pad(&wire, 11)
                 )
             } else {
