@@ -57,7 +57,12 @@ pub enum Effect {
 pub enum PickValue {
     Wire(WireSize),
     MeasuredWire,
-    Bobbin(String),
+    /// A bobbin of the library the list was made from (bundled, the user's, or beside the
+    /// build), carried whole so choosing it needs no second lookup.
+    Bobbin {
+        id: String,
+        bobbin: Box<crate::model::Bobbin>,
+    },
     MeasuredBobbin,
     Section(usize),
     Partner(Option<String>),
@@ -96,6 +101,16 @@ pub struct Picker {
     /// Index into `visible()`.
     pub selected: usize,
     pub filter: String,
+}
+
+impl PickValue {
+    /// The id of a bobbin item, `None` for any other item.
+    pub fn bobbin_id(&self) -> Option<&str> {
+        match self {
+            PickValue::Bobbin { id, .. } => Some(id),
+            _ => None,
+        }
+    }
 }
 
 impl Picker {
@@ -811,7 +826,10 @@ impl App {
                         e.origin.label(),
                         b.name
                     ),
-                    value: PickValue::Bobbin(e.id),
+                    value: PickValue::Bobbin {
+                        id: e.id,
+                        bobbin: Box::new(b),
+                    },
                 })
             })
             .collect();
@@ -824,7 +842,7 @@ impl App {
         let selected = match &self.build.bobbin_source {
             BobbinSource::Id(id) => items
                 .iter()
-                .position(|it| it.value == PickValue::Bobbin(id.clone()))
+                .position(|it| it.value.bobbin_id() == Some(id.as_str()))
                 .unwrap_or(0),
             BobbinSource::Inline => items.len().saturating_sub(1),
         };
@@ -860,7 +878,8 @@ impl App {
         };
         let mut items: Vec<PickItem> = crate::report::fit::rank(&self.build, &bobbins)
             .into_iter()
-            .map(|r| {
+            .filter_map(|r| {
+                let bobbin = bobbins.iter().find(|(id, _)| *id == r.bobbin)?.1.clone();
                 let mark = if current.as_deref() == Some(r.bobbin.as_str()) {
                     '*'
                 } else {
@@ -872,13 +891,16 @@ impl App {
                     (false, false) => ("no", format!("{:>6}", "-")),
                 };
                 let why = r.reasons.first().cloned().unwrap_or(r.name);
-                PickItem {
+                Some(PickItem {
                     label: format!(
                         "{mark}{:<10} {fits:<4} {spare} {:>5.2}  {why}",
                         r.bobbin, r.fill_factor
                     ),
-                    value: PickValue::Bobbin(r.bobbin),
-                }
+                    value: PickValue::Bobbin {
+                        id: r.bobbin,
+                        bobbin: Box::new(bobbin),
+                    },
+                })
             })
             .collect();
         items.push(PickItem {
@@ -888,7 +910,7 @@ impl App {
         let selected = match &current {
             Some(id) => items
                 .iter()
-                .position(|it| it.value == PickValue::Bobbin(id.clone()))
+                .position(|it| it.value.bobbin_id() == Some(id.as_str()))
                 .unwrap_or(0),
             None => items.len() - 1,
         };
@@ -1103,18 +1125,12 @@ impl App {
                     PromptPurpose::MeasuredWire(k),
                 );
             }
-            (PickPurpose::Bobbin, PickValue::Bobbin(id)) => {
-                let lib = BobbinLibrary::standard();
-                match lib.find(&id) {
-                    Some(Ok(bob)) => {
-                        self.edit(format!("bobbin {id}"), |b| {
-                            b.bobbin_source = BobbinSource::Id(id.clone());
-                            b.bobbin = bob;
-                            Ok(())
-                        });
-                    }
-                    _ => self.error(format!("bobbin {id} cannot be read")),
-                }
+            (PickPurpose::Bobbin, PickValue::Bobbin { id, bobbin }) => {
+                self.edit(format!("bobbin {id}"), |b| {
+                    b.bobbin_source = BobbinSource::Id(id.clone());
+                    b.bobbin = *bobbin;
+                    Ok(())
+                });
             }
             (PickPurpose::Bobbin, PickValue::MeasuredBobbin) => {
                 let ok = self.edit("measured bobbin", |b| {
@@ -1130,12 +1146,9 @@ impl App {
                     self.open_form(FormKind::Bobbin);
                 }
             }
-            (PickPurpose::NewBuild, PickValue::Bobbin(id)) => {
-                let lib = match &self.path {
-                    Some(p) => BobbinLibrary::for_build(p),
-                    None => BobbinLibrary::standard(),
-                };
-                if let Some(Ok(bob)) = lib.find(&id) {
+            (PickPurpose::NewBuild, PickValue::Bobbin { id, bobbin }) => {
+                {
+                    let bob = *bobbin;
                     let path = if self.saved.is_none() {
                         self.path.clone()
                     } else {

@@ -476,3 +476,56 @@ fn demo_scenario_split_thin_bifilar_undo_save_reopen() {
     assert_eq!(reopened.build, app.build);
     assert_eq!(reopened.eval, app.eval);
 }
+
+/// A bobbin file in the `bobbins/` folder beside the build.
+fn beside_bobbin(dir: &std::path::Path, id: &str, width_mm: f64, height_mm: f64) {
+    let folder = dir.join("bobbins");
+    std::fs::create_dir_all(&folder).unwrap();
+    let text = format!(
+        "format = 1\nname = \"former beside the build\"\norigin = \"measured\"\n\
+         [window]\nwidth_mm = {width_mm}\nheight_mm = {height_mm}\n\
+         [tube]\nshape = \"round\"\ndiameter_mm = 9.0\n"
+    );
+    std::fs::write(folder.join(format!("{id}.toml")), text).unwrap();
+}
+
+/// The bobbin list shows the bobbins beside the build; choosing one takes that very bobbin,
+/// also when its id is a bundled one's (here e25-13-7, with other dimensions) or no bundled
+/// one's at all.
+#[test]
+fn the_bobbin_list_takes_the_bobbin_beside_the_build() {
+    let dir = tempfile::tempdir().unwrap();
+    beside_bobbin(dir.path(), "e25-13-7", 17.5, 5.5);
+    beside_bobbin(dir.path(), "my-former", 16.0, 5.0);
+    let bundled = BobbinLibrary::bundled_only()
+        .find("e25-13-7")
+        .unwrap()
+        .unwrap();
+    assert_ne!(bundled.window.width_mm, 17.5);
+    let mut app = plain_app();
+    app.path = Some(dir.path().join("build.toml"));
+    assert_eq!(app.build.bobbin.window.width_mm, bundled.window.width_mm);
+
+    press(&mut app, "Be25-13-7<enter>");
+    assert!(app.overlays.is_empty(), "{:?}", app.status);
+    assert_eq!(app.build.bobbin.window.width_mm, 17.5);
+    assert_eq!(app.build.bobbin.window.height_mm, 5.5);
+    assert_eq!(app.build.bobbin.name, "former beside the build");
+    assert_eq!(
+        app.build.bobbin_source,
+        turnstack::model::BobbinSource::Id("e25-13-7".into())
+    );
+
+    press(&mut app, "Bmy-former<enter>");
+    assert_ne!(
+        app.status.as_ref().map(|s| s.kind),
+        Some(StatusKind::Error),
+        "{:?}",
+        app.status
+    );
+    assert_eq!(app.build.bobbin.window.width_mm, 16.0);
+    assert_eq!(
+        app.build.bobbin_source,
+        turnstack::model::BobbinSource::Id("my-former".into())
+    );
+}

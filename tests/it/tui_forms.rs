@@ -236,7 +236,7 @@ fn bobbin_list_is_ranked_by_fit_with_the_current_one_marked() {
         .items
         .iter()
         .filter_map(|it| match &it.value {
-            PickValue::Bobbin(id) => Some(id.clone()),
+            PickValue::Bobbin { id, .. } => Some(id.clone()),
             _ => None,
         })
         .collect();
@@ -244,7 +244,7 @@ fn bobbin_list_is_ranked_by_fit_with_the_current_one_marked() {
     assert_eq!(ids, want);
     assert!(ranked[0].fits && !ranked.last().unwrap().fits);
     let current = p.items.iter().find(|it| it.label.starts_with('*')).unwrap();
-    assert_eq!(current.value, PickValue::Bobbin("e25-13-7".into()));
+    assert_eq!(current.value.bobbin_id(), Some("e25-13-7"));
     assert!(p.items[0].label.contains("yes"));
     assert!(p.items.iter().any(|it| it.label.contains("too tall")));
     // Choosing one is an edit; undo goes back.
