@@ -51,6 +51,21 @@ pub enum Effect {
     /// Run the search on the current build (the loop draws "searching..." first).
     Search,
     Quit,
+    /// A write the user agreed may replace the file there: carried out without asking.
+    Confirmed(Box<Effect>),
+}
+
+impl Effect {
+    /// The file this effect would write and whether an existing one there must be asked
+    /// about first: a save to the document's own file is not, any other write is.
+    pub fn replaces(&self, own: Option<&std::path::Path>) -> Option<&std::path::Path> {
+        match self {
+            Effect::Save(p) | Effect::SaveThenQuit(p) => (own != Some(p.as_path())).then_some(p),
+            Effect::WriteSheet(p) => Some(p),
+            Effect::SaveBobbin { path, .. } => Some(path),
+            _ => None,
+        }
+    }
 }
 
 #[derive(Debug, Clone, PartialEq)]
@@ -270,13 +285,13 @@ pub struct Prompt {
     pub purpose: PromptPurpose,
 }
 
-#[derive(Debug, Clone, Copy, PartialEq)]
+#[derive(Debug, Clone, PartialEq)]
 pub enum Question {
     Quit,
     DiscardForOpen,
     DiscardForNew,
-    /// A bobbin file of that id exists in the user's folder (`App::pending_bobbin`).
-    OverwriteBobbin,
+    /// The file a write would go to exists: replace it (the write is carried out) or cancel.
+    Overwrite(Box<Effect>),
 }
 
 #[derive(Debug, Clone, PartialEq)]
@@ -320,8 +335,6 @@ pub struct App {
     pub found: Vec<Candidate>,
     /// Where bobbins are saved: the user's bobbin folder (tests point it elsewhere).
     pub bobbin_dir: Option<PathBuf>,
-    /// A bobbin file waiting for the overwrite question: its path and text.
-    pub pending_bobbin: Option<(PathBuf, String)>,
 }
 
 fn parse_f64(s: &str) -> Option<f64> {
@@ -354,7 +367,6 @@ impl App {
             core_draft: CoreDraft::default(),
             found: Vec::new(),
             bobbin_dir: crate::files::user_bobbin_dir(),
-            pending_bobbin: None,
         }
     }
 
@@ -580,7 +592,7 @@ impl App {
                 None
             }
             Some(Overlay::Prompt(p)) => self.prompt_key(action, p),
-            Some(Overlay::Question(q)) => self.question_key(action, q),
+            Some(Overlay::Question(q)) => self.question_key(action, &q),
             None => self.main_key(action),
         }
     }
@@ -1147,21 +1159,19 @@ impl App {
                 }
             }
             (PickPurpose::NewBuild, PickValue::Bobbin { id, bobbin }) => {
-                {
-                    let bob = *bobbin;
-                    let path = if self.saved.is_none() {
-                        self.path.clone()
-                    } else {
-                        None
-                    };
-                    let theme = self.theme;
-                    *self = App::new(edit::new_build(&id, bob), path);
-                    self.saved = None;
-                    self.theme = theme;
-                    self.info(format!(
-                        "new build on {id}: a primary and a secondary to start from; W saves"
-                    ));
-                }
+                let bob = *bobbin;
+                let path = if self.saved.is_none() {
+                    self.path.clone()
+                } else {
+                    None
+                };
+                let theme = self.theme;
+                *self = App::new(edit::new_build(&id, bob), path);
+                self.saved = None;
+                self.theme = theme;
+                self.info(format!(
+                    "new build on {id}: a primary and a secondary to start from; W saves"
+                ));
             }
             (PickPurpose::SplitAround(x), PickValue::Section(y)) => {
                 let a = self.section_name(x);
@@ -1627,7 +1637,13 @@ impl App {
         }
     }
 
-    fn question_key(&mut self, action: Action, q: Question) -> Option<Effect> {
+    /// The loop found a file where `effect` would write: ask before replacing it.
+    pub fn ask_overwrite(&mut self, effect: Effect) {
+        self.overlays
+            .push(Overlay::Question(Question::Overwrite(Box::new(effect))));
+    }
+
+    fn question_key(&mut self, action: Action, q: &Question) -> Option<Effect> {
         match action {
             Action::Yes => {
                 self.overlays.pop();
@@ -1637,14 +1653,10 @@ impl App {
                         self.prompt("open build file", "", PromptPurpose::OpenPath)
                     }
                     Question::DiscardForNew => self.open_bobbin_picker(PickPurpose::NewBuild),
-                    Question::OverwriteBobbin => {
-                        if let Some((path, text)) = self.pending_bobbin.take() {
-                            return Some(Effect::SaveBobbin { path, text });
-                        }
-                    }
+                    Question::Overwrite(e) => return Some(Effect::Confirmed(e.clone())),
                 }
             }
-            Action::SaveThenQuit if q == Question::Quit => {
+            Action::SaveThenQuit if *q == Question::Quit => {
                 self.overlays.pop();
                 match self.path.clone() {
                     Some(p) => return Some(Effect::SaveThenQuit(p)),
@@ -1653,8 +1665,12 @@ impl App {
             }
             Action::No | Action::Cancel => {
                 self.overlays.pop();
-                if q == Question::OverwriteBobbin && self.pending_bobbin.take().is_some() {
-                    self.info("kept the bobbin file that was there; nothing written");
+                if let Question::Overwrite(e) = q {
+                    let what = match **e {
+                        Effect::SaveBobbin { .. } => "the bobbin file",
+                        _ => "the file",
+                    };
+                    self.info(format!("kept {what} that was there; nothing written"));
                 }
             }
             _ => {}

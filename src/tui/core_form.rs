@@ -2,7 +2,7 @@
 //! until applied to the build's bobbin (one undoable edit) or saved to the user's folder.
 //! The figures shown (Ae, AL, mu_e, the equivalent gap) come from `engine::core_test`.
 
-use super::app::{App, Effect, Field, Overlay, PromptPurpose, Question};
+use super::app::{App, Effect, Field, PromptPurpose};
 use crate::engine::core_test::{self, GapReading, Leg, Measured};
 use crate::files::bobbin_to_toml;
 use crate::model::BobbinSource;
@@ -290,12 +290,6 @@ impl App {
         };
         let path = dir.join(format!("{id}.toml"));
         let text = bobbin_to_toml(&self.build.bobbin);
-        if path.exists() {
-            self.pending_bobbin = Some((path, text));
-            self.overlays
-                .push(Overlay::Question(Question::OverwriteBobbin));
-            return None;
-        }
         Some(Effect::SaveBobbin { path, text })
     }
 }

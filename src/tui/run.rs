@@ -4,7 +4,7 @@
 
 use super::app::{App, Effect};
 use super::view;
-use crate::files::{load_build, save_build};
+use crate::files::{load_build, save_build, write_atomic};
 use ratatui::DefaultTerminal;
 use ratatui::crossterm::event::{self, Event, KeyEventKind};
 use std::path::Path;
@@ -38,8 +38,20 @@ fn event_loop(terminal: &mut DefaultTerminal, app: &mut App) -> std::io::Result<
     }
 }
 
-/// Carry out an effect; true when the planner should stop.
+/// Carry out an effect; true when the planner should stop. A write over an existing file
+/// (other than saving the document to its own file) asks first, unless the effect is the
+/// user's yes to that question.
 pub fn perform(app: &mut App, effect: Effect) -> bool {
+    let effect = match effect {
+        Effect::Confirmed(e) => *e,
+        e => {
+            if e.replaces(app.path.as_deref()).is_some_and(Path::exists) {
+                app.ask_overwrite(e);
+                return false;
+            }
+            e
+        }
+    };
     match effect {
         Effect::Quit => true,
         Effect::Save(p) => {
@@ -52,11 +64,17 @@ pub fn perform(app: &mut App, effect: Effect) -> bool {
             false
         }
         Effect::WriteSheet(p) => {
-            app.write_sheet(&p);
+            let page = app.sheet_page(&p);
+            let result = write_atomic(&p, &page.text);
+            app.wrote_sheet(&p, &page, result);
             false
         }
         Effect::SaveBobbin { path, text } => {
-            app.save_bobbin_file(&path, &text);
+            let result = path
+                .parent()
+                .map_or(Ok(()), std::fs::create_dir_all)
+                .and_then(|()| write_atomic(&path, &text));
+            app.wrote_bobbin(&path, result);
             false
         }
         Effect::Open(p) => {
@@ -66,6 +84,8 @@ pub fn perform(app: &mut App, effect: Effect) -> bool {
             }
             false
         }
+        // A yes to a yes: carry out the write inside.
+        Effect::Confirmed(e) => perform(app, Effect::Confirmed(e)),
     }
 }
 

@@ -1,10 +1,9 @@
-//! The planner's longer jobs: the search over wires and section orders, writing the winding
-//! sheet, saving a measured bobbin. The figures come from `engine::search` and
-//! `report::sheet`; the loop calls these for the matching `Effect`.
+//! The planner's longer jobs: the search over wires and section orders, the winding sheet's
+//! page, and what the status line says after the loop wrote a file. The figures come from
+//! `engine::search` and `report::sheet`; the loop calls these for the matching `Effect`.
 
 use super::app::{App, Overlay, PickItem, PickPurpose, PickValue, Picker};
 use crate::engine::search::{self, Settings};
-use crate::files::write_atomic;
 use crate::report::sheet::{self, html, svg, text};
 use std::path::Path;
 
@@ -86,23 +85,32 @@ impl App {
         });
     }
 
-    /// Write the winding sheet of the current build: HTML for a name ending in .html, else
-    /// text pages.
-    pub fn write_sheet(&mut self, path: &Path) {
+    /// The winding sheet of the current build as the page to write to `path`: HTML for a
+    /// name ending in .html, else text pages. The loop writes it.
+    pub fn sheet_page(&self, path: &Path) -> SheetPage {
         let s = sheet::sheet(&self.build, &self.eval, SHEET_MEASURE_AT_C);
-        let is_html = path
+        let html = path
             .extension()
             .is_some_and(|e| e.eq_ignore_ascii_case("html"));
-        let page = if is_html {
+        let text = if html {
             let (scale, drawing) = svg::cross_section(&self.build, &self.eval);
             html::render(&s, &drawing, scale)
         } else {
             text::render(&s, SHEET_PAGE_LINES)
         };
+        SheetPage {
+            text,
+            html,
+            build_id: s.build_id,
+        }
+    }
+
+    /// The loop wrote (or failed to write) the sheet `page` to `path`.
+    pub fn wrote_sheet(&mut self, path: &Path, page: &SheetPage, result: std::io::Result<()>) {
         let shown = std::path::absolute(path).unwrap_or_else(|_| path.to_path_buf());
-        match write_atomic(path, &page) {
+        match result {
             Ok(()) => {
-                let kind = if is_html { "HTML" } else { "text" };
+                let kind = if page.html { "HTML" } else { "text" };
                 let warn = if self.eval.fits {
                     ""
                 } else {
@@ -111,22 +119,28 @@ impl App {
                 self.info(format!(
                     "wrote {}: the {kind} winding sheet of build {}{warn}",
                     shown.display(),
-                    s.build_id
+                    page.build_id
                 ));
             }
             Err(e) => self.error(format!("cannot write {}: {e}", shown.display())),
         }
     }
 
-    /// Write a bobbin file (the overwrite question, if any, was asked already).
-    pub fn save_bobbin_file(&mut self, path: &Path, text: &str) {
-        let written = path
-            .parent()
-            .map_or(Ok(()), std::fs::create_dir_all)
-            .and_then(|()| write_atomic(path, text));
-        match written {
+    /// The loop wrote (or failed to write) a bobbin file to `path`.
+    pub fn wrote_bobbin(&mut self, path: &Path, result: std::io::Result<()>) {
+        match result {
             Ok(()) => self.info(format!("saved the bobbin to {}", path.display())),
             Err(e) => self.error(format!("cannot write {}: {e}", path.display())),
         }
     }
+}
+
+/// A winding sheet ready to write.
+pub struct SheetPage {
+    /// The whole file.
+    pub text: String,
+    /// HTML (a printable page) rather than text pages.
+    pub html: bool,
+    /// The build id the sheet carries.
+    pub build_id: String,
 }

@@ -75,7 +75,7 @@ pub fn draw(app: &App, frame: &mut Frame) {
             Overlay::Picker(p) => popup::picker(app, frame, area, p),
             Overlay::Form(f) => popup::form(app, frame, area, f),
             Overlay::Prompt(p) => popup::prompt(app, frame, area, p),
-            Overlay::Question(q) => popup::question(app, frame, area, *q),
+            Overlay::Question(q) => popup::question(app, frame, area, q),
         }
     }
 }

@@ -1,6 +1,6 @@
 //! Pop-ups over the main screen: pick lists, forms, the line editor and questions.
 
-use super::super::app::{App, Form, Picker, Prompt, Question};
+use super::super::app::{App, Effect, Form, Picker, Prompt, Question};
 use super::{fit, pad, wrap};
 use ratatui::Frame;
 use ratatui::layout::Rect;
@@ -198,8 +198,9 @@ pub fn prompt(app: &App, frame: &mut Frame, area: Rect, p: &Prompt) {
     frame.render_widget(Paragraph::new(lines), inner);
 }
 
-pub fn question(app: &App, frame: &mut Frame, area: Rect, q: Question) {
+pub fn question(app: &App, frame: &mut Frame, area: Rect, q: &Question) {
     let t = &app.theme;
+    let replaced;
     let (title, text, keys) = match q {
         Question::Quit => (
             "Unsaved edits",
@@ -216,11 +217,29 @@ pub fn question(app: &App, frame: &mut Frame, area: Rect, q: Question) {
             "Start a new build and drop the unsaved edits?",
             "y yes, start anew · n / Esc stay",
         ),
-        Question::OverwriteBobbin => (
-            "Bobbin file exists",
-            "Your bobbin folder already has a file of that id. Replace it?",
-            "y yes, replace it · n / Esc keep it",
-        ),
+        Question::Overwrite(e) => match &**e {
+            Effect::SaveBobbin { .. } => (
+                "Bobbin file exists",
+                "Your bobbin folder already has a file of that id. Replace it?",
+                "y yes, replace it · n / Esc keep it",
+            ),
+            other => {
+                let name = other
+                    .replaces(None)
+                    .and_then(|p| p.file_name())
+                    .map_or(String::new(), |n| n.to_string_lossy().into_owned());
+                let what = match other {
+                    Effect::WriteSheet(_) => "the winding sheet",
+                    _ => "the build",
+                };
+                replaced = format!("{name} exists. Write {what} over it?");
+                (
+                    "File exists",
+                    replaced.as_str(),
+                    "y yes, overwrite · n / Esc cancel",
+                )
+            }
+        },
     };
     let rect = centred(area, 62, 6);
     let inner = frame_box(app, frame, rect, title, "");
