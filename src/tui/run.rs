@@ -45,7 +45,9 @@ pub fn perform(app: &mut App, effect: Effect) -> bool {
     let effect = match effect {
         Effect::Confirmed(e) => *e,
         e => {
-            if e.replaces(app.path.as_deref()).is_some_and(Path::exists) {
+            if e.replaces(app.doc.path.as_deref())
+                .is_some_and(Path::exists)
+            {
                 app.ask_overwrite(e);
                 return false;
             }
@@ -90,7 +92,7 @@ pub fn perform(app: &mut App, effect: Effect) -> bool {
 }
 
 fn save(app: &mut App, path: &Path) -> bool {
-    match save_build(path, &app.build) {
+    match save_build(path, &app.doc.build) {
         Ok(()) => {
             app.saved_to(path.to_path_buf());
             true

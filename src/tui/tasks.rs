@@ -1,9 +1,7 @@
-//! The planner's longer jobs: the search over wires and section orders, the winding sheet's
-//! page, and what the status line says after the loop wrote a file. The figures come from
-//! `engine::search` and `report::sheet`; the loop calls these for the matching `Effect`.
+//! The winding sheet's page, and what the status line says after the loop wrote a file.
+//! The figures come from `report::sheet`; the loop calls these for the matching `Effect`.
 
-use super::app::{App, Overlay, PickItem, PickPurpose, PickValue, Picker};
-use crate::engine::search::{self, Settings};
+use super::app::App;
 use crate::report::sheet::{self, html, svg, text};
 use std::path::Path;
 
@@ -13,87 +11,15 @@ const SHEET_PAGE_LINES: usize = 60;
 const SHEET_MEASURE_AT_C: f64 = 20.0;
 
 impl App {
-    /// Search on the current build and list the trade-offs found.
-    pub fn run_search(&mut self) {
-        let settings = Settings {
-            threads: 2,
-            ..Settings::default()
-        };
-        let outcome = match search::search(&self.build, &settings, &|_, _| {}) {
-            Ok(o) => o,
-            Err(e) => {
-                self.refuse(format!("search: {e}"));
-                return;
-            }
-        };
-        let counts = format!(
-            "{} evaluated, {} skipped, {} on the front",
-            outcome.evaluated,
-            outcome.pruned,
-            outcome.candidates.len()
-        );
-        if outcome.candidates.is_empty() {
-            let why = outcome
-                .binding
-                .unwrap_or_else(|| "no candidate meets the constraints".into());
-            self.found.clear();
-            self.info(format!("search found nothing ({counts}): {why}"));
-            return;
-        }
-        let items = outcome
-            .candidates
-            .iter()
-            .enumerate()
-            .map(|(i, c)| PickItem {
-                label: format!(
-                    "{:>2} {:>8.3} {:>8.3} {:>8.2}  {}",
-                    i + 1,
-                    c.objectives.loss_w,
-                    c.objectives.leakage_uh,
-                    c.eval.spare_height_mm,
-                    c.description
-                ),
-                value: PickValue::Candidate(i),
-            })
-            .collect();
-        self.found = outcome.candidates;
-        self.overlays.push(Overlay::Picker(Picker {
-            title: format!("search: {counts}"),
-            header: format!(
-                "{:>2} {:>8} {:>8} {:>8}  what it does",
-                "#", "loss W", "leak uH", "spare mm"
-            ),
-            purpose: PickPurpose::Search,
-            items,
-            selected: 0,
-            filter: String::new(),
-        }));
-        self.info("Enter takes the candidate as one edit (u undoes it); Esc keeps the build");
-    }
-
-    /// Replace the build with a candidate's, as one edit.
-    pub(super) fn take_candidate(&mut self, n: usize) {
-        let Some(c) = self.found.get(n) else {
-            self.refuse("that candidate is gone: search again");
-            return;
-        };
-        let next = c.build.clone();
-        let label = format!("search candidate {}: {}", n + 1, c.description);
-        self.edit(label, |b| {
-            *b = next;
-            Ok(())
-        });
-    }
-
     /// The winding sheet of the current build as the page to write to `path`: HTML for a
     /// name ending in .html, else text pages. The loop writes it.
     pub fn sheet_page(&self, path: &Path) -> SheetPage {
-        let s = sheet::sheet(&self.build, &self.eval, SHEET_MEASURE_AT_C);
+        let s = sheet::sheet(&self.doc.build, &self.doc.eval, SHEET_MEASURE_AT_C);
         let html = path
             .extension()
             .is_some_and(|e| e.eq_ignore_ascii_case("html"));
         let text = if html {
-            let (scale, drawing) = svg::cross_section(&self.build, &self.eval);
+            let (scale, drawing) = svg::cross_section(&self.doc.build, &self.doc.eval);
             html::render(&s, &drawing, scale)
         } else {
             text::render(&s, SHEET_PAGE_LINES)
@@ -111,7 +37,7 @@ impl App {
         match result {
             Ok(()) => {
                 let kind = if page.html { "HTML" } else { "text" };
-                let warn = if self.eval.fits {
+                let warn = if self.doc.eval.fits {
                     ""
                 } else {
                     " (it does not fit: the sheet says DO NOT WIND)"

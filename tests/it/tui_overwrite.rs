@@ -4,7 +4,7 @@
 
 use crate::tui_support::*;
 use turnstack::tui::app::{Overlay, Question};
-use turnstack::tui::{App, Effect, run::perform};
+use turnstack::tui::{App, run::perform};
 
 /// Press keys and carry out every effect they give, as the run loop does.
 fn drive(app: &mut App, keys: &str) {
@@ -15,7 +15,7 @@ fn drive(app: &mut App, keys: &str) {
 
 fn asking(app: &App) -> bool {
     matches!(
-        app.overlays.last(),
+        app.ui.overlays.last(),
         Some(Overlay::Question(Question::Overwrite(_)))
     )
 }
@@ -26,11 +26,11 @@ fn save_as_over_an_existing_file_asks_and_cancel_keeps_it() {
     let other = dir.path().join("other.toml");
     std::fs::write(&other, "# someone else's build\n").unwrap();
     let mut app = demo_app();
-    app.path = Some(dir.path().join("mine.toml"));
+    app.doc.path = Some(dir.path().join("mine.toml"));
     let keys = format!("A{}{}<enter>", "<bs>".repeat(200), other.display());
 
     drive(&mut app, &keys);
-    assert!(asking(&app), "{:?}", app.overlays);
+    assert!(asking(&app), "{:?}", app.ui.overlays);
     let s = screen(&app, 100, 30);
     assert!(
         s.contains("other.toml exists. Write the build over it?"),
@@ -38,13 +38,13 @@ fn save_as_over_an_existing_file_asks_and_cancel_keeps_it() {
     );
     assert!(s.contains("y yes, overwrite"), "{s}");
     drive(&mut app, "n");
-    assert!(app.overlays.is_empty());
+    assert!(app.ui.overlays.is_empty());
     assert_eq!(
         std::fs::read_to_string(&other).unwrap(),
         "# someone else's build\n"
     );
     assert_eq!(
-        app.path.as_deref(),
+        app.doc.path.as_deref(),
         Some(dir.path().join("mine.toml").as_path())
     );
 
@@ -52,7 +52,7 @@ fn save_as_over_an_existing_file_asks_and_cancel_keeps_it() {
     drive(&mut app, &keys);
     assert!(asking(&app));
     drive(&mut app, "<esc>");
-    assert!(app.overlays.is_empty());
+    assert!(app.ui.overlays.is_empty());
     assert_eq!(
         std::fs::read_to_string(&other).unwrap(),
         "# someone else's build\n"
@@ -61,10 +61,10 @@ fn save_as_over_an_existing_file_asks_and_cancel_keeps_it() {
     // Yes overwrites, and the build now belongs to that file.
     drive(&mut app, &keys);
     drive(&mut app, "y");
-    assert!(app.overlays.is_empty());
+    assert!(app.ui.overlays.is_empty());
     let back = turnstack::files::load_build(&other).expect("the saved build loads");
-    assert_eq!(back, app.build);
-    assert_eq!(app.path.as_deref(), Some(other.as_path()));
+    assert_eq!(back, app.doc.build);
+    assert_eq!(app.doc.path.as_deref(), Some(other.as_path()));
     assert!(!app.dirty());
 }
 
@@ -75,12 +75,12 @@ fn saving_to_its_own_file_or_a_new_name_does_not_ask() {
     let mut app = demo_app();
     let keys = format!("A{}{}<enter>", "<bs>".repeat(200), mine.display());
     drive(&mut app, &keys);
-    assert!(app.overlays.is_empty() && mine.exists());
+    assert!(app.ui.overlays.is_empty() && mine.exists());
     // Its own file again, after an edit: written without a question.
     drive(&mut app, "+W");
-    assert!(app.overlays.is_empty() && !app.dirty());
+    assert!(app.ui.overlays.is_empty() && !app.dirty());
     drive(&mut app, &keys);
-    assert!(app.overlays.is_empty());
+    assert!(app.ui.overlays.is_empty());
 }
 
 #[test]
@@ -103,8 +103,8 @@ fn a_sheet_over_an_existing_file_asks_first() {
 
     drive(&mut app, &keys);
     drive(&mut app, "y");
-    assert!(app.overlays.is_empty());
+    assert!(app.ui.overlays.is_empty());
     let text = std::fs::read_to_string(&sheet).unwrap();
     assert!(text.contains("Checks"), "{text}");
-    assert!(app.status.as_ref().unwrap().text.starts_with("wrote "));
+    assert!(app.ui.status.as_ref().unwrap().text.starts_with("wrote "));
 }

@@ -21,7 +21,7 @@ fn centred(area: Rect, w: u16, h: u16) -> Rect {
 
 fn frame_box(app: &App, frame: &mut Frame, rect: Rect, title: &str, foot: &str) -> Rect {
     frame.render_widget(Clear, rect);
-    let t = &app.theme;
+    let t = &app.ui.theme;
     let w = rect.width.saturating_sub(4) as usize;
     let block = Block::bordered()
         .title(Line::from(format!(" {} ", fit(title, w))).style(t.title()))
@@ -32,7 +32,7 @@ fn frame_box(app: &App, frame: &mut Frame, rect: Rect, title: &str, foot: &str) 
 }
 
 pub fn picker(app: &App, frame: &mut Frame, area: Rect, p: &Picker) {
-    let t = &app.theme;
+    let t = &app.ui.theme;
     let visible = p.visible();
     let longest = p
         .items
@@ -103,13 +103,17 @@ pub fn picker(app: &App, frame: &mut Frame, area: Rect, p: &Picker) {
 }
 
 pub fn form(app: &App, frame: &mut Frame, area: Rect, f: &Form) {
-    let t = &app.theme;
+    let t = &app.ui.theme;
     let rows = app.form_rows(f.kind);
     let title = match f.kind {
         super::super::app::FormKind::Setup => "Setup".to_string(),
         super::super::app::FormKind::Winding(k) => format!(
             "Winding {}",
-            app.build.windings.get(k).map_or("", |w| w.name.as_str())
+            app.doc
+                .build
+                .windings
+                .get(k)
+                .map_or("", |w| w.name.as_str())
         ),
         super::super::app::FormKind::Bobbin => "Measured bobbin and core".to_string(),
         super::super::app::FormKind::Operating => "Operating point [operating]".to_string(),
@@ -153,10 +157,13 @@ pub fn form(app: &App, frame: &mut Frame, area: Rect, f: &Form) {
     let lw = 32.min(inner.width as usize / 2);
     let items: Vec<ListItem> = rows
         .iter()
-        .map(|(_, label, value)| {
+        .map(|row| {
             ListItem::new(Line::from(vec![
-                Span::styled(pad(label, lw), t.dim()),
-                Span::raw(fit(value, (inner.width as usize).saturating_sub(lw + 2))),
+                Span::styled(pad(row.label, lw), t.dim()),
+                Span::raw(fit(
+                    &row.value,
+                    (inner.width as usize).saturating_sub(lw + 2),
+                )),
             ]))
         })
         .collect();
@@ -177,7 +184,7 @@ pub fn form(app: &App, frame: &mut Frame, area: Rect, f: &Form) {
 }
 
 pub fn prompt(app: &App, frame: &mut Frame, area: Rect, p: &Prompt) {
-    let t = &app.theme;
+    let t = &app.ui.theme;
     let rect = centred(area, 64, 6);
     let inner = frame_box(app, frame, rect, &p.label, "Enter accept · Esc cancel");
     let w = inner.width as usize;
@@ -199,7 +206,7 @@ pub fn prompt(app: &App, frame: &mut Frame, area: Rect, p: &Prompt) {
 }
 
 pub fn question(app: &App, frame: &mut Frame, area: Rect, q: &Question) {
-    let t = &app.theme;
+    let t = &app.ui.theme;
     let replaced;
     let (title, text, keys) = match q {
         Question::Quit => (

@@ -9,11 +9,11 @@ use ratatui::text::{Line, Span};
 use ratatui::widgets::{List, ListItem, ListState};
 
 pub fn draw(app: &App, frame: &mut Frame, area: Rect) {
-    let t = &app.theme;
+    let t = &app.ui.theme;
     let block = panel(
         app,
         "Stack, outermost on top".into(),
-        app.focus == Focus::Stack,
+        app.ui.focus == Focus::Stack,
     )
     .title_bottom(Line::from(" tube ").centered());
     let inner = block.inner(area);
@@ -42,16 +42,16 @@ pub fn draw(app: &App, frame: &mut Frame, area: Rect) {
         height: inner.height - 1,
         ..inner
     };
-    let n = app.eval.sections.len();
+    let n = app.doc.eval.sections.len();
     let items: Vec<ListItem> = (0..n)
         .rev()
         .map(|i| ListItem::new(row(app, i, wide, inner.width as usize)))
         .collect();
     let mut state = ListState::default();
     if n > 0 {
-        state.select(Some(n - 1 - app.stack_sel.min(n - 1)));
+        state.select(Some(n - 1 - app.ui.stack_sel.min(n - 1)));
     }
-    let list = List::new(items).highlight_style(if app.focus == Focus::Stack {
+    let list = List::new(items).highlight_style(if app.ui.focus == Focus::Stack {
         t.selected()
     } else {
         t.title()
@@ -60,9 +60,10 @@ pub fn draw(app: &App, frame: &mut Frame, area: Rect) {
 }
 
 fn row(app: &App, i: usize, wide: bool, width: usize) -> Line<'static> {
-    let t = &app.theme;
-    let s = &app.eval.sections[i];
+    let t = &app.ui.theme;
+    let s = &app.doc.eval.sections[i];
     let warned = app
+        .doc
         .eval
         .warnings
         .iter()
@@ -103,7 +104,7 @@ fn row(app: &App, i: usize, wide: bool, width: usize) -> Line<'static> {
             mlt_mm,
             ..
         } => {
-            let k = app.build.winding_index(winding).unwrap_or(0);
+            let k = app.doc.build.winding_index(winding).unwrap_or(0);
             let name = match with {
                 Some(w) => format!("{winding}+{w}"),
                 None => winding.to_string(),

@@ -20,16 +20,16 @@ fn grade_short(g: Insulation) -> &'static str {
 }
 
 pub fn draw(app: &App, frame: &mut Frame, area: Rect) {
-    let t = &app.theme;
-    let temp = app.build.setup.temperature_c;
+    let t = &app.ui.theme;
+    let temp = app.doc.build.setup.temperature_c;
     let block = panel(
         app,
         // The fill factor rides here: at 80x24 the check panel has no row left for it.
         format!(
             "Windings, DCR at {temp} C, fill {:.3}",
-            app.eval.fill_factor
+            app.doc.eval.fill_factor
         ),
-        app.focus == Focus::Windings,
+        app.ui.focus == Focus::Windings,
     );
     let inner = block.inner(area);
     frame.render_widget(block, area);
@@ -70,13 +70,15 @@ pub fn draw(app: &App, frame: &mut Frame, area: Rect) {
         ..inner
     };
     let items: Vec<ListItem> = app
+        .doc
         .build
         .windings
         .iter()
         .enumerate()
         .map(|(k, w)| {
-            let e = app.eval.windings.get(k);
+            let e = app.doc.eval.windings.get(k);
             let warned = app
+                .doc
                 .eval
                 .warnings
                 .iter()
@@ -131,10 +133,10 @@ pub fn draw(app: &App, frame: &mut Frame, area: Rect) {
         })
         .collect();
     let mut state = ListState::default();
-    if !app.build.windings.is_empty() {
-        state.select(Some(app.winding_sel));
+    if !app.doc.build.windings.is_empty() {
+        state.select(Some(app.ui.winding_sel));
     }
-    let list = List::new(items).highlight_style(if app.focus == Focus::Windings {
+    let list = List::new(items).highlight_style(if app.ui.focus == Focus::Windings {
         t.selected()
     } else {
         t.title()

@@ -44,7 +44,7 @@ struct Piece {
 }
 
 fn pieces(app: &App) -> Vec<Piece> {
-    let e = &app.eval;
+    let e = &app.doc.eval;
     let limit_mm = e.window_height_mm;
     let mut bands: Vec<(f64, Piece)> = Vec::new();
     for (s, sec) in e.sections.iter().enumerate() {
@@ -181,7 +181,8 @@ fn allot(pieces: &[Piece], rows: u16) -> Option<Vec<u16>> {
 
 /// The letter that stands for winding `k` in the drawing.
 pub fn letter(app: &App, k: usize) -> char {
-    app.build
+    app.doc
+        .build
         .windings
         .get(k)
         .and_then(|w| w.name.chars().find(|c| c.is_alphanumeric()))
@@ -191,8 +192,8 @@ pub fn letter(app: &App, k: usize) -> char {
 impl Widget for WindowView<'_> {
     fn render(self, area: Rect, buf: &mut Buffer) {
         let app = self.app;
-        let t = &app.theme;
-        let e = &app.eval;
+        let t = &app.ui.theme;
+        let e = &app.doc.eval;
         let all = pieces(app);
         let block = panel(
             app,
@@ -220,10 +221,10 @@ impl Widget for WindowView<'_> {
         // Row 0 is the bottom (next to the tube).
         let mut r: u16 = 0;
         let ww = e.window_width_mm.max(1e-9);
-        let margin = app.build.setup.margin_mm;
+        let margin = app.doc.build.setup.margin_mm;
         let cell_mm = ww / f64::from(cols);
-        let sel = if app.focus == Focus::Stack {
-            Some(app.stack_sel)
+        let sel = if app.ui.focus == Focus::Stack {
+            Some(app.ui.stack_sel)
         } else {
             None
         };
@@ -277,8 +278,8 @@ impl WindowView<'_> {
         margin: f64,
     ) {
         let app = self.app;
-        let t = &app.theme;
-        let e = &app.eval;
+        let t = &app.ui.theme;
+        let e = &app.doc.eval;
         let past = |top: f64| top > e.window_height_mm + FIT_TOLERANCE_MM;
         let centre = |c: u16| (f64::from(c) + 0.5) * cell_mm;
         let in_margin = |x: f64| margin > 0.0 && (x < margin || x > e.window_width_mm - margin);
@@ -295,8 +296,8 @@ impl WindowView<'_> {
                     return;
                 };
                 let ly = &sec.layers[l];
-                let a = app.build.winding_index(winding).unwrap_or(0);
-                let b = with.as_ref().and_then(|w| app.build.winding_index(w));
+                let a = app.doc.build.winding_index(winding).unwrap_or(0);
+                let b = with.as_ref().and_then(|w| app.doc.build.winding_index(w));
                 let over = past(top_mm);
                 // The first winding's share of each bifilar turn's width.
                 let share_a = e
@@ -397,7 +398,7 @@ impl WindowView<'_> {
                 }
                 let label = format!(
                     " x{} allowance {:.2} mm ",
-                    app.build.setup.bulge, e.height_with_allowance_mm
+                    app.doc.build.setup.bulge, e.height_with_allowance_mm
                 );
                 let label = super::fit(&label, cols as usize);
                 let w = label.width() as u16;

@@ -23,14 +23,14 @@ pub fn bench_app() -> App {
                 .to_path_buf(),
         ),
     );
-    app.theme = Theme::plain();
+    app.ui.theme = Theme::plain();
     app
 }
 
 /// The planner on the demo build it opens with no file (each winding in one section).
 pub fn demo_app() -> App {
     let mut app = App::new(demo_build().expect("the demo build loads"), None);
-    app.theme = Theme::plain();
+    app.ui.theme = Theme::plain();
     app
 }
 
