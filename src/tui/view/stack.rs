@@ -78,7 +78,24 @@ fn row(app: &App, i: usize, wide: bool, width: usize) -> Line<'static> {
     let num = format!("{:>2} ", i + 1);
     let mut spans = vec![mark, Span::raw(num)];
     let lw = if wide { 8 } else { 6 };
-    let (label, style, cols): (String, _, [String; 8]) = match &s.kind {
+    let (label, style, cols) = columns(app, i);
+    spans.push(Span::styled(pad(&label, lw), style));
+    let [n, per, lyr, last, tape, from, h, mlt] = cols;
+    let rest = if wide {
+        format!("{n:>6}{per:>7}{lyr:>5}{last:>5}{tape:>6}{from:>9}{h:>7}{mlt:>7}")
+    } else {
+        format!("{n:>5}{per:>5}{lyr:>4}{tape:>5}{h:>7}{mlt:>6}")
+    };
+    spans.push(Span::raw(fit(&rest, width.saturating_sub(4 + lw))));
+    Line::from(spans)
+}
+
+/// A section's label, its style and its figures' columns (turns, per layer, layers, last
+/// layer, tape, from, height, MLT).
+fn columns(app: &App, i: usize) -> (String, ratatui::style::Style, [String; 8]) {
+    let t = &app.ui.theme;
+    let s = &app.doc.eval.sections[i];
+    match &s.kind {
         SectionKind::Tape { wraps } => (
             "tape".into(),
             t.tape(),
@@ -129,14 +146,5 @@ fn row(app: &App, i: usize, wide: bool, width: usize) -> Line<'static> {
                 ],
             )
         }
-    };
-    spans.push(Span::styled(pad(&label, lw), style));
-    let [n, per, lyr, last, tape, from, h, mlt] = cols;
-    let rest = if wide {
-        format!("{n:>6}{per:>7}{lyr:>5}{last:>5}{tape:>6}{from:>9}{h:>7}{mlt:>7}")
-    } else {
-        format!("{n:>5}{per:>5}{lyr:>4}{tape:>5}{h:>7}{mlt:>6}")
-    };
-    spans.push(Span::raw(fit(&rest, width.saturating_sub(4 + lw))));
-    Line::from(spans)
+    }
 }
