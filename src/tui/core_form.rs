@@ -9,28 +9,41 @@ use crate::engine::core_test::{self, GapReading, Leg, Measured};
 use crate::files::bobbin_to_toml;
 use crate::model::BobbinSource;
 
+/// The centre leg's cross-section as measured.
 #[derive(Debug, Clone, Copy, Default, PartialEq, Eq)]
 pub enum LegShape {
+    /// Not measured yet.
     #[default]
     NotGiven,
+    /// Rectangular: a width and a depth.
     Rect,
+    /// Round: a diameter.
     Round,
 }
 
 /// Readings typed in, before they become the bobbin's core.
 #[derive(Debug, Clone, Default, PartialEq)]
 pub struct CoreDraft {
+    /// The centre leg's shape.
     pub leg_shape: LegShape,
+    /// A rectangular leg's width.
     pub leg_width_mm: Option<f64>,
+    /// A rectangular leg's depth.
     pub leg_depth_mm: Option<f64>,
+    /// A round leg's diameter.
     pub leg_diameter_mm: Option<f64>,
+    /// The core's effective magnetic path length.
     pub le_mm: Option<f64>,
+    /// The test winding's turns.
     pub test_turns: Option<u32>,
+    /// The test winding's measured inductance.
     pub test_uh: Option<f64>,
+    /// The material's initial permeability.
     pub mu_i: Option<f64>,
 }
 
 impl CoreDraft {
+    /// The leg as measured, when its shape and figures are all given.
     pub fn leg(&self) -> Option<Leg> {
         match self.leg_shape {
             LegShape::NotGiven => None,
@@ -44,6 +57,7 @@ impl CoreDraft {
         }
     }
 
+    /// AL from the test winding, when both its turns and inductance are given.
     pub fn al_nh(&self) -> Option<f64> {
         Some(core_test::al_nh(self.test_uh?, self.test_turns?))
     }

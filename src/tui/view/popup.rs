@@ -31,6 +31,7 @@ fn frame_box(app: &App, frame: &mut Frame, rect: Rect, title: &str, foot: &str) 
     inner
 }
 
+/// A pick list: title, filter, headings and the visible items, the selection marked.
 pub fn picker(app: &App, frame: &mut Frame, area: Rect, p: &Picker) {
     let t = &app.ui.theme;
     let visible = p.visible();
@@ -102,6 +103,7 @@ pub fn picker(app: &App, frame: &mut Frame, area: Rect, p: &Picker) {
     );
 }
 
+/// A form: its rows (label, value), the selection marked, and its notes below.
 pub fn form(app: &App, frame: &mut Frame, area: Rect, f: &Form) {
     let t = &app.ui.theme;
     let rows = app.form_rows(f.kind);
@@ -183,6 +185,7 @@ pub fn form(app: &App, frame: &mut Frame, area: Rect, f: &Form) {
     }
 }
 
+/// The line editor: what is asked, the text typed and the hint.
 pub fn prompt(app: &App, frame: &mut Frame, area: Rect, p: &Prompt) {
     let t = &app.ui.theme;
     let rect = centred(area, 64, 6);
@@ -205,6 +208,7 @@ pub fn prompt(app: &App, frame: &mut Frame, area: Rect, p: &Prompt) {
     frame.render_widget(Paragraph::new(lines), inner);
 }
 
+/// A question with the keys that answer it.
 pub fn question(app: &App, frame: &mut Frame, area: Rect, q: &Question) {
     let t = &app.ui.theme;
     let replaced;
