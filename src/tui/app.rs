@@ -51,7 +51,7 @@ impl Effect {
             Effect::Save(p) | Effect::SaveThenQuit(p) => (own != Some(p.as_path())).then_some(p),
             Effect::WriteSheet(p) => Some(p),
             Effect::SaveBobbin { path, .. } => Some(path),
-            _ => None,
+            Effect::Open(_) | Effect::Search | Effect::Quit | Effect::Confirmed(_) => None,
         }
     }
 }
