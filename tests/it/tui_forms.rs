@@ -441,3 +441,73 @@ fn search_on_a_build_without_a_secondary_is_refused() {
     assert!(status(&app).contains("secondary"));
     assert!(app.ui.overlays.is_empty());
 }
+
+/// Every row of every form does what its table row says when Enter is pressed on it: a
+/// typed field opens the line editor labelled with the row's label and starting from the
+/// value shown, and a value that is not one (here "x") is refused, not written; a row that
+/// acts at once changes the status or opens a list. Nothing panics, and the form stays open.
+#[test]
+fn every_form_row_answers_enter_as_its_table_says() {
+    use turnstack::tui::app::FormKind;
+    let forms = [
+        ("G", FormKind::Setup),
+        ("<tab><enter>", FormKind::Winding(0)),
+        ("V", FormKind::Operating),
+        ("M", FormKind::Material),
+        ("I", FormKind::Isolation),
+        ("Bmeasured<enter>", FormKind::Bobbin),
+    ];
+    for (open, kind) in forms {
+        let rows = {
+            let mut app = bench_app();
+            press(&mut app, open);
+            app.form_rows(kind).len()
+        };
+        assert!(rows > 0, "{kind:?}");
+        for r in 0..rows {
+            let mut app = bench_app();
+            press(&mut app, open);
+            let before = app.doc.build.clone();
+            let all = app.form_rows(kind);
+            let (label, shown) = (all[r].label, all[r].value.clone());
+            press(&mut app, &"<down>".repeat(r));
+            press(&mut app, "<enter>");
+            match app.ui.overlays.last().cloned() {
+                // This row acts: it asks for the id to save the bobbin under.
+                Some(Overlay::Prompt(p)) if label == "save the bobbin to your folder" => {
+                    assert_eq!(p.purpose, turnstack::tui::app::PromptPurpose::BobbinId);
+                    press(&mut app, "<esc>");
+                }
+                Some(Overlay::Prompt(p)) => {
+                    assert_eq!(p.label, label, "{kind:?} row {r}");
+                    // The text to edit is the value shown, less its unit and words.
+                    let words: Vec<&str> = shown.split_whitespace().collect();
+                    for w in p.text.split_whitespace() {
+                        assert!(
+                            words.contains(&w),
+                            "{kind:?} {label}: {} vs {shown}",
+                            p.text
+                        );
+                    }
+                    press(&mut app, &"<bs>".repeat(p.text.chars().count() + 1));
+                    press(&mut app, "x<enter>");
+                    let names_or_pins = matches!(label, "title" | "name" | "pins (start, finish)");
+                    if !names_or_pins {
+                        assert!(refused(&app), "{kind:?} {label}: {}", status(&app));
+                        assert_eq!(app.doc.build, before, "{kind:?} {label}");
+                    }
+                }
+                Some(Overlay::Picker(_) | Overlay::Form(_)) => {}
+                other => panic!("{kind:?} row {r}: {other:?}"),
+            }
+            if matches!(app.ui.overlays.last(), Some(Overlay::Picker(_))) {
+                press(&mut app, "<esc>");
+            }
+            assert!(
+                matches!(app.ui.overlays.last(), Some(Overlay::Form(f)) if f.kind == kind),
+                "{kind:?} row {r} ({label}): {:?}",
+                app.ui.overlays.last()
+            );
+        }
+    }
+}

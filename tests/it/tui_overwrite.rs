@@ -3,15 +3,8 @@
 //! carrying out the effects as the terminal loop does.
 
 use crate::tui_support::*;
+use turnstack::tui::App;
 use turnstack::tui::app::{Overlay, Question};
-use turnstack::tui::{App, run::perform};
-
-/// Press keys and carry out every effect they give, as the run loop does.
-fn drive(app: &mut App, keys: &str) {
-    for e in press(app, keys) {
-        perform(app, e);
-    }
-}
 
 fn asking(app: &App) -> bool {
     matches!(

@@ -99,3 +99,11 @@ pub fn press(app: &mut App, keys: &str) -> Vec<turnstack::tui::Effect> {
     }
     effects
 }
+
+/// Press keys and carry out every effect they give, as the run loop does (files are read
+/// and written, the overwrite question is asked).
+pub fn drive(app: &mut App, keys: &str) {
+    for e in press(app, keys) {
+        turnstack::tui::run::perform(app, e);
+    }
+}
