@@ -9,7 +9,7 @@ use super::edit::{self, Refusal};
 use super::keymap::{self, Context};
 use super::theme::Theme;
 use crate::engine::{Evaluation, validate};
-use crate::files::BobbinLibrary;
+use crate::files::{BobbinEntry, BobbinLibrary};
 use crate::model::{Build, Section};
 use ratatui::crossterm::event::KeyEvent;
 use std::path::{Path, PathBuf};
@@ -64,6 +64,9 @@ pub struct App {
     pub ui: Ui,
     /// Where bobbins are saved: the user's bobbin folder (tests point it elsewhere).
     pub bobbin_dir: Option<PathBuf>,
+    /// The bobbins the build can use (bundled, the user's, beside its file), as the run loop
+    /// last read them (`run::read_library`); the bobbin lists are made from these.
+    pub library: Vec<BobbinEntry>,
 }
 
 impl App {
@@ -73,13 +76,16 @@ impl App {
             doc: Document::new(build, path),
             ui: Ui::new(Theme::from_env()),
             bobbin_dir: crate::files::user_bobbin_dir(),
+            library: Vec::new(),
         }
     }
 
-    /// A build for a file that does not exist yet: the bobbin is picked first.
-    pub fn new_file(path: PathBuf) -> Self {
-        let (id, bobbin) = first_bobbin();
+    /// A build for a file that does not exist yet, on the first bobbin of `library` (as
+    /// `run::read_library` reads it): the bobbin is picked first.
+    pub fn new_file(path: PathBuf, library: Vec<BobbinEntry>) -> Self {
+        let (id, bobbin) = first_bobbin(&library);
         let mut app = App::new(edit::new_build(&id, bobbin), Some(path));
+        app.library = library;
         app.doc.saved = None;
         app.open_bobbin_picker(PickPurpose::NewBuild);
         app.info("a new build: pick its bobbin (Esc keeps the one shown)");
@@ -216,8 +222,10 @@ impl App {
     /// The loop opened `build` from `path`: a new document with a fresh history.
     pub fn opened(&mut self, build: Build, path: PathBuf) {
         let theme = self.ui.theme;
+        let library = std::mem::take(&mut self.library);
         *self = App::new(build, Some(path.clone()));
         self.ui.theme = theme;
+        self.library = library;
         self.info(format!("opened {}", path.display()));
     }
 
@@ -258,11 +266,11 @@ impl App {
 }
 
 /// The first readable bobbin of the library, for a build that has none yet.
-fn first_bobbin() -> (String, crate::model::Bobbin) {
-    let lib = BobbinLibrary::standard();
-    lib.entries()
-        .into_iter()
-        .find_map(|e| e.bobbin.ok().map(|b| (e.id, b)))
+fn first_bobbin(library: &[BobbinEntry]) -> (String, crate::model::Bobbin) {
+    library
+        .iter()
+        .filter(|e| !matches!(e.origin, crate::files::BobbinOrigin::BesideBuild(_)))
+        .find_map(|e| e.bobbin.as_ref().ok().map(|b| (e.id.clone(), b.clone())))
         .unwrap_or_else(|| {
             // The bundled library is compiled in; reaching this means it is empty.
             let id = "e25-13-7".to_string();

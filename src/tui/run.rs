@@ -4,13 +4,16 @@
 
 use super::app::{App, Effect};
 use super::view;
-use crate::files::{load_build, save_build, write_atomic};
+use crate::files::{BobbinEntry, BobbinLibrary, load_build, save_build, write_atomic};
 use ratatui::DefaultTerminal;
 use ratatui::crossterm::event::{self, Event, KeyEventKind};
 use std::path::Path;
 
 /// Run the planner until the user quits.
 pub fn run(mut app: App) -> std::io::Result<()> {
+    if app.library.is_empty() {
+        app.library = read_library(app.doc.path.as_deref());
+    }
     ratatui::run(|terminal| {
         // With NO_COLOR set, crossterm would write a bare SGR reset for every colour change,
         // wiping reverse and bold; the theme drops colours itself instead.
@@ -77,11 +80,15 @@ pub fn perform(app: &mut App, effect: Effect) -> bool {
                 .map_or(Ok(()), std::fs::create_dir_all)
                 .and_then(|()| write_atomic(&path, &text));
             app.wrote_bobbin(&path, result);
+            refresh_library(app);
             false
         }
         Effect::Open(p) => {
             match load_build(&p) {
-                Ok(b) => app.opened(b, p),
+                Ok(b) => {
+                    app.opened(b, p);
+                    refresh_library(app);
+                }
                 Err(e) => app.error(format!("cannot open: {e}")),
             }
             false
@@ -91,10 +98,26 @@ pub fn perform(app: &mut App, effect: Effect) -> bool {
     }
 }
 
+/// The bobbins a build at `path` can use: bundled, the user's folder, and the `bobbins/`
+/// folder beside the file (the demo, with no file, has the first two).
+pub fn read_library(path: Option<&Path>) -> Vec<BobbinEntry> {
+    match path {
+        Some(p) => BobbinLibrary::for_build(p),
+        None => BobbinLibrary::standard(),
+    }
+    .entries()
+}
+
+/// Read the library again for the document's file (after it changed, or a bobbin was saved).
+pub fn refresh_library(app: &mut App) {
+    app.library = read_library(app.doc.path.as_deref());
+}
+
 fn save(app: &mut App, path: &Path) -> bool {
     match save_build(path, &app.doc.build) {
         Ok(()) => {
             app.saved_to(path.to_path_buf());
+            refresh_library(app);
             true
         }
         Err(e) => {

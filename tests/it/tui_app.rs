@@ -50,6 +50,7 @@ fn plain_app() -> App {
     let b = parse_build(PLAIN, None, &BobbinLibrary::bundled_only()).expect("plain build");
     let mut app = App::new(b, None);
     app.ui.theme = Theme::plain();
+    turnstack::tui::run::refresh_library(&mut app);
     app
 }
 
@@ -420,7 +421,8 @@ fn quitting_can_save_first() {
 fn a_new_file_starts_from_a_picked_bobbin() {
     let dir = tempfile::tempdir().unwrap();
     let path = dir.path().join("new.toml");
-    let mut app = App::new_file(path.clone());
+    let library = turnstack::tui::run::read_library(Some(&path));
+    let mut app = App::new_file(path.clone(), library);
     assert!(matches!(app.ui.overlays.last(), Some(Overlay::Picker(_))));
     press(&mut app, "etd29<enter>");
     assert_eq!(
@@ -515,6 +517,8 @@ fn the_bobbin_list_takes_the_bobbin_beside_the_build() {
     assert_ne!(bundled.window.width_mm, 17.5);
     let mut app = plain_app();
     app.doc.path = Some(dir.path().join("build.toml"));
+    // The run loop reads the library for the document's file.
+    turnstack::tui::run::refresh_library(&mut app);
     assert_eq!(
         app.doc.build.bobbin.window.width_mm,
         bundled.window.width_mm

@@ -253,9 +253,11 @@ impl App {
             None
         };
         let theme = self.ui.theme;
+        let library = std::mem::take(&mut self.library);
         *self = App::new(edit::new_build(id, bobbin), path);
         self.doc.saved = None;
         self.ui.theme = theme;
+        self.library = library;
         self.info(format!(
             "new build on {id}: a primary and a secondary to start from; W saves"
         ));

@@ -2,7 +2,7 @@
 //! section to split around, the bifilar partner, the section to add and the ferrite grade.
 
 use super::{Overlay, PickItem, PickPurpose, PickValue, Picker};
-use crate::files::BobbinLibrary;
+use crate::files::BobbinOrigin;
 use crate::library::materials::GRADES;
 use crate::library::wires::catalogue;
 use crate::model::{Bobbin, BobbinSource, Section};
@@ -13,12 +13,11 @@ impl App {
         self.ui.overlays.push(Overlay::Picker(p));
     }
 
-    /// The bobbins the build can use: bundled, the user's, and those beside its file.
-    fn library(&self) -> BobbinLibrary {
-        match &self.doc.path {
-            Some(p) => BobbinLibrary::for_build(p),
-            None => BobbinLibrary::standard(),
-        }
+    /// The readable bobbins of the library the loop read: id, where from, the bobbin.
+    fn readable(&self) -> impl Iterator<Item = (&str, &BobbinOrigin, &Bobbin)> {
+        self.library
+            .iter()
+            .filter_map(|e| Some((e.id.as_str(), &e.origin, e.bobbin.as_ref().ok()?)))
     }
 
     /// The current bobbin's id, `None` for a measured (inline) one.
@@ -31,30 +30,25 @@ impl App {
 
     /// A list of bobbins: ranked by fit to change the build's, plain for a new build.
     pub(crate) fn open_bobbin_picker(&mut self, purpose: PickPurpose) {
-        let lib = self.library();
         if purpose == PickPurpose::Bobbin {
-            self.open_ranked_bobbin_picker(&lib);
+            self.open_ranked_bobbin_picker();
             return;
         }
-        let items: Vec<PickItem> = lib
-            .entries()
-            .into_iter()
-            .filter_map(|e| {
-                let b = e.bobbin.ok()?;
-                Some(PickItem {
-                    label: format!(
-                        "{:<10} {:>5.2} x {:<5.2} {:<9} {}",
-                        e.id,
-                        b.window.width_mm,
-                        b.window.height_mm,
-                        e.origin.label(),
-                        b.name
-                    ),
-                    value: PickValue::Bobbin {
-                        id: e.id,
-                        bobbin: Box::new(b),
-                    },
-                })
+        let items: Vec<PickItem> = self
+            .readable()
+            .map(|(id, origin, b)| PickItem {
+                label: format!(
+                    "{:<10} {:>5.2} x {:<5.2} {:<9} {}",
+                    id,
+                    b.window.width_mm,
+                    b.window.height_mm,
+                    origin.label(),
+                    b.name
+                ),
+                value: PickValue::Bobbin {
+                    id: id.to_string(),
+                    bobbin: Box::new(b.clone()),
+                },
             })
             .collect();
         let selected = match self.bobbin_id() {
@@ -74,11 +68,10 @@ impl App {
 
     /// The library ranked by how this build's windings and stack fit each bobbin
     /// (`report::fit::rank`), the current bobbin marked, a measured one last.
-    fn open_ranked_bobbin_picker(&mut self, lib: &BobbinLibrary) {
-        let bobbins: Vec<(String, Bobbin)> = lib
-            .entries()
-            .into_iter()
-            .filter_map(|e| e.bobbin.ok().map(|b| (e.id, b)))
+    fn open_ranked_bobbin_picker(&mut self) {
+        let bobbins: Vec<(String, Bobbin)> = self
+            .readable()
+            .map(|(id, _, b)| (id.to_string(), b.clone()))
             .collect();
         let current = self.bobbin_id();
         let mut items: Vec<PickItem> = crate::report::fit::rank(&self.doc.build, &bobbins)

@@ -24,6 +24,7 @@ pub fn bench_app() -> App {
         ),
     );
     app.ui.theme = Theme::plain();
+    turnstack::tui::run::refresh_library(&mut app);
     app
 }
 
@@ -31,6 +32,7 @@ pub fn bench_app() -> App {
 pub fn demo_app() -> App {
     let mut app = App::new(demo_build().expect("the demo build loads"), None);
     app.ui.theme = Theme::plain();
+    turnstack::tui::run::refresh_library(&mut app);
     app
 }
 
