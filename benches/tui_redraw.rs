@@ -16,7 +16,7 @@ fn edit_evaluate_redraw_120x40(bencher: divan::Bencher) {
     let mut terminal = Terminal::new(TestBackend::new(120, 40)).unwrap();
     // Select the tape section #2 and alternate one wrap more and one fewer, so every
     // iteration is a real edit (validate, evaluate, undo history) and a full frame.
-    app.stack_sel = 1;
+    app.ui.stack_sel = 1;
     let mut up = true;
     bencher.bench_local(|| {
         app.update(if up { Action::More } else { Action::Less });

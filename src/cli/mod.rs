@@ -177,7 +177,9 @@ pub fn run_editor(file: Option<&Path>) -> ExitCode {
         return ExitCode::from(EXIT_BAD_INPUT);
     }
     let mut app = match file {
-        Some(p) if !p.exists() => crate::tui::App::new_file(p.to_path_buf()),
+        Some(p) if !p.exists() => {
+            crate::tui::App::new_file(p.to_path_buf(), crate::tui::run::read_library(Some(p)))
+        }
         _ => match load_or_demo(file) {
             Ok(b) => crate::tui::App::new(b, file.map(Path::to_path_buf)),
             Err(e) => return fail(&e),

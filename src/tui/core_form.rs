@@ -2,33 +2,48 @@
 //! until applied to the build's bobbin (one undoable edit) or saved to the user's folder.
 //! The figures shown (Ae, AL, mu_e, the equivalent gap) come from `engine::core_test`.
 
-use super::app::{App, Effect, Field, Overlay, PromptPurpose, Question};
+use super::app::App;
+use super::app::Effect;
+use super::overlay::PromptPurpose;
 use crate::engine::core_test::{self, GapReading, Leg, Measured};
 use crate::files::bobbin_to_toml;
 use crate::model::BobbinSource;
 
+/// The centre leg's cross-section as measured.
 #[derive(Debug, Clone, Copy, Default, PartialEq, Eq)]
 pub enum LegShape {
+    /// Not measured yet.
     #[default]
     NotGiven,
+    /// Rectangular: a width and a depth.
     Rect,
+    /// Round: a diameter.
     Round,
 }
 
 /// Readings typed in, before they become the bobbin's core.
 #[derive(Debug, Clone, Default, PartialEq)]
 pub struct CoreDraft {
+    /// The centre leg's shape.
     pub leg_shape: LegShape,
+    /// A rectangular leg's width.
     pub leg_width_mm: Option<f64>,
+    /// A rectangular leg's depth.
     pub leg_depth_mm: Option<f64>,
+    /// A round leg's diameter.
     pub leg_diameter_mm: Option<f64>,
+    /// The core's effective magnetic path length.
     pub le_mm: Option<f64>,
+    /// The test winding's turns.
     pub test_turns: Option<u32>,
+    /// The test winding's measured inductance.
     pub test_uh: Option<f64>,
+    /// The material's initial permeability.
     pub mu_i: Option<f64>,
 }
 
 impl CoreDraft {
+    /// The leg as measured, when its shape and figures are all given.
     pub fn leg(&self) -> Option<Leg> {
         match self.leg_shape {
             LegShape::NotGiven => None,
@@ -42,13 +57,10 @@ impl CoreDraft {
         }
     }
 
+    /// AL from the test winding, when both its turns and inductance are given.
     pub fn al_nh(&self) -> Option<f64> {
         Some(core_test::al_nh(self.test_uh?, self.test_turns?))
     }
-}
-
-fn num(v: Option<f64>, unit: &str) -> String {
-    v.map_or("-".to_string(), |v| format!("{v} {unit}"))
 }
 
 /// Usable as a file name in the bobbin folder (the same rule as `measure bobbin --id`).
@@ -63,73 +75,17 @@ fn id_ok(id: &str) -> bool {
 impl App {
     /// A fresh draft for the measured-bobbin form: le from the bobbin's core, mu_i from the
     /// build's material, so only what was measured needs typing.
-    pub(super) fn start_core_draft(&mut self) {
-        self.core_draft = CoreDraft {
-            le_mm: self.build.bobbin.core.as_ref().map(|c| c.le_mm),
-            mu_i: self.build.material.as_ref().and_then(|m| m.mu_i),
+    pub(crate) fn start_core_draft(&mut self) {
+        self.ui.core_draft = CoreDraft {
+            le_mm: self.doc.build.bobbin.core.as_ref().map(|c| c.le_mm),
+            mu_i: self.doc.build.material.as_ref().and_then(|m| m.mu_i),
             ..CoreDraft::default()
         };
     }
 
-    pub(super) fn core_rows(&self) -> Vec<(Field, &'static str, String)> {
-        let d = &self.core_draft;
-        let mut rows = vec![(
-            Field::CLegShape,
-            "centre leg",
-            match d.leg_shape {
-                LegShape::NotGiven => "not measured (Enter: rectangular, round)".into(),
-                LegShape::Rect => "rectangular".into(),
-                LegShape::Round => "round".into(),
-            },
-        )];
-        match d.leg_shape {
-            LegShape::NotGiven => {}
-            LegShape::Rect => {
-                rows.push((Field::CLegWidth, "leg width", num(d.leg_width_mm, "mm")));
-                rows.push((Field::CLegDepth, "leg depth", num(d.leg_depth_mm, "mm")));
-            }
-            LegShape::Round => {
-                rows.push((
-                    Field::CLegDiameter,
-                    "leg diameter",
-                    num(d.leg_diameter_mm, "mm"),
-                ));
-            }
-        }
-        rows.extend([
-            (Field::CLe, "le, magnetic path", num(d.le_mm, "mm")),
-            (
-                Field::CTestTurns,
-                "test winding turns N",
-                d.test_turns.map_or("-".into(), |n| n.to_string()),
-            ),
-            (
-                Field::CTestUh,
-                "test winding measured L",
-                num(d.test_uh, "uH"),
-            ),
-            (
-                Field::CMuI,
-                "material mu_i",
-                d.mu_i.map_or("-".into(), |v| v.to_string()),
-            ),
-            (
-                Field::CApply,
-                "apply the core to the bobbin",
-                "Enter (u undoes)".into(),
-            ),
-            (
-                Field::CSave,
-                "save the bobbin to your folder",
-                "Enter: asks for its id".into(),
-            ),
-        ]);
-        rows
-    }
-
     /// The core figures of the draft, from `engine::core_test`, and what the gap says.
-    pub(super) fn core_notes(&self) -> Vec<String> {
-        let d = &self.core_draft;
+    pub(crate) fn core_notes(&self) -> Vec<String> {
+        let d = &self.ui.core_draft;
         let leg = d.leg();
         let ae = leg.map(Leg::area_mm2);
         let al = d.al_nh();
@@ -169,80 +125,22 @@ impl App {
         out
     }
 
-    pub(super) fn core_text(&self, field: Field) -> String {
-        let d = &self.core_draft;
-        let f = |v: Option<f64>| v.map(|v| v.to_string()).unwrap_or_default();
-        match field {
-            Field::CLegWidth => f(d.leg_width_mm),
-            Field::CLegDepth => f(d.leg_depth_mm),
-            Field::CLegDiameter => f(d.leg_diameter_mm),
-            Field::CLe => f(d.le_mm),
-            Field::CTestTurns => d.test_turns.map(|n| n.to_string()).unwrap_or_default(),
-            Field::CTestUh => f(d.test_uh),
-            Field::CMuI => f(d.mu_i),
-            _ => String::new(),
-        }
-    }
-
-    pub(super) fn activate_core(&mut self, field: Field) -> bool {
-        match field {
-            Field::CLegShape => {
-                self.core_draft.leg_shape = match self.core_draft.leg_shape {
-                    LegShape::NotGiven => LegShape::Rect,
-                    LegShape::Rect => LegShape::Round,
-                    LegShape::Round => LegShape::NotGiven,
-                };
-            }
-            Field::CApply => self.apply_core(),
-            Field::CSave => {
-                let id = match &self.build.bobbin_source {
-                    BobbinSource::Id(id) => format!("{id}-measured"),
-                    BobbinSource::Inline => "my-bobbin".into(),
-                };
-                self.prompt(
-                    "save the build's bobbin to your folder as",
-                    id,
-                    PromptPurpose::BobbinId,
-                );
-            }
-            _ => return false,
-        }
-        true
-    }
-
-    /// A typed reading of the draft; empty clears it. True when the field is the draft's.
-    pub(super) fn submit_core(&mut self, field: Field, t: &str) -> bool {
-        let d = &mut self.core_draft;
-        if field == Field::CTestTurns {
-            match t.parse::<u32>() {
-                _ if t.is_empty() => d.test_turns = None,
-                Ok(n) if n > 0 => d.test_turns = Some(n),
-                _ => self.refuse(format!(
-                    "\"{t}\" is not a whole number of turns (1 or more)"
-                )),
-            }
-            return true;
-        }
-        let slot = match field {
-            Field::CLegWidth => &mut d.leg_width_mm,
-            Field::CLegDepth => &mut d.leg_depth_mm,
-            Field::CLegDiameter => &mut d.leg_diameter_mm,
-            Field::CLe => &mut d.le_mm,
-            Field::CTestUh => &mut d.test_uh,
-            Field::CMuI => &mut d.mu_i,
-            _ => return false,
+    /// Ask for the id to save the build's bobbin under in the user's folder.
+    pub(crate) fn ask_bobbin_id(&mut self) {
+        let id = match &self.doc.build.bobbin_source {
+            BobbinSource::Id(id) => format!("{id}-measured"),
+            BobbinSource::Inline => "my-bobbin".into(),
         };
-        match t.parse::<f64>() {
-            _ if t.is_empty() => *slot = None,
-            Ok(v) if v.is_finite() && v > 0.0 => *slot = Some(v),
-            _ => self.refuse(format!("\"{t}\" is not a positive number")),
-        }
-        true
+        self.prompt(
+            "save the build's bobbin to your folder as",
+            id,
+            PromptPurpose::BobbinId,
+        );
     }
 
     /// Make the draft the bobbin's core, as one edit.
-    fn apply_core(&mut self) {
-        let d = self.core_draft.clone();
+    pub(crate) fn apply_core(&mut self) {
+        let d = self.ui.core_draft.clone();
         let (Some(leg), Some(le_mm)) = (d.leg(), d.le_mm) else {
             self.refuse("give the centre leg and le first: the core needs Ae and le");
             return;
@@ -251,7 +149,7 @@ impl App {
             self.refuse("a test winding needs both its turns and its measured inductance");
             return;
         }
-        let bb = &self.build.bobbin;
+        let bb = &self.doc.build.bobbin;
         let mut origin = "measured with callipers".to_string();
         if let (Some(n), Some(l)) = (d.test_turns, d.test_uh) {
             origin.push_str(&format!("; AL from a {n}-turn test winding of {l} uH"));
@@ -275,9 +173,9 @@ impl App {
         });
     }
 
-    /// Save the build's bobbin as `<id>.toml` in the user's folder; an existing file is only
-    /// replaced after a yes.
-    pub(super) fn save_bobbin_as(&mut self, id: &str) -> Option<Effect> {
+    /// Save the build's bobbin as `<id>.toml` in the user's folder (the loop asks before it
+    /// replaces a file there).
+    pub(crate) fn save_bobbin_as(&mut self, id: &str) -> Option<Effect> {
         if !id_ok(id) {
             self.refuse(format!(
                 "\"{id}\": use letters, digits, '-', '_' or '.' (it becomes the file name)"
@@ -289,13 +187,7 @@ impl App {
             return None;
         };
         let path = dir.join(format!("{id}.toml"));
-        let text = bobbin_to_toml(&self.build.bobbin);
-        if path.exists() {
-            self.pending_bobbin = Some((path, text));
-            self.overlays
-                .push(Overlay::Question(Question::OverwriteBobbin));
-            return None;
-        }
+        let text = bobbin_to_toml(&self.doc.build.bobbin);
         Some(Effect::SaveBobbin { path, text })
     }
 }

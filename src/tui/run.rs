@@ -5,8 +5,8 @@
 use super::app::{App, Effect};
 use super::view;
 use crate::files::{
-    BobbinLibrary, build_text, discard_recovery, load_build, parse_build, read_recovery,
-    recovery_path, save_build_keeping, write_recovery,
+    BobbinEntry, BobbinLibrary, build_text, discard_recovery, load_build, parse_build,
+    read_recovery, recovery_path, save_build_keeping, write_atomic, write_recovery,
 };
 use crate::model::Build;
 use ratatui::DefaultTerminal;
@@ -16,6 +16,9 @@ use std::path::{Path, PathBuf};
 
 /// Run the planner until the user quits.
 pub fn run(mut app: App) -> std::io::Result<()> {
+    if app.library.is_empty() {
+        app.library = read_library(app.doc.path.as_deref());
+    }
     ratatui::run(|terminal| {
         // With NO_COLOR set, crossterm would write a bare SGR reset for every colour change,
         // wiping reverse and bold; the theme drops colours itself instead.
@@ -49,8 +52,22 @@ fn event_loop(terminal: &mut DefaultTerminal, app: &mut App) -> std::io::Result<
     }
 }
 
-/// Carry out an effect; true when the planner should stop.
+/// Carry out an effect; true when the planner should stop. A write over an existing file
+/// (other than saving the document to its own file) asks first, unless the effect is the
+/// user's yes to that question.
 pub fn perform(app: &mut App, effect: Effect) -> bool {
+    let effect = match effect {
+        Effect::Confirmed(e) => *e,
+        e => {
+            if e.replaces(app.doc.path.as_deref())
+                .is_some_and(Path::exists)
+            {
+                app.ask_overwrite(e);
+                return false;
+            }
+            e
+        }
+    };
     match effect {
         Effect::Quit => true,
         Effect::Save(p) => {
@@ -63,30 +80,58 @@ pub fn perform(app: &mut App, effect: Effect) -> bool {
             false
         }
         Effect::WriteSheet(p) => {
-            app.write_sheet(&p);
+            let page = app.sheet_page(&p);
+            let result = write_atomic(&p, &page.text);
+            app.wrote_sheet(&p, &page, result);
             false
         }
         Effect::SaveBobbin { path, text } => {
-            app.save_bobbin_file(&path, &text);
+            let result = path
+                .parent()
+                .map_or(Ok(()), std::fs::create_dir_all)
+                .and_then(|()| write_atomic(&path, &text));
+            app.wrote_bobbin(&path, result);
+            refresh_library(app);
             false
         }
         Effect::Open(p) => {
             match load_build(&p) {
-                Ok(b) => app.opened(b, p),
+                Ok(b) => {
+                    app.opened(b, p);
+                    refresh_library(app);
+                }
                 Err(e) => app.error(format!("cannot open: {e}")),
             }
             false
         }
+        // A yes to a yes: carry out the write inside.
+        Effect::Confirmed(e) => perform(app, Effect::Confirmed(e)),
     }
+}
+
+/// The bobbins a build at `path` can use: bundled, the user's folder, and the `bobbins/`
+/// folder beside the file (the demo, with no file, has the first two).
+pub fn read_library(path: Option<&Path>) -> Vec<BobbinEntry> {
+    match path {
+        Some(p) => BobbinLibrary::for_build(p),
+        None => BobbinLibrary::standard(),
+    }
+    .entries()
+}
+
+/// Read the library again for the document's file (after it changed, or a bobbin was saved).
+pub fn refresh_library(app: &mut App) {
+    app.library = read_library(app.doc.path.as_deref());
 }
 
 /// Save onto the text of the file the build was read from, so its comments and layout stay.
 fn save(app: &mut App, path: &Path) -> bool {
-    match save_build_keeping(path, app.path.as_deref(), &app.build) {
+    match save_build_keeping(path, app.doc.path.as_deref(), &app.doc.build) {
         Ok(saved) => {
             // The bobbin may have been written inline: the planner holds what the file says.
-            app.build = saved.build.clone();
+            app.doc.build = saved.build.clone();
             app.saved_to(path.to_path_buf());
+            refresh_library(app);
             let note = saved.note();
             if !note.is_empty() {
                 app.info(format!("saved {}; {note}", path.display()));
@@ -116,7 +161,7 @@ impl Recovery {
 
     /// Call after every key: writes the copy only when the build changed since the last one.
     pub fn update(&mut self, app: &App) {
-        let (Some(path), Some(dir)) = (app.path.clone(), self.dir.clone()) else {
+        let (Some(path), Some(dir)) = (app.doc.path.clone(), self.dir.clone()) else {
             return;
         };
         if let Some((old, _)) = &self.last
@@ -131,20 +176,20 @@ impl Recovery {
             }
             return;
         }
-        if self.last.as_ref().is_some_and(|(_, b)| *b == app.build) {
+        if self.last.as_ref().is_some_and(|(_, b)| *b == app.doc.build) {
             return;
         }
         // The text a save would write, so a restored copy keeps the file's comments.
         let base = std::fs::read_to_string(&path).ok();
-        let (text, _) = build_text(&app.build, base.as_deref(), &path);
+        let (text, _) = build_text(&app.doc.build, base.as_deref(), &path);
         if write_recovery(&dir, &path, &text).is_ok() {
-            self.last = Some((path, app.build.clone()));
+            self.last = Some((path, app.doc.build.clone()));
         }
     }
 
     /// The user quits without saving: that discards the edits, and their copy.
     pub fn quit(&mut self, app: &App) {
-        if let (Some(path), Some(dir)) = (&app.path, &self.dir) {
+        if let (Some(path), Some(dir)) = (&app.doc.path, &self.dir) {
             discard_recovery(dir, path);
         }
         self.last = None;
@@ -170,7 +215,7 @@ pub fn offer_recovery(
     input: &mut dyn BufRead,
     out: &mut dyn Write,
 ) -> Offer {
-    let Some(path) = app.path.clone() else {
+    let Some(path) = app.doc.path.clone() else {
         return Offer::Nothing;
     };
     let Some(text) = read_recovery(dir, &path) else {
@@ -190,7 +235,7 @@ pub fn offer_recovery(
             return Offer::Nothing;
         }
     };
-    if recovered == app.build {
+    if recovered == app.doc.build {
         discard_recovery(dir, &path);
         return Offer::Nothing;
     }
@@ -210,11 +255,11 @@ pub fn offer_recovery(
     let _ = input.read_line(&mut line);
     match line.trim().to_ascii_lowercase().as_str() {
         "y" | "yes" => {
-            let original = app.build.clone();
-            let theme = app.theme;
+            let original = app.doc.build.clone();
+            let theme = app.ui.theme;
             *app = App::new(recovered, Some(path));
-            app.theme = theme;
-            app.saved = Some(original);
+            app.ui.theme = theme;
+            app.doc.saved = Some(original);
             app.info("restored the unsaved edits of an earlier session: W saves them, u cannot undo past them");
             Offer::Restored
         }

@@ -23,6 +23,7 @@ mod sheet_print;
 mod tui_app;
 mod tui_forms;
 mod tui_overlays;
+mod tui_overwrite;
 mod tui_render;
 mod validation_messages;
 mod verify_cli;

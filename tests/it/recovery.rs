@@ -24,7 +24,7 @@ fn setup() -> (tempfile::TempDir, PathBuf, PathBuf) {
 
 fn open(build: &Path) -> App {
     let mut app = App::new(load_build(build).unwrap(), Some(build.to_path_buf()));
-    app.theme = Theme::plain();
+    app.ui.theme = Theme::plain();
     app
 }
 
@@ -46,7 +46,7 @@ fn a_killed_planners_edits_are_offered_back_and_can_be_restored() {
     let mut keeper = Recovery::new(Some(dir.clone()));
     keys(&mut app, &mut keeper, "+");
     assert!(app.dirty());
-    let edited = app.build.clone();
+    let edited = app.doc.build.clone();
     let copy = recovery_path(&dir, &build).unwrap();
     let kept = std::fs::read_to_string(&copy).expect("a copy after the edit");
     // The copy is what a save would write: the file's comments are in it.
@@ -74,7 +74,7 @@ fn a_killed_planners_edits_are_offered_back_and_can_be_restored() {
     let mut third = open(&build);
     let o = offer_recovery(&mut third, &dir, &mut Cursor::new("y\n"), &mut Vec::new());
     assert_eq!(o, Offer::Restored);
-    assert_eq!(third.build, edited);
+    assert_eq!(third.doc.build, edited);
     assert!(third.dirty());
     // Saving removes the copy.
     let mut keeper = Recovery::new(Some(dir.clone()));

@@ -83,7 +83,7 @@ fn edit_and_check(text: &str, keys: &str, what: &str) -> bool {
     std::fs::write(&path, text).unwrap();
     let build = load_build(&path).expect("the file loads");
     let mut app = App::new(build, Some(path.clone()));
-    app.theme = Theme::plain();
+    app.ui.theme = Theme::plain();
     press(&mut app, keys);
     let effects = press(&mut app, "W");
     assert_eq!(effects, [Effect::Save(path.clone())], "{what}: W saves");
@@ -93,8 +93,8 @@ fn edit_and_check(text: &str, keys: &str, what: &str) -> bool {
 
     // It reads back as the build the planner holds, with the same figures.
     let back = load_build(&path).unwrap_or_else(|e| panic!("{what}: reload: {e}\n{saved}"));
-    assert_eq!(back, app.build, "{what}");
-    assert_eq!(evaluate(&back), evaluate(&app.build), "{what}");
+    assert_eq!(back, app.doc.build, "{what}");
+    assert_eq!(evaluate(&back), evaluate(&app.doc.build), "{what}");
 
     let before: Vec<&str> = text.lines().collect();
     let after: Vec<&str> = saved.lines().collect();
@@ -102,7 +102,7 @@ fn edit_and_check(text: &str, keys: &str, what: &str) -> bool {
     if std::env::var_os("SHOW_SAVE_DIFF").is_some() {
         eprintln!("{what}: {gone:?} -> {new:?}");
     }
-    if app.build == load_build_text(text, &path) {
+    if app.doc.build == load_build_text(text, &path) {
         assert_eq!(
             saved, text,
             "{what}: a save with no change writes the same bytes"
@@ -149,7 +149,7 @@ fn edit_and_check(text: &str, keys: &str, what: &str) -> bool {
         );
     }
     // The file changes exactly when the planner's build did.
-    let changed = app.build != load_build_text(text, &path);
+    let changed = app.doc.build != load_build_text(text, &path);
     assert_eq!(
         saved != text,
         changed,

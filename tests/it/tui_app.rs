@@ -49,14 +49,16 @@ tape = 2
 fn plain_app() -> App {
     let b = parse_build(PLAIN, None, &BobbinLibrary::bundled_only()).expect("plain build");
     let mut app = App::new(b, None);
-    app.theme = Theme::plain();
+    app.ui.theme = Theme::plain();
+    turnstack::tui::run::refresh_library(&mut app);
     app
 }
 
 /// The stack as short words, tube first: "P24", "t1", "P12+R".
 fn stack_words(app: &App) -> Vec<String> {
-    let turns = app.build.section_turns();
-    app.build
+    let turns = app.doc.build.section_turns();
+    app.doc
+        .build
         .stack
         .iter()
         .zip(turns)
@@ -71,7 +73,8 @@ fn stack_words(app: &App) -> Vec<String> {
 }
 
 fn leakage_uh(app: &App, to: &str) -> f64 {
-    app.eval
+    app.doc
+        .eval
         .leakage
         .iter()
         .find(|l| l.from == "P" && l.to == to)
@@ -102,14 +105,14 @@ fn winding_the_reset_bifilar_takes_its_turns_from_its_own_section() {
     let mut app = plain_app();
     press(&mut app, "s<enter>");
     // Section #1 (P12) bifilar with R.
-    app.stack_sel = 0;
+    app.ui.stack_sel = 0;
     press(&mut app, "b<down><down><enter>");
     assert_eq!(
         stack_words(&app),
         ["P12+R", "t1", "S16", "t1", "P12", "t1", "R12", "t2"]
     );
     // Section #5 (P12) too: R's own section empties and goes.
-    app.stack_sel = 4;
+    app.ui.stack_sel = 4;
     press(&mut app, "b<down><down><enter>");
     assert_eq!(
         stack_words(&app),
@@ -131,26 +134,26 @@ fn winding_the_reset_bifilar_takes_its_turns_from_its_own_section() {
 #[test]
 fn picking_a_thinner_wire_for_the_reset_winding_changes_it_and_its_resistance() {
     let mut app = plain_app();
-    let dcr = app.eval.windings[2].dcr_ohm;
+    let dcr = app.doc.eval.windings[2].dcr_ohm;
     press(&mut app, "<tab><down><down>w");
-    assert!(matches!(app.overlays.last(), Some(Overlay::Picker(_))));
+    assert!(matches!(app.ui.overlays.last(), Some(Overlay::Picker(_))));
     // Filter the table down to the 0.2 mm row and take it.
     press(&mut app, "0.2mm<enter>");
     assert_eq!(
-        app.build.windings[2].wire,
+        app.doc.build.windings[2].wire,
         WireSize::Metric { bare_mm: 0.2 }
     );
-    assert!(app.eval.windings[2].dcr_ohm > dcr * 1.4);
+    assert!(app.doc.eval.windings[2].dcr_ohm > dcr * 1.4);
 }
 
 #[test]
 fn measured_wire_is_typed_as_bare_and_overall_diameter() {
     let mut app = plain_app();
-    app.focus = Focus::Windings;
-    app.winding_sel = 2;
+    app.ui.focus = Focus::Windings;
+    app.ui.winding_sel = 2;
     press(&mut app, "wmeasured<enter>0.22 0.25<enter>");
     assert_eq!(
-        app.build.windings[2].wire,
+        app.doc.build.windings[2].wire,
         WireSize::Measured {
             bare_mm: 0.22,
             od_mm: 0.25
@@ -158,9 +161,9 @@ fn measured_wire_is_typed_as_bare_and_overall_diameter() {
     );
     // An overall diameter below the bare one is refused by the engine's validation.
     press(&mut app, "wmeasured<enter>0.3 0.2<enter>");
-    assert_eq!(app.status.as_ref().unwrap().kind, StatusKind::Refused);
+    assert_eq!(app.ui.status.as_ref().unwrap().kind, StatusKind::Refused);
     assert_eq!(
-        app.build.windings[2].wire,
+        app.doc.build.windings[2].wire,
         WireSize::Measured {
             bare_mm: 0.22,
             od_mm: 0.25
@@ -171,37 +174,37 @@ fn measured_wire_is_typed_as_bare_and_overall_diameter() {
 #[test]
 fn undo_and_redo_walk_the_history_both_ways() {
     let mut app = plain_app();
-    let original = app.build.clone();
+    let original = app.doc.build.clone();
     press(&mut app, "s<enter>");
-    let split = app.build.clone();
+    let split = app.doc.build.clone();
     press(&mut app, "+");
-    let taped = app.build.clone();
+    let taped = app.doc.build.clone();
     assert_ne!(split, taped);
     press(&mut app, "uu");
-    assert_eq!(app.build, original);
+    assert_eq!(app.doc.build, original);
     assert!(!app.dirty(), "back at the opened build");
     press(&mut app, "U");
-    assert_eq!(app.build, split);
+    assert_eq!(app.doc.build, split);
     app.update(Action::Redo);
-    assert_eq!(app.build, taped);
+    assert_eq!(app.doc.build, taped);
     press(&mut app, "U");
-    assert_eq!(app.status.as_ref().unwrap().text, "nothing to redo");
+    assert_eq!(app.ui.status.as_ref().unwrap().text, "nothing to redo");
 }
 
 #[test]
 fn an_edit_that_breaks_the_build_is_refused_and_the_build_kept() {
     let mut app = plain_app();
-    let kept = app.build.clone();
+    let kept = app.doc.build.clone();
     // 30 strands of 0.566 mm wire need 17 mm per turn in a 15.2 mm window. The field
     // opens holding the present 3 strands: rub it out first.
-    app.focus = Focus::Windings;
-    app.winding_sel = 1;
+    app.ui.focus = Focus::Windings;
+    app.ui.winding_sel = 1;
     press(
         &mut app,
         "<enter><down><down><down><down><down><enter><bs>30<enter>",
     );
-    assert_eq!(app.build, kept);
-    let st = app.status.clone().unwrap();
+    assert_eq!(app.doc.build, kept);
+    let st = app.ui.status.clone().unwrap();
     assert_eq!(st.kind, StatusKind::Refused);
     assert!(
         st.text.contains("usable between the margins"),
@@ -211,18 +214,19 @@ fn an_edit_that_breaks_the_build_is_refused_and_the_build_kept() {
     // Turns that are not a number.
     press(&mut app, "<esc>t");
     press(&mut app, "<bs><bs>x1<enter>");
-    assert!(app.status.unwrap().text.contains("not a whole number"));
-    assert!(app.undo.is_empty());
+    assert!(app.ui.status.unwrap().text.contains("not a whole number"));
+    assert!(app.doc.undo.is_empty());
 }
 
 #[test]
 fn deleting_the_only_section_of_a_winding_is_refused() {
     let mut app = plain_app();
-    app.stack_sel = 4; // R24
+    app.ui.stack_sel = 4; // R24
     press(&mut app, "d");
     assert_eq!(stack_words(&app).len(), 6);
     assert!(
-        app.status
+        app.ui
+            .status
             .unwrap()
             .text
             .contains("no [[stack]] section winds it")
@@ -233,7 +237,7 @@ fn deleting_the_only_section_of_a_winding_is_refused() {
 fn deleting_a_half_gives_its_turns_back_to_the_other_half() {
     let mut app = plain_app();
     press(&mut app, "s<enter>");
-    app.stack_sel = 4;
+    app.ui.stack_sel = 4;
     press(&mut app, "d");
     assert_eq!(
         stack_words(&app),
@@ -244,53 +248,60 @@ fn deleting_a_half_gives_its_turns_back_to_the_other_half() {
 #[test]
 fn sections_move_outward_and_inward() {
     let mut app = plain_app();
-    app.stack_sel = 0;
+    app.ui.stack_sel = 0;
     press(&mut app, "K");
     assert_eq!(stack_words(&app)[..2], ["t1", "P24"]);
-    assert_eq!(app.stack_sel, 1);
+    assert_eq!(app.ui.stack_sel, 1);
     press(&mut app, "J");
     assert_eq!(stack_words(&app)[..2], ["P24", "t1"]);
     press(&mut app, "J");
-    assert!(app.status.unwrap().text.contains("next to the tube"));
+    assert!(app.ui.status.unwrap().text.contains("next to the tube"));
 }
 
 #[test]
 fn section_turns_move_between_the_halves_and_tape_wraps_count() {
     let mut app = plain_app();
     press(&mut app, "s<enter>");
-    app.stack_sel = 0;
+    app.ui.stack_sel = 0;
     press(&mut app, "<enter><bs><bs>10<enter>");
     assert_eq!(stack_words(&app)[0], "P10");
     assert_eq!(stack_words(&app)[4], "P14");
-    assert_eq!(app.build.windings[0].turns, 24);
-    app.stack_sel = 1;
+    assert_eq!(app.doc.build.windings[0].turns, 24);
+    app.ui.stack_sel = 1;
     press(&mut app, "++-");
     assert_eq!(stack_words(&app)[1], "t2");
     press(&mut app, "--");
-    assert!(app.status.unwrap().text.contains("at least 1 wrap"));
+    assert!(app.ui.status.unwrap().text.contains("at least 1 wrap"));
 }
 
 #[test]
 fn windings_are_added_renamed_and_deleted_with_the_stack_following() {
     let mut app = plain_app();
-    app.focus = Focus::Windings;
+    app.ui.focus = Focus::Windings;
     press(&mut app, "a");
-    assert_eq!(app.build.windings.len(), 4);
-    let name = app.build.windings[3].name.clone();
+    assert_eq!(app.doc.build.windings.len(), 4);
+    let name = app.doc.build.windings[3].name.clone();
     assert!(stack_words(&app).contains(&format!("{name}10")));
-    app.winding_sel = 0;
+    app.ui.winding_sel = 0;
     press(&mut app, "n<bs>Pri<enter>");
-    assert_eq!(app.build.windings[0].name, "Pri");
+    assert_eq!(app.doc.build.windings[0].name, "Pri");
     assert_eq!(stack_words(&app)[0], "Pri24");
     press(&mut app, "n<bs><bs><bs>S<enter>");
-    assert!(app.status.clone().unwrap().text.contains("already called"));
-    app.winding_sel = 3;
+    assert!(
+        app.ui
+            .status
+            .clone()
+            .unwrap()
+            .text
+            .contains("already called")
+    );
+    app.ui.winding_sel = 3;
     press(&mut app, "d");
-    assert_eq!(app.build.windings.len(), 3);
+    assert_eq!(app.doc.build.windings.len(), 3);
     // Role, grade, strands, current and pins.
-    app.winding_sel = 2;
+    app.ui.winding_sel = 2;
     press(&mut app, "rg+c0.1<enter>i4 5<enter>");
-    let r = &app.build.windings[2];
+    let r = &app.doc.build.windings[2];
     assert_eq!(r.role.key(), "auxiliary");
     assert_eq!(r.insulation.key(), "grade3");
     assert_eq!(r.strands, 2);
@@ -306,21 +317,22 @@ fn setup_and_bobbin_edits_apply_and_range_checks_refuse() {
     let mut app = plain_app();
     // Setup form: allowance field (third row).
     press(&mut app, "G<down><down><enter><bs><bs><bs><bs>1.3<enter>");
-    assert_eq!(app.build.setup.bulge, 1.3);
+    assert_eq!(app.doc.build.setup.bulge, 1.3);
     press(&mut app, "<enter><bs><bs><bs>5<enter>");
     assert!(
-        app.status
+        app.ui
+            .status
             .clone()
             .unwrap()
             .text
             .contains("between 1.0 and 2.0")
     );
-    assert_eq!(app.build.setup.bulge, 1.3);
+    assert_eq!(app.doc.build.setup.bulge, 1.3);
     press(&mut app, "<esc>");
     // A measured bobbin: the window height typed in.
     press(&mut app, "Bmeasured<enter>");
     assert!(matches!(
-        app.build.bobbin_source,
+        app.doc.build.bobbin_source,
         turnstack::model::BobbinSource::Inline
     ));
     press(&mut app, "<down><down><enter>");
@@ -328,15 +340,15 @@ fn setup_and_bobbin_edits_apply_and_range_checks_refuse() {
         press(&mut app, "<bs>");
     }
     press(&mut app, "2.5<enter><esc>");
-    assert_eq!(app.build.bobbin.window.height_mm, 2.5);
+    assert_eq!(app.doc.build.bobbin.window.height_mm, 2.5);
     assert!(
-        !app.eval.fits,
+        !app.doc.eval.fits,
         "the plain build is 3.1 mm tall with allowance"
     );
     // Back to a library bobbin by filtering the list.
     press(&mut app, "Betd34<enter>");
     assert_eq!(
-        app.build.bobbin_source,
+        app.doc.build.bobbin_source,
         turnstack::model::BobbinSource::Id("etd34".into())
     );
 }
@@ -345,7 +357,7 @@ fn setup_and_bobbin_edits_apply_and_range_checks_refuse() {
 fn pinning_keeps_a_reference_until_unpinned() {
     let mut app = plain_app();
     press(&mut app, "p");
-    let pinned = app.eval.clone();
+    let pinned = app.doc.eval.clone();
     press(&mut app, "s<enter>+");
     let (r, what) = app.reference().unwrap();
     assert_eq!(what, "pinned");
@@ -364,9 +376,9 @@ fn save_then_load_gives_the_same_build_and_quitting_asks_first() {
     // Quit with unsaved edits: asked, and "n" stays.
     let e = press(&mut app, "q");
     assert!(e.is_empty());
-    assert!(matches!(app.overlays.last(), Some(Overlay::Question(_))));
+    assert!(matches!(app.ui.overlays.last(), Some(Overlay::Question(_))));
     press(&mut app, "n");
-    assert!(app.overlays.is_empty());
+    assert!(app.ui.overlays.is_empty());
     // Save: no file yet, so a name is asked for.
     let effects = press(&mut app, "W");
     assert!(effects.is_empty());
@@ -378,7 +390,7 @@ fn save_then_load_gives_the_same_build_and_quitting_asks_first() {
     assert!(!perform(&mut app, effects[0].clone()));
     assert!(!app.dirty());
     let back = load_build(&path).expect("saved file loads");
-    assert_eq!(back, app.build);
+    assert_eq!(back, app.doc.build);
     // Nothing unsaved now: q quits at once.
     assert_eq!(press(&mut app, "q"), [Effect::Quit]);
     // The file is tidy TOML a person can edit.
@@ -388,8 +400,8 @@ fn save_then_load_gives_the_same_build_and_quitting_asks_first() {
     // Reopen through the planner.
     let mut other = plain_app();
     assert!(!perform(&mut other, Effect::Open(path.clone())));
-    assert_eq!(other.build, app.build);
-    assert_eq!(other.path.as_deref(), Some(path.as_path()));
+    assert_eq!(other.doc.build, app.doc.build);
+    assert_eq!(other.doc.path.as_deref(), Some(path.as_path()));
 }
 
 #[test]
@@ -397,26 +409,27 @@ fn quitting_can_save_first() {
     let dir = tempfile::tempdir().unwrap();
     let path = dir.path().join("q.toml");
     let mut app = plain_app();
-    app.path = Some(path.clone());
+    app.doc.path = Some(path.clone());
     press(&mut app, "+q");
     let e = press(&mut app, "s");
     assert_eq!(e, [Effect::SaveThenQuit(path.clone())]);
     assert!(perform(&mut app, e[0].clone()));
-    assert_eq!(load_build(&path).unwrap(), app.build);
+    assert_eq!(load_build(&path).unwrap(), app.doc.build);
 }
 
 #[test]
 fn a_new_file_starts_from_a_picked_bobbin() {
     let dir = tempfile::tempdir().unwrap();
     let path = dir.path().join("new.toml");
-    let mut app = App::new_file(path.clone());
-    assert!(matches!(app.overlays.last(), Some(Overlay::Picker(_))));
+    let library = turnstack::tui::run::read_library(Some(&path));
+    let mut app = App::new_file(path.clone(), library);
+    assert!(matches!(app.ui.overlays.last(), Some(Overlay::Picker(_))));
     press(&mut app, "etd29<enter>");
     assert_eq!(
-        app.build.bobbin_source,
+        app.doc.build.bobbin_source,
         turnstack::model::BobbinSource::Id("etd29".into())
     );
-    assert_eq!(app.path.as_deref(), Some(path.as_path()));
+    assert_eq!(app.doc.path.as_deref(), Some(path.as_path()));
     assert!(app.dirty(), "a new build is unsaved until saved");
     assert_eq!(press(&mut app, "W"), [Effect::Save(path)]);
 }
@@ -425,9 +438,9 @@ fn a_new_file_starts_from_a_picked_bobbin() {
 fn help_lists_every_binding_and_closes() {
     let mut app = plain_app();
     press(&mut app, "?");
-    assert!(matches!(app.overlays.last(), Some(Overlay::Help { .. })));
+    assert!(matches!(app.ui.overlays.last(), Some(Overlay::Help { .. })));
     press(&mut app, "<down><esc>");
-    assert!(app.overlays.is_empty());
+    assert!(app.ui.overlays.is_empty());
 }
 
 /// The technician's run: on the demo (each winding in one plain section), split the
@@ -446,23 +459,23 @@ fn demo_scenario_split_thin_bifilar_undo_save_reopen() {
     assert!(leakage_uh(&app, "S") < plain_ps / 2.0);
     press(&mut app, "<tab><down><down>w0.2mm<enter><tab>");
     assert_eq!(
-        app.build.windings[2].wire,
+        app.doc.build.windings[2].wire,
         WireSize::Metric { bare_mm: 0.2 }
     );
-    app.stack_sel = 0;
+    app.ui.stack_sel = 0;
     press(&mut app, "bwith R<enter><up><up><up><up>bwith R<enter>");
     assert_eq!(
         stack_words(&app),
         ["P12+R", "t1", "S16", "t1", "P12+R", "t1", "t2"]
     );
     assert_eq!(leakage_uh(&app, "R"), 0.0);
-    let fitted = app.eval.height_with_allowance_mm;
+    let fitted = app.doc.eval.height_with_allowance_mm;
     press(&mut app, "u");
     assert_eq!(
         stack_words(&app),
         ["P12+R", "t1", "S16", "t1", "P12", "t1", "R12", "t2"]
     );
-    assert!(app.eval.height_with_allowance_mm > fitted);
+    assert!(app.doc.eval.height_with_allowance_mm > fitted);
     let dir = tempfile::tempdir().unwrap();
     let path = dir.path().join("forward.toml");
     let e = press(
@@ -473,6 +486,64 @@ fn demo_scenario_split_thin_bifilar_undo_save_reopen() {
     perform(&mut app, e[0].clone());
     assert_eq!(press(&mut app, "q"), [Effect::Quit]);
     let reopened = App::new(load_build(&path).unwrap(), Some(path));
-    assert_eq!(reopened.build, app.build);
-    assert_eq!(reopened.eval, app.eval);
+    assert_eq!(reopened.doc.build, app.doc.build);
+    assert_eq!(reopened.doc.eval, app.doc.eval);
+}
+
+/// A bobbin file in the `bobbins/` folder beside the build.
+fn beside_bobbin(dir: &std::path::Path, id: &str, width_mm: f64, height_mm: f64) {
+    let folder = dir.join("bobbins");
+    std::fs::create_dir_all(&folder).unwrap();
+    let text = format!(
+        "format = 1\nname = \"former beside the build\"\norigin = \"measured\"\n\
+         [window]\nwidth_mm = {width_mm}\nheight_mm = {height_mm}\n\
+         [tube]\nshape = \"round\"\ndiameter_mm = 9.0\n"
+    );
+    std::fs::write(folder.join(format!("{id}.toml")), text).unwrap();
+}
+
+/// The bobbin list shows the bobbins beside the build; choosing one takes that very bobbin,
+/// also when its id is a bundled one's (here e25-13-7, with other dimensions) or no bundled
+/// one's at all.
+#[test]
+fn the_bobbin_list_takes_the_bobbin_beside_the_build() {
+    let dir = tempfile::tempdir().unwrap();
+    beside_bobbin(dir.path(), "e25-13-7", 17.5, 5.5);
+    beside_bobbin(dir.path(), "my-former", 16.0, 5.0);
+    let bundled = BobbinLibrary::bundled_only()
+        .find("e25-13-7")
+        .unwrap()
+        .unwrap();
+    assert_ne!(bundled.window.width_mm, 17.5);
+    let mut app = plain_app();
+    app.doc.path = Some(dir.path().join("build.toml"));
+    // The run loop reads the library for the document's file.
+    turnstack::tui::run::refresh_library(&mut app);
+    assert_eq!(
+        app.doc.build.bobbin.window.width_mm,
+        bundled.window.width_mm
+    );
+
+    press(&mut app, "Be25-13-7<enter>");
+    assert!(app.ui.overlays.is_empty(), "{:?}", app.ui.status);
+    assert_eq!(app.doc.build.bobbin.window.width_mm, 17.5);
+    assert_eq!(app.doc.build.bobbin.window.height_mm, 5.5);
+    assert_eq!(app.doc.build.bobbin.name, "former beside the build");
+    assert_eq!(
+        app.doc.build.bobbin_source,
+        turnstack::model::BobbinSource::Id("e25-13-7".into())
+    );
+
+    press(&mut app, "Bmy-former<enter>");
+    assert_ne!(
+        app.ui.status.as_ref().map(|s| s.kind),
+        Some(StatusKind::Error),
+        "{:?}",
+        app.ui.status
+    );
+    assert_eq!(app.doc.build.bobbin.window.width_mm, 16.0);
+    assert_eq!(
+        app.doc.build.bobbin_source,
+        turnstack::model::BobbinSource::Id("my-former".into())
+    );
 }

@@ -9,14 +9,16 @@ use turnstack::tui::app::{Overlay, PickValue, StatusKind};
 use turnstack::tui::{Action, App, Effect, run::perform};
 
 fn status(app: &App) -> String {
-    app.status
+    app.ui
+        .status
         .as_ref()
         .map(|s| s.text.clone())
         .unwrap_or_default()
 }
 
 fn refused(app: &App) -> bool {
-    app.status
+    app.ui
+        .status
         .as_ref()
         .is_some_and(|s| s.kind == StatusKind::Refused)
 }
@@ -43,13 +45,17 @@ fn scratch(name: &str) -> std::path::PathBuf {
 #[test]
 fn reset_turns_in_the_operating_form_move_duty_limit_and_switch_voltage_common_practice() {
     let mut app = demo_app();
-    let vin_max = app.build.operating.as_ref().unwrap().vin_max_v;
+    let vin_max = app.doc.build.operating.as_ref().unwrap().vin_max_v;
     let c = app
+        .doc
         .eval
         .converter
         .clone()
         .expect("the demo has an operating point");
-    assert_eq!(app.build.windings[0].turns, app.build.windings[2].turns);
+    assert_eq!(
+        app.doc.build.windings[0].turns,
+        app.doc.build.windings[2].turns
+    );
     assert!((c.reset_duty_limit - 0.5).abs() < 1e-12);
     assert!((c.switch_voltage_v - 2.0 * vin_max).abs() < 1e-9);
     let before = screen(&app, 80, 24);
@@ -60,8 +66,8 @@ fn reset_turns_in_the_operating_form_move_duty_limit_and_switch_voltage_common_p
     // Second row of the operating form: the reset winding's turns.
     press(&mut app, "V<down><enter>");
     type_value(&mut app, "12");
-    assert_eq!(app.build.windings[2].turns, 12);
-    let c = app.eval.converter.clone().unwrap();
+    assert_eq!(app.doc.build.windings[2].turns, 12);
+    let c = app.doc.eval.converter.clone().unwrap();
     assert!(c.reset_duty_limit > 0.5, "{}", c.reset_duty_limit);
     assert!((c.reset_duty_limit - 24.0 / 36.0).abs() < 1e-12);
     assert!(c.switch_voltage_v > 2.0 * vin_max);
@@ -74,8 +80,8 @@ fn reset_turns_in_the_operating_form_move_duty_limit_and_switch_voltage_common_p
     assert!(after.contains("84.0"), "{after}");
 
     press(&mut app, "u");
-    assert_eq!(app.build.windings[2].turns, 24);
-    assert!((app.eval.converter.as_ref().unwrap().reset_duty_limit - 0.5).abs() < 1e-12);
+    assert_eq!(app.doc.build.windings[2].turns, 24);
+    assert!((app.doc.eval.converter.as_ref().unwrap().reset_duty_limit - 0.5).abs() < 1e-12);
 }
 
 #[test]
@@ -84,13 +90,13 @@ fn operating_fields_edit_and_the_engine_refuses_a_bad_point() {
     // Highest input voltage: fourth row.
     press(&mut app, "V<down><down><down><enter>");
     type_value(&mut app, "30");
-    assert_eq!(app.build.operating.as_ref().unwrap().vin_max_v, 30.0);
+    assert_eq!(app.doc.build.operating.as_ref().unwrap().vin_max_v, 30.0);
     // Lowest input above the highest: validation says no, the build is kept.
     press(&mut app, "<up><enter>");
     type_value(&mut app, "40");
     assert!(refused(&app), "{}", status(&app));
     assert!(status(&app).contains("vin_max_v"), "{}", status(&app));
-    assert_eq!(app.build.operating.as_ref().unwrap().vin_min_v, 20.0);
+    assert_eq!(app.doc.build.operating.as_ref().unwrap().vin_min_v, 20.0);
     press(&mut app, "<enter>");
     type_value(&mut app, "twenty");
     assert!(status(&app).contains("not a number"));
@@ -101,18 +107,21 @@ fn operating_fields_edit_and_the_engine_refuses_a_bad_point() {
     assert!(refused(&app));
     press(&mut app, "<enter>");
     type_value(&mut app, "");
-    assert_eq!(app.build.operating.as_ref().unwrap().duty_limit, None);
+    assert_eq!(app.doc.build.operating.as_ref().unwrap().duty_limit, None);
     // The reset side cycles.
     press(&mut app, &"<up>".repeat(20));
     press(&mut app, "<enter>");
     assert_eq!(
-        app.build.operating.as_ref().unwrap().reset_side,
+        app.doc.build.operating.as_ref().unwrap().reset_side,
         ResetSide::Secondary
     );
     // Two undos take back the reset side and the cleared duty limit, not the voltage.
     press(&mut app, "<esc>uu");
-    assert_eq!(app.build.operating.as_ref().unwrap().vin_max_v, 30.0);
-    assert_eq!(app.build.operating.as_ref().unwrap().duty_limit, Some(0.45));
+    assert_eq!(app.doc.build.operating.as_ref().unwrap().vin_max_v, 30.0);
+    assert_eq!(
+        app.doc.build.operating.as_ref().unwrap().duty_limit,
+        Some(0.45)
+    );
 }
 
 #[test]
@@ -121,14 +130,14 @@ fn the_operating_table_is_removed_and_added_back() {
     press(&mut app, "V");
     press(&mut app, &"<down>".repeat(20));
     press(&mut app, "<enter>");
-    assert!(app.build.operating.is_none());
-    assert!(app.eval.converter.is_none());
+    assert!(app.doc.build.operating.is_none());
+    assert!(app.doc.eval.converter.is_none());
     // Only the "add" row is left.
     press(&mut app, "<enter>");
-    assert!(app.build.operating.is_some());
-    assert!(app.eval.converter.is_some());
+    assert!(app.doc.build.operating.is_some());
+    assert!(app.doc.eval.converter.is_some());
     press(&mut app, "<esc>uu");
-    assert_eq!(app.build, demo_app().build);
+    assert_eq!(app.doc.build, demo_app().doc.build);
 
     // Without a frequency the engine refuses an operating point.
     let mut app = demo_app();
@@ -141,17 +150,17 @@ fn the_operating_table_is_removed_and_added_back() {
     press(&mut app, "V<enter>");
     assert!(refused(&app));
     assert!(status(&app).contains("frequency"), "{}", status(&app));
-    assert!(app.build.operating.is_none());
+    assert!(app.doc.build.operating.is_none());
 }
 
 #[test]
 fn material_grade_figures_and_removal() {
     let mut app = demo_app();
-    assert_eq!(app.build.material.as_ref().unwrap().grade, None);
+    assert_eq!(app.doc.build.material.as_ref().unwrap().grade, None);
     // Grade row opens the grade list; pick the cold grade by filtering.
     press(&mut app, "M<enter>25c<enter>");
     let g = turnstack::library::materials::find("mnzn-power-25c").unwrap();
-    let m = app.build.material.clone().unwrap();
+    let m = app.doc.build.material.clone().unwrap();
     assert_eq!(m.grade.as_deref(), Some("mnzn-power-25c"));
     assert_eq!(m.bsat_mt, g.bsat_mt);
     assert_eq!(m.steinmetz, Some(g.steinmetz));
@@ -162,7 +171,7 @@ fn material_grade_figures_and_removal() {
     // Loss coefficients as three numbers; two numbers are refused.
     press(&mut app, "<down><down><enter>");
     type_value(&mut app, "50 1.5 2.7");
-    let st = app.build.material.as_ref().unwrap().steinmetz.unwrap();
+    let st = app.doc.build.material.as_ref().unwrap().steinmetz.unwrap();
     assert_eq!((st.k, st.alpha, st.beta), (50.0, 1.5, 2.7));
     press(&mut app, "<enter>");
     type_value(&mut app, "50 1.5");
@@ -170,25 +179,25 @@ fn material_grade_figures_and_removal() {
     // A gap, then remove the table.
     press(&mut app, "<down><enter>");
     type_value(&mut app, "0.1");
-    assert_eq!(app.build.material.as_ref().unwrap().gap_mm, Some(0.1));
+    assert_eq!(app.doc.build.material.as_ref().unwrap().gap_mm, Some(0.1));
     press(&mut app, "<down><enter>");
-    assert!(app.build.material.is_none());
+    assert!(app.doc.build.material.is_none());
     press(&mut app, "<esc>uuuu");
-    assert_eq!(app.build, demo_app().build);
+    assert_eq!(app.doc.build, demo_app().doc.build);
 }
 
 #[test]
 fn isolation_is_declared_cycled_and_shows_the_caution_when_reinforced() {
     let mut app = demo_app();
-    assert!(app.build.isolation.is_none());
+    assert!(app.doc.build.isolation.is_none());
     press(&mut app, "I<enter>");
     assert_eq!(
-        app.build.isolation.as_ref().unwrap().class,
+        app.doc.build.isolation.as_ref().unwrap().class,
         IsolationClass::Functional
     );
     press(&mut app, "<enter><enter>");
     assert_eq!(
-        app.build.isolation.as_ref().unwrap().class,
+        app.doc.build.isolation.as_ref().unwrap().class,
         IsolationClass::Reinforced
     );
     let s = screen(&app, 80, 24);
@@ -197,24 +206,28 @@ fn isolation_is_declared_cycled_and_shows_the_caution_when_reinforced() {
     assert!(s.contains("qualified person"), "{s}");
     // The engine now warns: the demo has one wrap between primary and secondary.
     assert!(
-        app.eval
+        app.doc
+            .eval
             .warnings
             .iter()
             .any(|w| w.code() == "isolation-wraps"),
         "{:?}",
-        app.eval.warnings
+        app.doc.eval.warnings
     );
     press(&mut app, "<down><down><enter>");
     type_value(&mut app, "-2");
     assert!(refused(&app));
     press(&mut app, "<enter>");
     type_value(&mut app, "6");
-    assert_eq!(app.build.isolation.as_ref().unwrap().creepage_mm, Some(6.0));
+    assert_eq!(
+        app.doc.build.isolation.as_ref().unwrap().creepage_mm,
+        Some(6.0)
+    );
     press(&mut app, "<down><enter>");
-    assert!(app.build.isolation.is_none());
+    assert!(app.doc.build.isolation.is_none());
     press(&mut app, "<esc>uuuuu");
-    assert!(app.build.isolation.is_none());
-    assert_eq!(app.build, demo_app().build);
+    assert!(app.doc.build.isolation.is_none());
+    assert_eq!(app.doc.build, demo_app().doc.build);
 }
 
 /// The bobbin list follows `report::fit::rank`: fitting first, most spare first.
@@ -222,7 +235,7 @@ fn isolation_is_declared_cycled_and_shows_the_caution_when_reinforced() {
 fn bobbin_list_is_ranked_by_fit_with_the_current_one_marked() {
     let mut app = demo_app();
     press(&mut app, "B");
-    let Some(Overlay::Picker(p)) = app.overlays.last().cloned() else {
+    let Some(Overlay::Picker(p)) = app.ui.overlays.last().cloned() else {
         panic!("no bobbin list");
     };
     let lib = turnstack::files::BobbinLibrary::standard();
@@ -231,12 +244,12 @@ fn bobbin_list_is_ranked_by_fit_with_the_current_one_marked() {
         .into_iter()
         .filter_map(|e| e.bobbin.ok().map(|b| (e.id, b)))
         .collect();
-    let ranked = turnstack::report::fit::rank(&app.build, &bobbins);
+    let ranked = turnstack::report::fit::rank(&app.doc.build, &bobbins);
     let ids: Vec<String> = p
         .items
         .iter()
         .filter_map(|it| match &it.value {
-            PickValue::Bobbin(id) => Some(id.clone()),
+            PickValue::Bobbin { id, .. } => Some(id.clone()),
             _ => None,
         })
         .collect();
@@ -244,14 +257,20 @@ fn bobbin_list_is_ranked_by_fit_with_the_current_one_marked() {
     assert_eq!(ids, want);
     assert!(ranked[0].fits && !ranked.last().unwrap().fits);
     let current = p.items.iter().find(|it| it.label.starts_with('*')).unwrap();
-    assert_eq!(current.value, PickValue::Bobbin("e25-13-7".into()));
+    assert_eq!(current.value.bobbin_id(), Some("e25-13-7"));
     assert!(p.items[0].label.contains("yes"));
     assert!(p.items.iter().any(|it| it.label.contains("too tall")));
     // Choosing one is an edit; undo goes back.
     press(&mut app, "etd34<enter>");
-    assert_eq!(app.build.bobbin_source, BobbinSource::Id("etd34".into()));
+    assert_eq!(
+        app.doc.build.bobbin_source,
+        BobbinSource::Id("etd34".into())
+    );
     press(&mut app, "u");
-    assert_eq!(app.build.bobbin_source, BobbinSource::Id("e25-13-7".into()));
+    assert_eq!(
+        app.doc.build.bobbin_source,
+        BobbinSource::Id("e25-13-7".into())
+    );
 }
 
 /// A 20-turn test winding of 600 uH on a 7.5 x 7.5 mm leg, le 57.5 mm, mu_i 2300: AL =
@@ -259,7 +278,7 @@ fn bobbin_list_is_ranked_by_fit_with_the_current_one_marked() {
 #[test]
 fn measured_core_shows_al_mu_e_and_gap_then_applies_and_undoes() {
     let mut app = demo_app();
-    let old = app.build.bobbin.clone();
+    let old = app.doc.build.bobbin.clone();
     press(&mut app, "Bmeasured<enter>");
     // Applying without a leg is refused.
     press(&mut app, &"<down>".repeat(12));
@@ -279,9 +298,9 @@ fn measured_core_shows_al_mu_e_and_gap_then_applies_and_undoes() {
     press(&mut app, "<enter>");
     type_value(&mut app, "-1");
     assert!(refused(&app));
-    assert_eq!(app.core_draft.test_uh, Some(600.0));
-    assert_eq!(app.core_draft.le_mm, Some(57.5));
-    assert_eq!(app.core_draft.mu_i, Some(2300.0));
+    assert_eq!(app.ui.core_draft.test_uh, Some(600.0));
+    assert_eq!(app.ui.core_draft.le_mm, Some(57.5));
+    assert_eq!(app.ui.core_draft.mu_i, Some(2300.0));
     let mu_e = core_test::mu_e(1500.0, 57.5, 56.25);
     let gap = core_test::equivalent_gap_mm(mu_e, 2300.0, 57.5);
     let s = screen(&app, 80, 24);
@@ -291,15 +310,15 @@ fn measured_core_shows_al_mu_e_and_gap_then_applies_and_undoes() {
     assert!(s.contains("dirty"), "{s}");
     // Apply: the bobbin gets the core, one edit.
     press(&mut app, "<down><down><enter>");
-    let core = app.build.bobbin.core.clone().expect("a core");
+    let core = app.doc.build.bobbin.core.clone().expect("a core");
     assert_eq!(core.ae_mm2, 56.25);
     assert_eq!(core.le_mm, 57.5);
     assert_eq!(core.al_nh, Some(1500.0));
-    assert_eq!(app.eval.converter.as_ref().unwrap().al_nh, Some(1500.0));
+    assert_eq!(app.doc.eval.converter.as_ref().unwrap().al_nh, Some(1500.0));
     press(&mut app, "<esc>u");
-    assert_eq!(app.build.bobbin, {
+    assert_eq!(app.doc.build.bobbin, {
         let mut b = old.clone();
-        b.name = app.build.bobbin.name.clone();
+        b.name = app.doc.build.bobbin.name.clone();
         b.origin = "measured".into();
         b
     });
@@ -327,19 +346,23 @@ fn a_measured_bobbin_is_saved_and_an_existing_file_kept_unless_confirmed() {
     perform(&mut app, effects[0].clone());
     let text = std::fs::read_to_string(path).unwrap();
     let back = turnstack::files::parse_bobbin(&text, None).unwrap();
-    assert_eq!(back.window, app.build.bobbin.window);
-    // Again: it asks; no keeps the file.
+    assert_eq!(back.window, app.doc.build.bobbin.window);
+    // Again: it asks (the loop finds the file there); no keeps the file.
     std::fs::write(path, "# mine\n").unwrap();
     press(&mut app, "<enter>");
     press(&mut app, &"<bs>".repeat(40));
-    assert!(press(&mut app, "bench-e25<enter>").is_empty());
-    assert!(matches!(app.overlays.last(), Some(Overlay::Question(_))));
+    for e in press(&mut app, "bench-e25<enter>") {
+        perform(&mut app, e);
+    }
+    assert!(matches!(app.ui.overlays.last(), Some(Overlay::Question(_))));
     assert!(press(&mut app, "n").is_empty());
     assert_eq!(std::fs::read_to_string(path).unwrap(), "# mine\n");
     // Yes replaces it.
     press(&mut app, "<enter>");
     press(&mut app, &"<bs>".repeat(40));
-    press(&mut app, "bench-e25<enter>");
+    for e in press(&mut app, "bench-e25<enter>") {
+        perform(&mut app, e);
+    }
     let effects = press(&mut app, "y");
     assert_eq!(effects.len(), 1);
     perform(&mut app, effects[0].clone());
@@ -359,7 +382,7 @@ fn the_winding_sheet_is_written_as_text_or_html_and_the_status_says_where() {
         assert_eq!(effects, vec![Effect::WriteSheet(path.clone())]);
         perform(&mut app, effects[0].clone());
         let text = std::fs::read_to_string(&path).unwrap();
-        let id = turnstack::report::sheet::sheet(&app.build, &app.eval, 20.0).build_id;
+        let id = turnstack::report::sheet::sheet(&app.doc.build, &app.doc.eval, 20.0).build_id;
         assert!(text.contains(&id), "{name}");
         assert!(text.contains(marker), "{name}: {marker}");
         assert!(status(&app).contains(&path.display().to_string()));
@@ -375,24 +398,33 @@ fn the_winding_sheet_is_written_as_text_or_html_and_the_status_says_where() {
 #[test]
 fn search_lists_candidates_and_taking_one_is_one_undoable_edit() {
     let mut app = demo_app();
-    let original = app.build.clone();
+    let original = app.doc.build.clone();
     let effect = app.update(Action::Search);
     assert_eq!(effect, Some(Effect::Search));
     assert!(status(&app).starts_with("searching"));
     perform(&mut app, Effect::Search);
-    let Some(Overlay::Picker(p)) = app.overlays.last().cloned() else {
+    let Some(Overlay::Picker(p)) = app.ui.overlays.last().cloned() else {
         panic!("no candidate list: {}", status(&app));
     };
-    assert!(!app.found.is_empty());
-    assert_eq!(p.items.len(), app.found.len());
+    // Each item carries its candidate, numbered from 0 in the order listed.
+    let found: Vec<_> = p
+        .items
+        .iter()
+        .map(|it| match &it.value {
+            PickValue::Candidate { n, candidate } => (*n, candidate.build.clone()),
+            other => panic!("not a candidate: {other:?}"),
+        })
+        .collect();
+    assert!(!found.is_empty());
+    assert!(found.iter().enumerate().all(|(i, (n, _))| i == *n));
     assert!(p.title.contains("evaluated") && p.title.contains("skipped"));
     assert!(p.header.contains("loss W") && p.header.contains("leak uH"));
     press(&mut app, "<down><enter>");
-    assert_eq!(app.build, app.found[1].build);
-    assert_ne!(app.build, original);
-    assert_eq!(app.undo.len(), 1);
+    assert_eq!(app.doc.build, found[1].1);
+    assert_ne!(app.doc.build, original);
+    assert_eq!(app.doc.undo.len(), 1);
     press(&mut app, "u");
-    assert_eq!(app.build, original);
+    assert_eq!(app.doc.build, original);
 }
 
 #[test]
@@ -407,5 +439,75 @@ fn search_on_a_build_without_a_secondary_is_refused() {
     perform(&mut app, Effect::Search);
     assert!(refused(&app), "{}", status(&app));
     assert!(status(&app).contains("secondary"));
-    assert!(app.overlays.is_empty());
+    assert!(app.ui.overlays.is_empty());
+}
+
+/// Every row of every form does what its table row says when Enter is pressed on it: a
+/// typed field opens the line editor labelled with the row's label and starting from the
+/// value shown, and a value that is not one (here "x") is refused, not written; a row that
+/// acts at once changes the status or opens a list. Nothing panics, and the form stays open.
+#[test]
+fn every_form_row_answers_enter_as_its_table_says() {
+    use turnstack::tui::app::FormKind;
+    let forms = [
+        ("G", FormKind::Setup),
+        ("<tab><enter>", FormKind::Winding(0)),
+        ("V", FormKind::Operating),
+        ("M", FormKind::Material),
+        ("I", FormKind::Isolation),
+        ("Bmeasured<enter>", FormKind::Bobbin),
+    ];
+    for (open, kind) in forms {
+        let rows = {
+            let mut app = bench_app();
+            press(&mut app, open);
+            app.form_rows(kind).len()
+        };
+        assert!(rows > 0, "{kind:?}");
+        for r in 0..rows {
+            let mut app = bench_app();
+            press(&mut app, open);
+            let before = app.doc.build.clone();
+            let all = app.form_rows(kind);
+            let (label, shown) = (all[r].label, all[r].value.clone());
+            press(&mut app, &"<down>".repeat(r));
+            press(&mut app, "<enter>");
+            match app.ui.overlays.last().cloned() {
+                // This row acts: it asks for the id to save the bobbin under.
+                Some(Overlay::Prompt(p)) if label == "save the bobbin to your folder" => {
+                    assert_eq!(p.purpose, turnstack::tui::app::PromptPurpose::BobbinId);
+                    press(&mut app, "<esc>");
+                }
+                Some(Overlay::Prompt(p)) => {
+                    assert_eq!(p.label, label, "{kind:?} row {r}");
+                    // The text to edit is the value shown, less its unit and words.
+                    let words: Vec<&str> = shown.split_whitespace().collect();
+                    for w in p.text.split_whitespace() {
+                        assert!(
+                            words.contains(&w),
+                            "{kind:?} {label}: {} vs {shown}",
+                            p.text
+                        );
+                    }
+                    press(&mut app, &"<bs>".repeat(p.text.chars().count() + 1));
+                    press(&mut app, "x<enter>");
+                    let names_or_pins = matches!(label, "title" | "name" | "pins (start, finish)");
+                    if !names_or_pins {
+                        assert!(refused(&app), "{kind:?} {label}: {}", status(&app));
+                        assert_eq!(app.doc.build, before, "{kind:?} {label}");
+                    }
+                }
+                Some(Overlay::Picker(_) | Overlay::Form(_)) => {}
+                other => panic!("{kind:?} row {r}: {other:?}"),
+            }
+            if matches!(app.ui.overlays.last(), Some(Overlay::Picker(_))) {
+                press(&mut app, "<esc>");
+            }
+            assert!(
+                matches!(app.ui.overlays.last(), Some(Overlay::Form(f)) if f.kind == kind),
+                "{kind:?} row {r} ({label}): {:?}",
+                app.ui.overlays.last()
+            );
+        }
+    }
 }

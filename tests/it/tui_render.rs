@@ -16,7 +16,7 @@ fn contains(screen: &str, what: &str) -> bool {
 fn bench_example_at_80x24_shows_the_engines_figures() {
     let app = bench_app();
     let s = screen(&app, 80, 24);
-    let e = &app.eval;
+    let e = &app.doc.eval;
     assert!(contains(&s, "FITS"), "{s}");
     assert!(
         contains(
@@ -53,12 +53,12 @@ fn bench_example_at_80x24_shows_the_engines_figures() {
 fn bench_example_at_120x40_shows_every_column_and_converter_figures() {
     let app = bench_app();
     let s = screen(&app, 120, 40);
-    for w in &app.eval.windings {
+    for w in &app.doc.eval.windings {
         assert!(contains(&s, &format!("{:.1}", w.mlt_mm)));
         let ac = w.ac.as_ref().expect("the example has a frequency");
         assert!(contains(&s, &format!("{:.4}", ac.rac_ohm)), "{s}");
     }
-    let c = app.eval.converter.as_ref().unwrap();
+    let c = app.doc.eval.converter.as_ref().unwrap();
     assert!(contains(&s, &format!("{:.1}", c.switch_voltage_v)), "{s}");
     assert!(contains(&s, "x1.1 allowance 3.12 mm"), "{s}");
     // Bifilar sections show both letters; the partial last layer leaves empty cells.
@@ -82,7 +82,7 @@ fn overflowing_app() -> turnstack::tui::App {
 #[test]
 fn overflow_is_marked_at_both_sizes() {
     let app = overflowing_app();
-    let over = -app.eval.spare_height_mm;
+    let over = -app.doc.eval.spare_height_mm;
     for (w, h) in [(80, 24), (120, 40)] {
         let s = screen(&app, w, h);
         assert!(contains(&s, "DOES NOT FIT"), "{s}");
@@ -186,7 +186,7 @@ fn drawing_never_panics_at_any_size_with_any_popup_open() {
 #[test]
 fn no_color_draws_no_colour_but_keeps_the_selection_reversed() {
     let mut app = bench_app();
-    app.theme = Theme::plain();
+    app.ui.theme = Theme::plain();
     let mut t = ratatui::Terminal::new(ratatui::backend::TestBackend::new(80, 24)).unwrap();
     t.draw(|f| view::draw(&app, f)).unwrap();
     let buf = t.backend().buffer();
@@ -201,7 +201,7 @@ fn no_color_draws_no_colour_but_keeps_the_selection_reversed() {
             .any(|c| c.modifier.contains(Modifier::REVERSED))
     );
     // With colour, windings get their colour and the letter stays.
-    app.theme = Theme { color: true };
+    app.ui.theme = Theme { color: true };
     t.draw(|f| view::draw(&app, f)).unwrap();
     assert!(
         t.backend()
@@ -256,4 +256,28 @@ fn snapshot_wire_picker_80x24() {
     let mut app = bench_app();
     press(&mut app, "<tab><down><down>w");
     insta::assert_snapshot!(screen(&app, 80, 24));
+}
+
+/// At 120 columns the windings panel gives each heading its own column (a space between
+/// any two) and spells the roles out as the file writes them.
+#[test]
+fn windings_headings_apart_and_roles_whole_at_120x40() {
+    let app = bench_app();
+    let lines = render(&app, 120, 40);
+    let head = lines
+        .iter()
+        .find(|l| l.contains("name") && l.contains("turns"))
+        .expect("the windings heading");
+    for pair in ["ins len m", "len m   MLT", "MLT DCR ohm", "DCR ohm Rac ohm"] {
+        assert!(head.contains(pair), "{pair:?} not in {head}");
+    }
+    assert!(!head.contains("inslength"), "{head}");
+    for w in &app.doc.build.windings {
+        let role = w.role.key();
+        let row = lines
+            .iter()
+            .find(|l| l.contains(&format!(" {:<4} {role} ", w.name)))
+            .unwrap_or_else(|| panic!("no row of {} with the role {role} whole", w.name));
+        assert!(row.contains(&format!(" {} ", w.turns)), "{row}");
+    }
 }

@@ -30,8 +30,8 @@ fn figures(e: &Evaluation) -> Vec<(String, f64, usize)> {
 }
 
 pub fn rows(app: &App, width: u16) -> Vec<Line<'static>> {
-    let t = &app.theme;
-    let e = &app.eval;
+    let t = &app.ui.theme;
+    let e = &app.doc.eval;
     let w = width as usize;
     let mut out = Vec::new();
     let verdict = if e.fits {

@@ -20,7 +20,7 @@ const ORDER: [Context; 7] = [
 
 /// Every line of the help, for drawing and for tests.
 pub fn lines(app: &App, width: usize) -> Vec<Line<'static>> {
-    let t = &app.theme;
+    let t = &app.ui.theme;
     let key_w = 20.min(width / 3);
     let mut out: Vec<Line<'static>> = [
         "turnstack edits the build; every figure comes from the engine and updates at once.",
@@ -59,7 +59,7 @@ pub fn draw(app: &App, frame: &mut Frame, area: Rect, scroll: u16) {
     });
     frame.render_widget(Clear, rect);
     let block = Block::bordered()
-        .title(Line::from(" Help: every key (↑↓ scroll, Esc closes) ").style(app.theme.title()));
+        .title(Line::from(" Help: every key (↑↓ scroll, Esc closes) ").style(app.ui.theme.title()));
     let inner = block.inner(rect);
     frame.render_widget(block, rect);
     let all = lines(app, inner.width as usize);

@@ -42,9 +42,9 @@ pub fn draw(app: &App, frame: &mut Frame) {
 
     // Left: the stack, the windings, the warnings.
     let h = left.height;
-    let wind_h = (app.build.windings.len() as u16 + 3).min(h / 3).max(4);
+    let wind_h = (app.doc.build.windings.len() as u16 + 3).min(h / 3).max(4);
     let warn_min = 4;
-    let stack_h = (app.build.stack.len() as u16 + 3)
+    let stack_h = (app.doc.build.stack.len() as u16 + 3)
         .max(6)
         .min(h.saturating_sub(wind_h + warn_min));
     let [stack_area, wind_area, warn_area] = Layout::vertical([
@@ -69,13 +69,13 @@ pub fn draw(app: &App, frame: &mut Frame) {
     frame.render_widget(window::WindowView { app }, window_area);
     check::draw(app, frame, check_area, rows);
 
-    for o in &app.overlays {
+    for o in &app.ui.overlays {
         match o {
             Overlay::Help { scroll } => help::draw(app, frame, area, *scroll),
             Overlay::Picker(p) => popup::picker(app, frame, area, p),
             Overlay::Form(f) => popup::form(app, frame, area, f),
             Overlay::Prompt(p) => popup::prompt(app, frame, area, p),
-            Overlay::Question(q) => popup::question(app, frame, area, *q),
+            Overlay::Question(q) => popup::question(app, frame, area, q),
         }
     }
 }
@@ -96,7 +96,7 @@ fn too_small(frame: &mut Frame, area: Rect) {
 
 /// A bordered panel; the focused one says so in its title, not only by colour.
 pub(crate) fn panel<'a>(app: &App, title: String, focused: bool) -> Block<'a> {
-    let t = &app.theme;
+    let t = &app.ui.theme;
     let (mark, style) = if focused {
         ("▶ ", t.focused_border())
     } else {

@@ -1,6 +1,6 @@
 //! Pop-ups over the main screen: pick lists, forms, the line editor and questions.
 
-use super::super::app::{App, Form, Picker, Prompt, Question};
+use super::super::app::{App, Effect, Form, Picker, Prompt, Question};
 use super::{fit, pad, wrap};
 use ratatui::Frame;
 use ratatui::layout::Rect;
@@ -21,7 +21,7 @@ fn centred(area: Rect, w: u16, h: u16) -> Rect {
 
 fn frame_box(app: &App, frame: &mut Frame, rect: Rect, title: &str, foot: &str) -> Rect {
     frame.render_widget(Clear, rect);
-    let t = &app.theme;
+    let t = &app.ui.theme;
     let w = rect.width.saturating_sub(4) as usize;
     let block = Block::bordered()
         .title(Line::from(format!(" {} ", fit(title, w))).style(t.title()))
@@ -31,8 +31,9 @@ fn frame_box(app: &App, frame: &mut Frame, rect: Rect, title: &str, foot: &str) 
     inner
 }
 
+/// A pick list: title, filter, headings and the visible items, the selection marked.
 pub fn picker(app: &App, frame: &mut Frame, area: Rect, p: &Picker) {
-    let t = &app.theme;
+    let t = &app.ui.theme;
     let visible = p.visible();
     let longest = p
         .items
@@ -102,14 +103,19 @@ pub fn picker(app: &App, frame: &mut Frame, area: Rect, p: &Picker) {
     );
 }
 
+/// A form: its rows (label, value), the selection marked, and its notes below.
 pub fn form(app: &App, frame: &mut Frame, area: Rect, f: &Form) {
-    let t = &app.theme;
+    let t = &app.ui.theme;
     let rows = app.form_rows(f.kind);
     let title = match f.kind {
         super::super::app::FormKind::Setup => "Setup".to_string(),
         super::super::app::FormKind::Winding(k) => format!(
             "Winding {}",
-            app.build.windings.get(k).map_or("", |w| w.name.as_str())
+            app.doc
+                .build
+                .windings
+                .get(k)
+                .map_or("", |w| w.name.as_str())
         ),
         super::super::app::FormKind::Bobbin => "Measured bobbin and core".to_string(),
         super::super::app::FormKind::Operating => "Operating point [operating]".to_string(),
@@ -153,10 +159,13 @@ pub fn form(app: &App, frame: &mut Frame, area: Rect, f: &Form) {
     let lw = 32.min(inner.width as usize / 2);
     let items: Vec<ListItem> = rows
         .iter()
-        .map(|(_, label, value)| {
+        .map(|row| {
             ListItem::new(Line::from(vec![
-                Span::styled(pad(label, lw), t.dim()),
-                Span::raw(fit(value, (inner.width as usize).saturating_sub(lw + 2))),
+                Span::styled(pad(row.label, lw), t.dim()),
+                Span::raw(fit(
+                    &row.value,
+                    (inner.width as usize).saturating_sub(lw + 2),
+                )),
             ]))
         })
         .collect();
@@ -176,8 +185,9 @@ pub fn form(app: &App, frame: &mut Frame, area: Rect, f: &Form) {
     }
 }
 
+/// The line editor: what is asked, the text typed and the hint.
 pub fn prompt(app: &App, frame: &mut Frame, area: Rect, p: &Prompt) {
-    let t = &app.theme;
+    let t = &app.ui.theme;
     let rect = centred(area, 64, 6);
     let inner = frame_box(app, frame, rect, &p.label, "Enter accept · Esc cancel");
     let w = inner.width as usize;
@@ -198,8 +208,10 @@ pub fn prompt(app: &App, frame: &mut Frame, area: Rect, p: &Prompt) {
     frame.render_widget(Paragraph::new(lines), inner);
 }
 
-pub fn question(app: &App, frame: &mut Frame, area: Rect, q: Question) {
-    let t = &app.theme;
+/// A question with the keys that answer it.
+pub fn question(app: &App, frame: &mut Frame, area: Rect, q: &Question) {
+    let t = &app.ui.theme;
+    let replaced;
     let (title, text, keys) = match q {
         Question::Quit => (
             "Unsaved edits",
@@ -216,11 +228,29 @@ pub fn question(app: &App, frame: &mut Frame, area: Rect, q: Question) {
             "Start a new build and drop the unsaved edits?",
             "y yes, start anew · n / Esc stay",
         ),
-        Question::OverwriteBobbin => (
-            "Bobbin file exists",
-            "Your bobbin folder already has a file of that id. Replace it?",
-            "y yes, replace it · n / Esc keep it",
-        ),
+        Question::Overwrite(e) => match &**e {
+            Effect::SaveBobbin { .. } => (
+                "Bobbin file exists",
+                "Your bobbin folder already has a file of that id. Replace it?",
+                "y yes, replace it · n / Esc keep it",
+            ),
+            other => {
+                let name = other
+                    .replaces(None)
+                    .and_then(|p| p.file_name())
+                    .map_or(String::new(), |n| n.to_string_lossy().into_owned());
+                let what = match other {
+                    Effect::WriteSheet(_) => "the winding sheet",
+                    _ => "the build",
+                };
+                replaced = format!("{name} exists. Write {what} over it?");
+                (
+                    "File exists",
+                    replaced.as_str(),
+                    "y yes, overwrite · n / Esc cancel",
+                )
+            }
+        },
     };
     let rect = centred(area, 62, 6);
     let inner = frame_box(app, frame, rect, title, "");

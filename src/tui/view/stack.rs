@@ -9,11 +9,11 @@ use ratatui::text::{Line, Span};
 use ratatui::widgets::{List, ListItem, ListState};
 
 pub fn draw(app: &App, frame: &mut Frame, area: Rect) {
-    let t = &app.theme;
+    let t = &app.ui.theme;
     let block = panel(
         app,
         "Stack, outermost on top".into(),
-        app.focus == Focus::Stack,
+        app.ui.focus == Focus::Stack,
     )
     .title_bottom(Line::from(" tube ").centered());
     let inner = block.inner(area);
@@ -42,16 +42,16 @@ pub fn draw(app: &App, frame: &mut Frame, area: Rect) {
         height: inner.height - 1,
         ..inner
     };
-    let n = app.eval.sections.len();
+    let n = app.doc.eval.sections.len();
     let items: Vec<ListItem> = (0..n)
         .rev()
         .map(|i| ListItem::new(row(app, i, wide, inner.width as usize)))
         .collect();
     let mut state = ListState::default();
     if n > 0 {
-        state.select(Some(n - 1 - app.stack_sel.min(n - 1)));
+        state.select(Some(n - 1 - app.ui.stack_sel.min(n - 1)));
     }
-    let list = List::new(items).highlight_style(if app.focus == Focus::Stack {
+    let list = List::new(items).highlight_style(if app.ui.focus == Focus::Stack {
         t.selected()
     } else {
         t.title()
@@ -60,9 +60,10 @@ pub fn draw(app: &App, frame: &mut Frame, area: Rect) {
 }
 
 fn row(app: &App, i: usize, wide: bool, width: usize) -> Line<'static> {
-    let t = &app.theme;
-    let s = &app.eval.sections[i];
+    let t = &app.ui.theme;
+    let s = &app.doc.eval.sections[i];
     let warned = app
+        .doc
         .eval
         .warnings
         .iter()
@@ -77,7 +78,24 @@ fn row(app: &App, i: usize, wide: bool, width: usize) -> Line<'static> {
     let num = format!("{:>2} ", i + 1);
     let mut spans = vec![mark, Span::raw(num)];
     let lw = if wide { 8 } else { 6 };
-    let (label, style, cols): (String, _, [String; 8]) = match &s.kind {
+    let (label, style, cols) = columns(app, i);
+    spans.push(Span::styled(pad(&label, lw), style));
+    let [n, per, lyr, last, tape, from, h, mlt] = cols;
+    let rest = if wide {
+        format!("{n:>6}{per:>7}{lyr:>5}{last:>5}{tape:>6}{from:>9}{h:>7}{mlt:>7}")
+    } else {
+        format!("{n:>5}{per:>5}{lyr:>4}{tape:>5}{h:>7}{mlt:>6}")
+    };
+    spans.push(Span::raw(fit(&rest, width.saturating_sub(4 + lw))));
+    Line::from(spans)
+}
+
+/// A section's label, its style and its figures' columns (turns, per layer, layers, last
+/// layer, tape, from, height, MLT).
+fn columns(app: &App, i: usize) -> (String, ratatui::style::Style, [String; 8]) {
+    let t = &app.ui.theme;
+    let s = &app.doc.eval.sections[i];
+    match &s.kind {
         SectionKind::Tape { wraps } => (
             "tape".into(),
             t.tape(),
@@ -103,7 +121,7 @@ fn row(app: &App, i: usize, wide: bool, width: usize) -> Line<'static> {
             mlt_mm,
             ..
         } => {
-            let k = app.build.winding_index(winding).unwrap_or(0);
+            let k = app.doc.build.winding_index(winding).unwrap_or(0);
             let name = match with {
                 Some(w) => format!("{winding}+{w}"),
                 None => winding.to_string(),
@@ -128,14 +146,5 @@ fn row(app: &App, i: usize, wide: bool, width: usize) -> Line<'static> {
                 ],
             )
         }
-    };
-    spans.push(Span::styled(pad(&label, lw), style));
-    let [n, per, lyr, last, tape, from, h, mlt] = cols;
-    let rest = if wide {
-        format!("{n:>6}{per:>7}{lyr:>5}{last:>5}{tape:>6}{from:>9}{h:>7}{mlt:>7}")
-    } else {
-        format!("{n:>5}{per:>5}{lyr:>4}{tape:>5}{h:>7}{mlt:>6}")
-    };
-    spans.push(Span::raw(fit(&rest, width.saturating_sub(4 + lw))));
-    Line::from(spans)
+    }
 }

@@ -10,8 +10,8 @@ use ratatui::text::{Line, Span};
 use unicode_width::UnicodeWidthStr;
 
 pub fn header(app: &App, frame: &mut Frame, area: Rect) {
-    let t = &app.theme;
-    let e = &app.eval;
+    let t = &app.ui.theme;
+    let e = &app.doc.eval;
     let verdict = if e.fits {
         Span::styled(
             format!(
@@ -32,7 +32,7 @@ pub fn header(app: &App, frame: &mut Frame, area: Rect) {
         &format!(
             " turnstack · {}{modified} · {}",
             app.file_label(),
-            app.build.title
+            app.doc.build.title
         ),
         left_w,
     );
@@ -48,9 +48,9 @@ pub fn header(app: &App, frame: &mut Frame, area: Rect) {
 }
 
 pub fn status_line(app: &App, frame: &mut Frame, area: Rect) {
-    let t = &app.theme;
+    let t = &app.ui.theme;
     let width = area.width as usize;
-    if let Some(s) = &app.status {
+    if let Some(s) = &app.ui.status {
         let style = match s.kind {
             StatusKind::Info => t.base(),
             StatusKind::Refused | StatusKind::Error => t.refused(),

@@ -10,11 +10,11 @@ use ratatui::text::{Line, Span};
 use ratatui::widgets::{Paragraph, Wrap};
 
 pub fn draw(app: &App, frame: &mut Frame, area: Rect) {
-    let t = &app.theme;
-    let e = &app.eval;
-    let selected = match app.focus {
-        Focus::Stack => WarningAt::Section(app.stack_sel),
-        Focus::Windings => WarningAt::Winding(app.winding_sel),
+    let t = &app.ui.theme;
+    let e = &app.doc.eval;
+    let selected = match app.ui.focus {
+        Focus::Stack => WarningAt::Section(app.ui.stack_sel),
+        Focus::Windings => WarningAt::Winding(app.ui.winding_sel),
     };
     let mut list: Vec<_> = e.warnings.iter().collect();
     list.sort_by_key(|w| w.at != selected);
@@ -38,6 +38,7 @@ pub fn draw(app: &App, frame: &mut Frame, area: Rect) {
             WarningAt::Build => "build".to_string(),
             WarningAt::Section(i) => format!("#{}", i + 1),
             WarningAt::Winding(k) => app
+                .doc
                 .build
                 .windings
                 .get(*k)

@@ -19,34 +19,63 @@ fn grade_short(g: Insulation) -> &'static str {
     }
 }
 
+/// Draw the windings panel: a heading and one row per winding, as wide as the panel allows.
 pub fn draw(app: &App, frame: &mut Frame, area: Rect) {
-    let t = &app.theme;
-    let temp = app.build.setup.temperature_c;
+    let t = &app.ui.theme;
+    let temp = app.doc.build.setup.temperature_c;
     let block = panel(
         app,
         // The fill factor rides here: at 80x24 the check panel has no row left for it.
         format!(
             "Windings, DCR at {temp} C, fill {:.3}",
-            app.eval.fill_factor
+            app.doc.eval.fill_factor
         ),
-        app.focus == Focus::Windings,
+        app.ui.focus == Focus::Windings,
     );
     let inner = block.inner(area);
     frame.render_widget(block, area);
     if inner.height < 2 {
         return;
     }
-    let wide = inner.width >= 63;
-    let dense = inner.width >= 68;
-    let head = if wide {
+    // Wide: the roles in full and a space between every two headings (64 columns, the
+    // panel's inside at 120 columns); dense adds the current density.
+    let wide = inner.width >= 64;
+    let dense = inner.width >= 70;
+    frame.render_widget(
+        Line::from(fit(&heading(wide, dense), inner.width as usize)).style(t.dim()),
+        Rect { height: 1, ..inner },
+    );
+    let list_area = Rect {
+        y: inner.y + 1,
+        height: inner.height - 1,
+        ..inner
+    };
+    let items: Vec<ListItem> = (0..app.doc.build.windings.len())
+        .map(|k| ListItem::new(row(app, k, wide, dense)))
+        .collect();
+    let mut state = ListState::default();
+    if !app.doc.build.windings.is_empty() {
+        state.select(Some(app.ui.winding_sel));
+    }
+    let list = List::new(items).highlight_style(if app.ui.focus == Focus::Windings {
+        t.selected()
+    } else {
+        t.title()
+    });
+    frame.render_stateful_widget(list, list_area, &mut state);
+}
+
+/// The column headings.
+fn heading(wide: bool, dense: bool) -> String {
+    if wide {
         format!(
-            " {:<4} {:<4}{:>6} {:<11} {:<3}{:>8}{:>7}{:>8}{:>8}{}",
+            " {:<4} {:<9}{:>5} {:<11} {:<3}{:>6}{:>6}{:>8}{:>8}{}",
             "name",
             "role",
             "turns",
             "wire",
             "ins",
-            "length m",
+            "len m",
             "MLT",
             "DCR ohm",
             "Rac ohm",
@@ -57,85 +86,64 @@ pub fn draw(app: &App, frame: &mut Frame, area: Rect) {
             " {:<4} {:<3}{:>5} {:<9} {:<3}{:>6}{:>8}",
             "name", "rol", "N", "wire", "ins", "len m", "DCR ohm"
         )
-    };
-    frame.render_widget(
-        Line::from(fit(&head, inner.width as usize)).style(t.dim()),
-        Rect { height: 1, ..inner },
-    );
-    let list_area = Rect {
-        y: inner.y + 1,
-        height: inner.height - 1,
-        ..inner
-    };
-    let items: Vec<ListItem> = app
-        .build
-        .windings
-        .iter()
-        .enumerate()
-        .map(|(k, w)| {
-            let e = app.eval.windings.get(k);
-            let warned = app
-                .eval
-                .warnings
-                .iter()
-                .any(|x| x.at == WarningAt::Winding(k));
-            let mark = if warned {
-                Span::styled("!", t.warn())
-            } else {
-                Span::raw(" ")
-            };
-            let role = if wide {
-                w.role.key()[..4].to_string()
-            } else {
-                w.role.key()[..3].to_string()
-            };
-            let (len, mlt, dcr, rac, j) = match e {
-                Some(e) => (
-                    format!("{:.3}", e.length_m),
-                    format!("{:.1}", e.mlt_mm),
-                    format!("{:.4}", e.dcr_ohm),
-                    e.ac.as_ref()
-                        .map_or("-".into(), |a| format!("{:.4}", a.rac_ohm)),
-                    e.current_density_a_mm2
-                        .map_or("-".into(), |j| format!("{j:.1}")),
-                ),
-                None => Default::default(),
-            };
-            let wire = wire_label(&w.wire, w.strands);
-            let ins = grade_short(w.insulation);
-            let n = w.turns;
-            let rest = if wide {
-                let j = if dense {
-                    format!("{j:>6}")
-                } else {
-                    String::new()
-                };
-                format!(
-                    " {role:<4}{n:>6} {} {ins:<3}{len:>8}{mlt:>7}{dcr:>8}{rac:>8}{j}",
-                    pad(&wire, 11)
-                )
-            } else {
-                // The wire column ends in a space even when the label fills it.
-                format!(
-                    " {role:<3}{n:>5} {} {ins:<3}{len:>6}{dcr:>8}",
-                    pad(&wire, 9)
-                )
-            };
-            ListItem::new(Line::from(vec![
-                mark,
-                Span::styled(pad(&w.name, 4), t.winding(k)),
-                Span::raw(rest),
-            ]))
-        })
-        .collect();
-    let mut state = ListState::default();
-    if !app.build.windings.is_empty() {
-        state.select(Some(app.winding_sel));
     }
-    let list = List::new(items).highlight_style(if app.focus == Focus::Windings {
-        t.selected()
+}
+
+/// Winding k's row: a warning mark, its name in its colour, then its figures.
+fn row(app: &App, k: usize, wide: bool, dense: bool) -> Line<'static> {
+    let t = &app.ui.theme;
+    let w = &app.doc.build.windings[k];
+    let warned = app
+        .doc
+        .eval
+        .warnings
+        .iter()
+        .any(|x| x.at == WarningAt::Winding(k));
+    let mark = if warned {
+        Span::styled("!", t.warn())
     } else {
-        t.title()
-    });
-    frame.render_stateful_widget(list, list_area, &mut state);
+        Span::raw(" ")
+    };
+    let role = if wide {
+        w.role.key()
+    } else {
+        &w.role.key()[..3]
+    };
+    let (len, mlt, dcr, rac, j) = match app.doc.eval.windings.get(k) {
+        Some(e) => (
+            format!("{:.3}", e.length_m),
+            format!("{:.1}", e.mlt_mm),
+            format!("{:.4}", e.dcr_ohm),
+            e.ac.as_ref()
+                .map_or("-".into(), |a| format!("{:.4}", a.rac_ohm)),
+            e.current_density_a_mm2
+                .map_or("-".into(), |j| format!("{j:.1}")),
+        ),
+        None => Default::default(),
+    };
+    let wire = wire_label(&w.wire, w.strands);
+    let ins = grade_short(w.insulation);
+    let n = w.turns;
+    let rest = if wide {
+        let j = if dense {
+            format!("{j:>6}")
+        } else {
+            String::new()
+        };
+        format!(
+            " {role:<9}{n:>5} {} {ins:<3}{len:>6}{mlt:>6}{dcr:>8}{rac:>8}{j}",
+            pad(&wire, 11)
+        )
+    } else {
+        // The wire column ends in a space even when the label fills it.
+        format!(
+            " {role:<3}{n:>5} {} {ins:<3}{len:>6}{dcr:>8}",
+            pad(&wire, 9)
+        )
+    };
+    Line::from(vec![
+        mark,
+        Span::styled(pad(&w.name, 4), t.winding(k)),
+        Span::raw(rest),
+    ])
 }

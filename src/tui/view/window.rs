@@ -43,9 +43,8 @@ struct Piece {
     min_rows: u16,
 }
 
-fn pieces(app: &App) -> Vec<Piece> {
-    let e = &app.eval;
-    let limit_mm = e.window_height_mm;
+/// Every tape section, layer and tape between layers, with the height it starts at.
+fn bands(e: &crate::engine::Evaluation) -> Vec<(f64, Piece)> {
     let mut bands: Vec<(f64, Piece)> = Vec::new();
     for (s, sec) in e.sections.iter().enumerate() {
         match &sec.kind {
@@ -92,6 +91,13 @@ fn pieces(app: &App) -> Vec<Piece> {
             }
         }
     }
+    bands
+}
+
+fn pieces(app: &App) -> Vec<Piece> {
+    let e = &app.doc.eval;
+    let limit_mm = e.window_height_mm;
+    let mut bands = bands(e);
     bands.sort_by(|a, b| a.0.total_cmp(&b.0));
     let mut out = Vec::new();
     let mut limit_done = false;
@@ -181,7 +187,8 @@ fn allot(pieces: &[Piece], rows: u16) -> Option<Vec<u16>> {
 
 /// The letter that stands for winding `k` in the drawing.
 pub fn letter(app: &App, k: usize) -> char {
-    app.build
+    app.doc
+        .build
         .windings
         .get(k)
         .and_then(|w| w.name.chars().find(|c| c.is_alphanumeric()))
@@ -191,8 +198,8 @@ pub fn letter(app: &App, k: usize) -> char {
 impl Widget for WindowView<'_> {
     fn render(self, area: Rect, buf: &mut Buffer) {
         let app = self.app;
-        let t = &app.theme;
-        let e = &app.eval;
+        let t = &app.ui.theme;
+        let e = &app.doc.eval;
         let all = pieces(app);
         let block = panel(
             app,
@@ -220,10 +227,10 @@ impl Widget for WindowView<'_> {
         // Row 0 is the bottom (next to the tube).
         let mut r: u16 = 0;
         let ww = e.window_width_mm.max(1e-9);
-        let margin = app.build.setup.margin_mm;
+        let margin = app.doc.build.setup.margin_mm;
         let cell_mm = ww / f64::from(cols);
-        let sel = if app.focus == Focus::Stack {
-            Some(app.stack_sel)
+        let sel = if app.ui.focus == Focus::Stack {
+            Some(app.ui.stack_sel)
         } else {
             None
         };
@@ -277,84 +284,21 @@ impl WindowView<'_> {
         margin: f64,
     ) {
         let app = self.app;
-        let t = &app.theme;
-        let e = &app.eval;
+        let t = &app.ui.theme;
+        let e = &app.doc.eval;
         let past = |top: f64| top > e.window_height_mm + FIT_TOLERANCE_MM;
-        let centre = |c: u16| (f64::from(c) + 0.5) * cell_mm;
-        let in_margin = |x: f64| margin > 0.0 && (x < margin || x > e.window_width_mm - margin);
         match item {
-            Item::Layer { s, l, top_mm } => {
-                let sec = &e.sections[s];
-                let SectionKind::Winding {
-                    winding,
-                    with,
-                    pitch_mm,
-                    ..
-                } = &sec.kind
-                else {
-                    return;
-                };
-                let ly = &sec.layers[l];
-                let a = app.build.winding_index(winding).unwrap_or(0);
-                let b = with.as_ref().and_then(|w| app.build.winding_index(w));
-                let over = past(top_mm);
-                // The first winding's share of each bifilar turn's width.
-                let share_a = e
-                    .windings
-                    .get(a)
-                    .map_or(0.0, |w| f64::from(w.strands.max(1)) * w.od_mm)
-                    / pitch_mm.max(1e-9);
-                let pitch = pitch_mm.max(1e-9);
-                let turn_of = |c: u16| {
-                    let x = centre(c);
-                    if in_margin(x) {
-                        return None;
-                    }
-                    let turn = ((x - margin) / pitch).floor();
-                    (turn >= 0.0 && (turn as u32) < ly.turns).then_some(turn as u32)
-                };
-                let mut c = 0;
-                while c < cols {
-                    let x = centre(c);
-                    let Some(turn) = turn_of(c) else {
-                        let (ch, st) = if in_margin(x) {
-                            ("░", t.dim())
-                        } else {
-                            ("·", t.dim())
-                        };
-                        buf.set_string(x0 + c, y, ch, st);
-                        c += 1;
-                        continue;
-                    };
-                    // The cells of this turn: a bifilar turn shows both letters, the first
-                    // winding's in proportion to its share of the pitch.
-                    let mut n = 1;
-                    while c + n < cols && turn_of(c + n) == Some(turn) {
-                        n += 1;
-                    }
-                    let first = match b {
-                        Some(_) if n >= 2 => {
-                            ((f64::from(n) * share_a).round() as u16).clamp(1, n - 1)
-                        }
-                        Some(_) if turn % 2 == 1 => 0,
-                        _ => n,
-                    };
-                    for j in 0..n {
-                        let k = match b {
-                            Some(b) if j >= first => b,
-                            _ => a,
-                        };
-                        let mut ch = letter(app, k);
-                        // Case tells turns apart only where a turn spans two cells or more.
-                        if turn % 2 == 1 && pitch >= 2.0 * cell_mm {
-                            ch = ch.to_ascii_lowercase();
-                        }
-                        let style = if over { t.bad() } else { t.winding(k) };
-                        buf.set_string(x0 + c + j, y, ch.to_string(), style);
-                    }
-                    c += n;
-                }
-            }
+            Item::Layer { s, l, top_mm } => self.draw_layer(
+                buf,
+                (s, l, top_mm),
+                RowAt {
+                    x0,
+                    y,
+                    cols,
+                    cell_mm,
+                    margin,
+                },
+            ),
             Item::Tape { s, top_mm } | Item::LayerTape { s, top_mm } => {
                 let thick = matches!(item, Item::Tape { .. });
                 let ch = if thick { "═" } else { "─" };
@@ -397,7 +341,7 @@ impl WindowView<'_> {
                 }
                 let label = format!(
                     " x{} allowance {:.2} mm ",
-                    app.build.setup.bulge, e.height_with_allowance_mm
+                    app.doc.build.setup.bulge, e.height_with_allowance_mm
                 );
                 let label = super::fit(&label, cols as usize);
                 let w = label.width() as u16;
@@ -405,6 +349,97 @@ impl WindowView<'_> {
             }
         }
     }
+
+    /// Layer l of section s, each cell the letter of the winding whose turn it crosses.
+    fn draw_layer(&self, buf: &mut Buffer, (s, l, top_mm): (usize, usize, f64), at: RowAt) {
+        let RowAt {
+            x0,
+            y,
+            cols,
+            cell_mm,
+            margin,
+        } = at;
+        let app = self.app;
+        let t = &app.ui.theme;
+        let e = &app.doc.eval;
+        let centre = |c: u16| (f64::from(c) + 0.5) * cell_mm;
+        let in_margin = |x: f64| margin > 0.0 && (x < margin || x > e.window_width_mm - margin);
+        let sec = &e.sections[s];
+        let SectionKind::Winding {
+            winding,
+            with,
+            pitch_mm,
+            ..
+        } = &sec.kind
+        else {
+            return;
+        };
+        let ly = &sec.layers[l];
+        let a = app.doc.build.winding_index(winding).unwrap_or(0);
+        let b = with.as_ref().and_then(|w| app.doc.build.winding_index(w));
+        let over = top_mm > e.window_height_mm + FIT_TOLERANCE_MM;
+        // The first winding's share of each bifilar turn's width.
+        let share_a = e
+            .windings
+            .get(a)
+            .map_or(0.0, |w| f64::from(w.strands.max(1)) * w.od_mm)
+            / pitch_mm.max(1e-9);
+        let pitch = pitch_mm.max(1e-9);
+        let turn_of = |c: u16| {
+            let x = centre(c);
+            if in_margin(x) {
+                return None;
+            }
+            let turn = ((x - margin) / pitch).floor();
+            (turn >= 0.0 && (turn as u32) < ly.turns).then_some(turn as u32)
+        };
+        let mut c = 0;
+        while c < cols {
+            let x = centre(c);
+            let Some(turn) = turn_of(c) else {
+                let ch = if in_margin(x) { "░" } else { "·" };
+                buf.set_string(x0 + c, y, ch, t.dim());
+                c += 1;
+                continue;
+            };
+            // The cells of this turn: a bifilar turn shows both letters, the first
+            // winding's in proportion to its share of the pitch.
+            let mut n = 1;
+            while c + n < cols && turn_of(c + n) == Some(turn) {
+                n += 1;
+            }
+            let first = match b {
+                Some(_) if n >= 2 => ((f64::from(n) * share_a).round() as u16).clamp(1, n - 1),
+                Some(_) if turn % 2 == 1 => 0,
+                _ => n,
+            };
+            for j in 0..n {
+                let k = match b {
+                    Some(b) if j >= first => b,
+                    _ => a,
+                };
+                let mut ch = letter(app, k);
+                // Case tells turns apart only where a turn spans two cells or more.
+                if turn % 2 == 1 && pitch >= 2.0 * cell_mm {
+                    ch = ch.to_ascii_lowercase();
+                }
+                let style = if over { t.bad() } else { t.winding(k) };
+                buf.set_string(x0 + c + j, y, ch.to_string(), style);
+            }
+            c += n;
+        }
+    }
+}
+
+/// Where a row of the drawing goes: its first column and line, its width in cells, the
+/// millimetres a cell stands for and the margin tape's width.
+#[derive(Clone, Copy)]
+struct RowAt {
+    x0: u16,
+    y: u16,
+    cols: u16,
+    cell_mm: f64,
+    margin: f64,
 }
 
 /// Too many pieces for the rows: every layer and tape at its plain-scale row (later ones

@@ -23,14 +23,16 @@ pub fn bench_app() -> App {
                 .to_path_buf(),
         ),
     );
-    app.theme = Theme::plain();
+    app.ui.theme = Theme::plain();
+    turnstack::tui::run::refresh_library(&mut app);
     app
 }
 
 /// The planner on the demo build it opens with no file (each winding in one section).
 pub fn demo_app() -> App {
     let mut app = App::new(demo_build().expect("the demo build loads"), None);
-    app.theme = Theme::plain();
+    app.ui.theme = Theme::plain();
+    turnstack::tui::run::refresh_library(&mut app);
     app
 }
 
@@ -98,4 +100,12 @@ pub fn press(app: &mut App, keys: &str) -> Vec<turnstack::tui::Effect> {
         }
     }
     effects
+}
+
+/// Press keys and carry out every effect they give, as the run loop does (files are read
+/// and written, the overwrite question is asked).
+pub fn drive(app: &mut App, keys: &str) {
+    for e in press(app, keys) {
+        turnstack::tui::run::perform(app, e);
+    }
 }
