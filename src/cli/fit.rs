@@ -6,7 +6,7 @@ use crate::model::BobbinSource;
 use crate::report::fit::{FitRow, rank};
 use crate::report::text::truncate;
 use crate::report::wrap;
-use serde_json::json;
+use serde::Serialize;
 use std::fmt::Write as _;
 use std::path::{Path, PathBuf};
 use std::process::ExitCode;
@@ -56,15 +56,37 @@ pub fn fit(file: &Path, folders: &[PathBuf], as_json: bool) -> ExitCode {
     })
 }
 
-fn row_json(r: &FitRow) -> serde_json::Value {
-    json!({
-        "bobbin": r.bobbin, "name": r.name, "fits": r.fits, "valid": r.valid,
-        "height_with_allowance_mm": r.height_with_allowance_mm,
-        "window_height_mm": r.window_height_mm,
-        "spare_height_mm": r.spare_height_mm, "fill_factor": r.fill_factor,
-        "dcr_total_ohm": r.dcr_total_ohm, "leakage_uh": r.leakage_uh,
-        "reasons": r.reasons,
-    })
+/// One entry of `fit --json` (FORMAT.md, "turnstack fit").
+#[derive(Serialize)]
+struct FitRowJson<'a> {
+    bobbin: &'a str,
+    name: &'a str,
+    fits: bool,
+    valid: bool,
+    height_with_allowance_mm: f64,
+    window_height_mm: f64,
+    spare_height_mm: f64,
+    fill_factor: f64,
+    dcr_total_ohm: f64,
+    /// `null` when the build has no primary-secondary pair.
+    leakage_uh: Option<f64>,
+    reasons: &'a [String],
+}
+
+fn row_json(r: &FitRow) -> FitRowJson<'_> {
+    FitRowJson {
+        bobbin: &r.bobbin,
+        name: &r.name,
+        fits: r.fits,
+        valid: r.valid,
+        height_with_allowance_mm: r.height_with_allowance_mm,
+        window_height_mm: r.window_height_mm,
+        spare_height_mm: r.spare_height_mm,
+        fill_factor: r.fill_factor,
+        dcr_total_ohm: r.dcr_total_ohm,
+        leakage_uh: r.leakage_uh,
+        reasons: &r.reasons,
+    }
 }
 
 fn render(title: &str, source: &BobbinSource, rows: &[FitRow]) -> String {

@@ -6,9 +6,42 @@ use crate::files::{BobbinLibrary, BobbinOrigin, user_bobbin_dir};
 use crate::library::wires::catalogue;
 use crate::model::Tube;
 use crate::report::text::truncate;
-use serde_json::json;
+use serde::Serialize;
 use std::fmt::Write as _;
 use std::process::ExitCode;
+
+/// One entry of `bobbins --json`: a bobbin that loads, or the error of one that does not.
+#[derive(Serialize)]
+#[serde(untagged)]
+enum BobbinJson<'a> {
+    Read {
+        id: &'a str,
+        origin: &'static str,
+        name: &'a str,
+        window_width_mm: f64,
+        window_height_mm: f64,
+        /// `null` without core data.
+        ae_mm2: Option<f64>,
+    },
+    Unreadable {
+        id: &'a str,
+        origin: &'static str,
+        error: String,
+    },
+}
+
+/// One row of `wires --json`.
+#[derive(Serialize)]
+struct WireJson {
+    wire: Option<String>,
+    bare_mm: f64,
+    od_grade1_mm: f64,
+    od_grade2_mm: f64,
+    od_grade3_mm: f64,
+    od_tiw_mm: f64,
+    ohm_per_m_20c: f64,
+    confirmed: bool,
+}
 
 pub fn bobbins(as_json: bool) -> ExitCode {
     let entries = BobbinLibrary::standard().entries();
@@ -16,14 +49,19 @@ pub fn bobbins(as_json: bool) -> ExitCode {
         let list: Vec<_> = entries
             .iter()
             .map(|e| match &e.bobbin {
-                Ok(b) => json!({
-                    "id": e.id, "origin": e.origin.label(), "name": b.name,
-                    "window_width_mm": b.window.width_mm, "window_height_mm": b.window.height_mm,
-                    "ae_mm2": b.core.as_ref().map(|c| c.ae_mm2),
-                }),
-                Err(err) => {
-                    json!({"id": e.id, "origin": e.origin.label(), "error": err.to_string()})
-                }
+                Ok(b) => BobbinJson::Read {
+                    id: &e.id,
+                    origin: e.origin.label(),
+                    name: &b.name,
+                    window_width_mm: b.window.width_mm,
+                    window_height_mm: b.window.height_mm,
+                    ae_mm2: b.core.as_ref().map(|c| c.ae_mm2),
+                },
+                Err(err) => BobbinJson::Unreadable {
+                    id: &e.id,
+                    origin: e.origin.label(),
+                    error: err.to_string(),
+                },
             })
             .collect();
         return emit_listing(&json_text(&list));
@@ -114,14 +152,15 @@ pub fn wires(as_json: bool) -> ExitCode {
     if as_json {
         let list: Vec<_> = rows
             .iter()
-            .map(|r| {
-                json!({
-                    "wire": r.size.key(), "bare_mm": r.bare_mm,
-                    "od_grade1_mm": r.od_mm[0], "od_grade2_mm": r.od_mm[1],
-                    "od_grade3_mm": r.od_mm[2], "od_tiw_mm": r.od_mm[3],
-                    "ohm_per_m_20c": ohm_per_m(r.bare_mm, 1, 20.0),
-                    "confirmed": r.confirmed,
-                })
+            .map(|r| WireJson {
+                wire: r.size.key(),
+                bare_mm: r.bare_mm,
+                od_grade1_mm: r.od_mm[0],
+                od_grade2_mm: r.od_mm[1],
+                od_grade3_mm: r.od_mm[2],
+                od_tiw_mm: r.od_mm[3],
+                ohm_per_m_20c: ohm_per_m(r.bare_mm, 1, 20.0),
+                confirmed: r.confirmed,
             })
             .collect();
         return emit_listing(&json_text(&list));

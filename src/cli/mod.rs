@@ -98,9 +98,12 @@ pub(crate) fn emit(text: &str) -> bool {
     }
 }
 
-/// Pretty JSON with a final newline, for `--json`.
+/// Pretty JSON with a final newline, for `--json`. It goes through a `serde_json::Value`,
+/// whose map sorts the keys: every object prints its keys in alphabetical order, as the
+/// output always has, whatever the order of the fields of the typed struct.
 pub(crate) fn json_text<T: serde::Serialize>(v: &T) -> String {
-    let mut s = serde_json::to_string_pretty(v).unwrap_or_default();
+    let value = serde_json::to_value(v).unwrap_or_default();
+    let mut s = serde_json::to_string_pretty(&value).unwrap_or_default();
     s.push('\n');
     s
 }

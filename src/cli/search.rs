@@ -5,7 +5,7 @@ use super::{EXIT_BAD_INPUT, emit, fail, load_or_demo};
 use crate::engine::search::{self, Outcome, Series, Settings};
 use crate::files::{build_to_toml, save_build};
 use crate::report::text::truncate;
-use serde_json::json;
+use serde::Serialize;
 use std::fmt::Write as _;
 use std::io::IsTerminal;
 use std::path::Path;
@@ -75,35 +75,62 @@ pub fn run(args: &SearchArgs) -> ExitCode {
     }
 }
 
+/// `search --json` (FORMAT.md, "turnstack search").
+#[derive(Serialize)]
+struct OutcomeJson<'a> {
+    space: usize,
+    evaluated: usize,
+    pruned: usize,
+    feasible: usize,
+    candidates: Vec<CandidateJson<'a>>,
+    /// Why nothing was found; `null` when something was.
+    binding: Option<String>,
+    notes: Vec<String>,
+}
+
+/// One candidate of the front, lowest loss first.
+#[derive(Serialize)]
+struct CandidateJson<'a> {
+    description: &'a str,
+    fits: bool,
+    copper_loss_w: f64,
+    total_loss_w: f64,
+    /// `null` without a surface to estimate the rise from.
+    temperature_rise_c: Option<f64>,
+    leakage_uh: f64,
+    spare_height_mm: f64,
+    height_with_allowance_mm: f64,
+    fill_factor: f64,
+    /// The candidate as a build file.
+    build: String,
+}
+
 fn outcome_json(o: &Outcome) -> String {
-    let list: Vec<_> = o
+    let candidates = o
         .candidates
         .iter()
-        .map(|c| {
-            json!({
-                "description": c.description,
-                "fits": c.eval.fits,
-                "copper_loss_w": c.copper_loss_w,
-                "total_loss_w": c.objectives.loss_w,
-                "temperature_rise_c": c.eval.losses.as_ref().and_then(|l| l.temperature_rise_c),
-                "leakage_uh": c.objectives.leakage_uh,
-                "spare_height_mm": c.eval.spare_height_mm,
-                "height_with_allowance_mm": c.eval.height_with_allowance_mm,
-                "fill_factor": c.eval.fill_factor,
-                "build": build_to_toml(&c.build),
-            })
+        .map(|c| CandidateJson {
+            description: &c.description,
+            fits: c.eval.fits,
+            copper_loss_w: c.copper_loss_w,
+            total_loss_w: c.objectives.loss_w,
+            temperature_rise_c: c.eval.losses.as_ref().and_then(|l| l.temperature_rise_c),
+            leakage_uh: c.objectives.leakage_uh,
+            spare_height_mm: c.eval.spare_height_mm,
+            height_with_allowance_mm: c.eval.height_with_allowance_mm,
+            fill_factor: c.eval.fill_factor,
+            build: build_to_toml(&c.build),
         })
         .collect();
-    let v = json!({
-        "space": o.space,
-        "evaluated": o.evaluated,
-        "pruned": o.pruned,
-        "feasible": o.feasible,
-        "candidates": list,
-        "binding": o.binding,
-        "notes": o.notes,
-    });
-    super::json_text(&v)
+    super::json_text(&OutcomeJson {
+        space: o.space,
+        evaluated: o.evaluated,
+        pruned: o.pruned,
+        feasible: o.feasible,
+        candidates,
+        binding: o.binding.clone(),
+        notes: o.notes.clone(),
+    })
 }
 
 fn report(o: &Outcome, settings: &Settings) -> String {

@@ -11,6 +11,7 @@ mod converter_forward;
 mod core_relations;
 mod fit_ranking;
 mod golden_outputs;
+mod json_contract;
 mod layout_cases;
 mod reference_figures;
 mod search_props;
