@@ -1,6 +1,6 @@
 //! `turnstack fit FILE [--bobbins DIR] [--json]`: which bobbin of the library fits the build.
 
-use super::{EXIT_BAD_INPUT, EXIT_DOES_NOT_FIT, EXIT_FITS, emit, fail, json_text};
+use super::{Error, emit, fit_code, json_text, notice};
 use crate::files::{BobbinLibrary, load_build};
 use crate::model::BobbinSource;
 use crate::report::fit::{FitRow, rank};
@@ -14,15 +14,14 @@ use std::process::ExitCode;
 /// Id shown for a bobbin written inline in the build file.
 pub const INLINE_ID: &str = "(this build's)";
 
-pub fn fit(file: &Path, folders: &[PathBuf], as_json: bool) -> ExitCode {
-    let build = match load_build(file) {
-        Ok(b) => b,
-        Err(e) => return fail(&e),
-    };
+pub fn fit(file: &Path, folders: &[PathBuf], as_json: bool) -> Result<ExitCode, Error> {
+    let build = load_build(file)?;
     for d in folders {
         if !d.is_dir() {
-            eprintln!("turnstack: --bobbins {}: no such folder", d.display());
-            return ExitCode::from(EXIT_BAD_INPUT);
+            return Err(Error::input(format!(
+                "--bobbins {}: no such folder",
+                d.display()
+            )));
         }
     }
     let mut library = BobbinLibrary::for_build(file);
@@ -36,7 +35,7 @@ pub fn fit(file: &Path, folders: &[PathBuf], as_json: bool) -> ExitCode {
     for e in library.entries() {
         match e.bobbin {
             Ok(b) => bobbins.push((e.id, b)),
-            Err(err) => eprintln!("turnstack: skipped bobbin {}: {err}", e.id),
+            Err(err) => notice(&format!("skipped bobbin {}: {err}", e.id)),
         }
     }
     let rows = rank(&build, &bobbins);
@@ -46,14 +45,8 @@ pub fn fit(file: &Path, folders: &[PathBuf], as_json: bool) -> ExitCode {
     } else {
         render(&build.title, &build.bobbin_source, &rows)
     };
-    if !emit(&text) {
-        return ExitCode::from(EXIT_BAD_INPUT);
-    }
-    ExitCode::from(if rows.iter().any(|r| r.fits) {
-        EXIT_FITS
-    } else {
-        EXIT_DOES_NOT_FIT
-    })
+    emit(&text)?;
+    Ok(fit_code(rows.iter().any(|r| r.fits)))
 }
 
 /// One entry of `fit --json` (FORMAT.md, "turnstack fit").

@@ -1,6 +1,6 @@
 //! `turnstack bobbins` and `turnstack wires`.
 
-use super::{EXIT_BAD_INPUT, emit, emit_listing, json_text};
+use super::{EXIT_BAD_INPUT, Error, emit, emit_listing, json_text};
 use crate::engine::resistance::ohm_per_m;
 use crate::files::{BobbinLibrary, BobbinOrigin, user_bobbin_dir};
 use crate::library::wires::catalogue;
@@ -43,7 +43,7 @@ struct WireJson {
     confirmed: bool,
 }
 
-pub fn bobbins(as_json: bool) -> ExitCode {
+pub fn bobbins(as_json: bool) -> Result<ExitCode, Error> {
     let entries = BobbinLibrary::standard().entries();
     if as_json {
         let list: Vec<_> = entries
@@ -137,17 +137,16 @@ pub fn bobbins(as_json: bool) -> ExitCode {
         o,
         "bundled figures are typical for the size:\nmeasure your own bobbin before trusting a fit"
     );
-    if !emit(&o) {
-        return ExitCode::from(EXIT_BAD_INPUT);
-    }
-    if broken {
+    emit(&o)?;
+    // The listing shows each broken file's error in its row; the exit code says there was one.
+    Ok(if broken {
         ExitCode::from(EXIT_BAD_INPUT)
     } else {
         ExitCode::SUCCESS
-    }
+    })
 }
 
-pub fn wires(as_json: bool) -> ExitCode {
+pub fn wires(as_json: bool) -> Result<ExitCode, Error> {
     let rows = catalogue();
     if as_json {
         let list: Vec<_> = rows

@@ -1,6 +1,6 @@
 //! `turnstack measure bobbin ...`: calliper readings and a test winding into a bobbin file.
 
-use super::{EXIT_BAD_INPUT, MeasureBobbin, emit};
+use super::{Error, MeasureBobbin, emit, notice};
 use crate::engine::core_test::{self, GapReading, Leg, Measured};
 use crate::engine::validate_bobbin;
 use crate::files::{bobbin_to_toml, parse_bobbin, user_bobbin_dir, write_atomic};
@@ -9,9 +9,9 @@ use std::fmt::Write as _;
 use std::path::Path;
 use std::process::ExitCode;
 
-fn bad(msg: &str) -> ExitCode {
-    eprintln!("turnstack: {msg}");
-    ExitCode::from(EXIT_BAD_INPUT)
+/// The error of a reading the command cannot use.
+fn bad(msg: &str) -> Result<ExitCode, Error> {
+    Err(Error::input(msg))
 }
 
 fn id_ok(id: &str) -> bool {
@@ -22,7 +22,7 @@ fn id_ok(id: &str) -> bool {
             .all(|c| c.is_ascii_alphanumeric() || matches!(c, '-' | '_' | '.'))
 }
 
-pub fn bobbin(m: &MeasureBobbin) -> ExitCode {
+pub fn bobbin(m: &MeasureBobbin) -> Result<ExitCode, Error> {
     if !id_ok(&m.id) {
         return bad(&format!(
             "--id \"{}\": use letters, digits, '-', '_' or '.' (it becomes the file name)",
@@ -62,9 +62,9 @@ pub fn bobbin(m: &MeasureBobbin) -> ExitCode {
         _ => None,
     };
     if al_nh.is_some() && (leg.is_none() || le_mm.is_none()) {
-        eprintln!(
-            "turnstack: note: without --leg-rect/--leg-round and --le/--le-path only AL can be \
-             worked out; the core data needs Ae and le"
+        notice(
+            "note: without --leg-rect/--leg-round and --le/--le-path only AL can be \
+             worked out; the core data needs Ae and le",
         );
     }
     let mut origin = "Measured with callipers".to_string();
@@ -189,19 +189,17 @@ pub fn bobbin(m: &MeasureBobbin) -> ExitCode {
             }
         }
     }
-    if !emit(&o) {
-        return ExitCode::from(EXIT_BAD_INPUT);
-    }
+    emit(&o)?;
     if m.save {
         let Some(dir) = user_bobbin_dir() else {
             return bad("no data directory on this system: set TURNSTACK_BOBBINS to a folder");
         };
         return save(&dir, &m.id, &toml, m.force);
     }
-    ExitCode::SUCCESS
+    Ok(ExitCode::SUCCESS)
 }
 
-fn save(dir: &Path, id: &str, toml: &str, force: bool) -> ExitCode {
+fn save(dir: &Path, id: &str, toml: &str, force: bool) -> Result<ExitCode, Error> {
     if let Err(e) = std::fs::create_dir_all(dir) {
         return bad(&format!("cannot create {}: {e}", dir.display()));
     }
@@ -215,6 +213,6 @@ fn save(dir: &Path, id: &str, toml: &str, force: bool) -> ExitCode {
     if let Err(e) = write_atomic(&path, toml) {
         return bad(&format!("cannot write {}: {e}", path.display()));
     }
-    eprintln!("turnstack: saved {}", path.display());
-    ExitCode::SUCCESS
+    notice(&format!("saved {}", path.display()));
+    Ok(ExitCode::SUCCESS)
 }

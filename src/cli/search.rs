@@ -1,7 +1,7 @@
 //! `turnstack search`: let the planner try wires, strands and section orders, and report the
 //! Pareto set; `--out` writes the chosen candidate as a build file.
 
-use super::{EXIT_BAD_INPUT, emit, fail, load_or_demo};
+use super::{Error, emit, load_or_demo, say};
 use crate::engine::search::{self, Outcome, Series, Settings};
 use crate::files::{build_to_toml, save_build};
 use crate::report::text::truncate;
@@ -19,11 +19,8 @@ pub struct SearchArgs<'a> {
     pub pick: usize,
 }
 
-pub fn run(args: &SearchArgs) -> ExitCode {
-    let build = match load_or_demo(args.file) {
-        Ok(b) => b,
-        Err(e) => return fail(&e),
-    };
+pub fn run(args: &SearchArgs) -> Result<ExitCode, Error> {
+    let build = load_or_demo(args.file)?;
     let tty = std::io::stderr().is_terminal();
     let progress = move |done: usize, total: usize| {
         if tty && total > 20_000 {
@@ -33,46 +30,37 @@ pub fn run(args: &SearchArgs) -> ExitCode {
             }
         }
     };
-    let outcome = match search::search(&build, &args.settings, &progress) {
-        Ok(o) => o,
-        Err(e) => {
-            eprintln!("turnstack: {e}");
-            return ExitCode::from(EXIT_BAD_INPUT);
-        }
-    };
+    let outcome = search::search(&build, &args.settings, &progress)?;
     if let Some(out) = args.out {
         let Some(c) = outcome.candidates.get(args.pick.saturating_sub(1)) else {
-            eprintln!(
-                "turnstack: there is no candidate {} to write ({} found)",
+            return Err(Error::input(format!(
+                "there is no candidate {} to write ({} found)",
                 args.pick,
                 outcome.candidates.len()
-            );
-            return ExitCode::from(EXIT_BAD_INPUT);
+            )));
         };
-        if let Err(e) = save_build(out, &c.build) {
-            eprintln!("turnstack: cannot write {}: {e}", out.display());
-            return ExitCode::from(EXIT_BAD_INPUT);
-        }
-        eprintln!(
+        save_build(out, &c.build).map_err(|source| Error::Write {
+            path: out.to_path_buf(),
+            source,
+        })?;
+        say(&format!(
             "wrote candidate {} to {}: {}",
             args.pick,
             out.display(),
             c.description
-        );
+        ));
     }
     let text = if args.json {
         outcome_json(&outcome)
     } else {
         report(&outcome, &args.settings)
     };
-    if !emit(&text) {
-        return ExitCode::from(EXIT_BAD_INPUT);
-    }
-    if outcome.candidates.is_empty() {
-        ExitCode::from(1)
+    emit(&text)?;
+    Ok(if outcome.candidates.is_empty() {
+        ExitCode::from(super::EXIT_DOES_NOT_FIT)
     } else {
         ExitCode::SUCCESS
-    }
+    })
 }
 
 /// `search --json` (FORMAT.md, "turnstack search").

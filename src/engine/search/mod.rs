@@ -103,21 +103,14 @@ pub struct Outcome {
 }
 
 /// Why a search cannot start.
-#[derive(Debug, Clone, PartialEq)]
+#[derive(Debug, Clone, PartialEq, thiserror::Error)]
 pub enum SearchError {
+    /// The build lacks a primary or a secondary winding.
+    #[error("the search needs a primary and a secondary winding")]
     NeedsRoles,
+    /// The build does not pass validation; its first problem.
+    #[error("the build is not valid: {0}")]
     Invalid(String),
-}
-
-impl std::fmt::Display for SearchError {
-    fn fmt(&self, f: &mut std::fmt::Formatter<'_>) -> std::fmt::Result {
-        match self {
-            SearchError::NeedsRoles => {
-                f.write_str("the search needs a primary and a secondary winding")
-            }
-            SearchError::Invalid(m) => write!(f, "the build is not valid: {m}"),
-        }
-    }
 }
 
 /// RMS current of each winding the search sizes wire for, as the evaluation has it: the
