@@ -14,8 +14,8 @@ pub use error::Error;
 pub(crate) use error::{notice, say};
 
 use crate::engine::evaluate;
+use crate::files::demo_build;
 use crate::files::{LoadError, load_build};
-use crate::library::demo::demo_build;
 use crate::model::Build;
 use crate::report;
 use clap::Parser;

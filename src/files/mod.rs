@@ -1,12 +1,16 @@
 //! Loading build and bobbin files with clear errors, bobbin lookup, and atomic saving.
 //! The only module besides the front ends that touches the file system.
 
+mod build_id;
 mod convert;
+mod demo;
 mod error;
 mod lookup;
 mod raw;
 mod save;
 
+pub use build_id::{build_id, fnv1a64};
+pub use demo::demo_build;
 pub use error::LoadError;
 pub use lookup::{BobbinEntry, BobbinLibrary, BobbinOrigin, USER_BOBBINS_ENV, user_bobbin_dir};
 pub use save::{bobbin_to_toml, build_to_toml, write_atomic};

@@ -3,7 +3,7 @@
 //! The figures shown (Ae, AL, mu_e, the equivalent gap) come from `engine::core_test`.
 
 use super::app::{App, Effect, Field, Overlay, PromptPurpose, Question};
-use crate::engine::core_test::{self, GapReading, Leg, Measured};
+use crate::engine::measured_core::{self as core_test, GapReading, Leg, Measured};
 use crate::files::bobbin_to_toml;
 use crate::model::BobbinSource;
 

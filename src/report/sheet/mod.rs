@@ -1,16 +1,15 @@
 //! The technician's winding sheet: its content is derived once from the Build and its
 //! Evaluation here, then rendered as 80-column text (`text`) or one printable HTML page (`html`).
 
-mod build_id;
 pub mod html;
 pub mod svg;
 pub mod text;
 
-pub use build_id::{build_id, fnv1a64};
+pub use crate::files::{build_id, fnv1a64};
 
 use super::text::wire_label;
 use crate::engine::resistance::temperature_ratio;
-use crate::engine::{Evaluation, SectionKind, core_test};
+use crate::engine::{Evaluation, SectionKind, measured_core};
 use crate::model::{BobbinSource, Build, IsolationClass, Role, Section, Tube};
 
 /// Wire left at each end of a winding for the lead to its pin and the soldering (common
@@ -518,7 +517,7 @@ fn checks(build: &Build, eval: &Evaluation, measure_at_c: f64) -> Vec<Check> {
     }
     let primary = build.first_of(Role::Primary);
     if let (Some(p), Some(al)) = (primary, build.bobbin.core.as_ref().and_then(|c| c.al_nh)) {
-        let l = core_test::inductance_uh(al, p.turns);
+        let l = measured_core::inductance_uh(al, p.turns);
         out.push(Check {
             what: format!("Magnetising inductance of {}", p.name),
             value: Some(l),
