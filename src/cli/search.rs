@@ -4,6 +4,7 @@
 use super::{Error, emit, load_or_demo, say};
 use crate::engine::search::{self, Outcome, Series, Settings};
 use crate::files::{build_to_toml, save_build};
+use crate::report::search::{binding_with_cli_advice, note_sentence};
 use crate::report::text::truncate;
 use serde::Serialize;
 use std::fmt::Write as _;
@@ -116,8 +117,8 @@ fn outcome_json(o: &Outcome) -> String {
         pruned: o.pruned,
         feasible: o.feasible,
         candidates,
-        binding: o.binding.clone(),
-        notes: o.notes.clone(),
+        binding: o.binding.as_ref().map(binding_with_cli_advice),
+        notes: o.notes.iter().map(note_sentence).collect(),
     })
 }
 
@@ -141,11 +142,11 @@ fn report(o: &Outcome, settings: &Settings) -> String {
         o.candidates.len()
     );
     for n in &o.notes {
-        let _ = writeln!(s, "  note: {n}");
+        let _ = writeln!(s, "  note: {}", note_sentence(n));
     }
     if let Some(b) = &o.binding {
         let _ = writeln!(s, "\nNothing fits within the constraints.");
-        for l in crate::report::wrap(b, 76, "  ") {
+        for l in crate::report::wrap(&binding_with_cli_advice(b), 76, "  ") {
             let _ = writeln!(s, "  {l}");
         }
         return s;

@@ -3,6 +3,7 @@
 
 pub mod fit;
 pub mod json;
+pub mod search;
 pub mod sheet;
 pub mod text;
 mod wrap;
