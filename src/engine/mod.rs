@@ -3,6 +3,7 @@
 //! format and the definition of each figure).
 
 pub mod ac;
+pub mod bench;
 pub mod constants;
 pub mod converter;
 pub mod core_loss;
@@ -25,6 +26,7 @@ pub mod thermal;
 pub mod validate;
 mod warnings;
 
+pub use bench::primary_secondary_leakage;
 pub use converter::ConverterEval;
 pub use currents::CurrentSource;
 pub use evaluation::{

@@ -5,6 +5,7 @@ mod common;
 mod tui_support;
 
 mod ac_dowell_harmonics;
+mod bench_figures;
 mod cli;
 mod converter_examples;
 mod converter_forward;

@@ -330,10 +330,5 @@ pub fn search(
 
 /// Leakage between the first primary and the first secondary, referred to the primary.
 pub fn primary_secondary_leakage_uh(build: &Build, eval: &Evaluation) -> f64 {
-    let p = build.first_of(Role::Primary).map(|w| w.name.as_str());
-    let s = build.first_of(Role::Secondary).map(|w| w.name.as_str());
-    eval.leakage
-        .iter()
-        .find(|l| Some(l.from.as_str()) == p && Some(l.to.as_str()) == s)
-        .map_or(0.0, |l| l.uh)
+    super::primary_secondary_leakage(build, eval).map_or(0.0, |l| l.uh)
 }

@@ -8,27 +8,12 @@ pub mod text;
 pub use crate::files::{build_id, fnv1a64};
 
 use super::text::wire_label;
-use crate::engine::resistance::temperature_ratio;
-use crate::engine::{Evaluation, SectionKind, measured_core};
+use crate::engine::{Evaluation, SectionKind, bench, primary_secondary_leakage};
 use crate::model::{BobbinSource, Build, IsolationClass, Role, Section, Tube};
 
-/// Wire left at each end of a winding for the lead to its pin and the soldering (common
-/// practice for bobbins of this size: enough to reach any pin and to strip and tin the end).
-pub const LEAD_ALLOWANCE_MM: f64 = 100.0;
-
-/// Cut lengths are rounded up to this, so the reel is never cut short.
-pub const CUT_ROUND_MM: f64 = 10.0;
-
-/// Tolerance on the expected DC resistance: wire diameter tolerance of IEC 60317 (about +/-1 %
-/// on the diameter, so +/-2 % on the copper area), the hand-wound length (the allowance the
-/// build carries is 10 %) and the meter's lead resistance at milliohm levels (common practice).
-pub const DCR_TOLERANCE: f64 = 0.10;
-
-/// Tolerance on AL of an ungapped ferrite pair as sold (from memory: +/-25 % is the usual figure).
-pub const AL_TOLERANCE: f64 = 0.25;
-
-/// Default temperature at which the technician measures resistance: the bench, 20 C.
-pub const MEASURE_AT_C: f64 = 20.0;
+pub use crate::engine::bench::{
+    AL_TOLERANCE, CUT_ROUND_MM, DCR_TOLERANCE, LEAD_ALLOWANCE_MM, MEASURE_AT_C,
+};
 
 #[derive(Debug, Clone, PartialEq)]
 pub struct WireItem {
@@ -101,10 +86,6 @@ fn plural(n: u32, one: &str, many: &str) -> String {
     format!("{n} {}", if n == 1 { one } else { many })
 }
 
-fn round_up(x: f64, step: f64) -> f64 {
-    (x / step - 1e-9).ceil() * step
-}
-
 fn wraps_in_stack(eval: &Evaluation) -> u32 {
     eval.sections
         .iter()
@@ -154,43 +135,22 @@ pub fn sheet(build: &Build, eval: &Evaluation, measure_at_c: f64) -> Sheet {
         format!("Ae {:.1} mm2, le {:.1} mm, {al}", c.ae_mm2, c.le_mm)
     });
 
-    // Sections that wind each winding (as `winding` or `with`), in stack order.
-    let sections_of = |name: &str| -> Vec<usize> {
-        build
-            .stack
-            .iter()
-            .enumerate()
-            .filter(|(_, s)| match s {
-                Section::Winding(ws) => ws.winding == name || ws.with.as_deref() == Some(name),
-                Section::Tape { .. } => false,
-            })
-            .map(|(i, _)| i)
-            .collect()
-    };
-
     let wires: Vec<WireItem> = build
         .windings
         .iter()
         .zip(&eval.windings)
-        .map(|(w, e)| {
-            let parks = sections_of(&w.name).len().saturating_sub(1) as u32;
-            let allowances = 2 + parks;
-            let cut_each_mm = round_up(
-                e.length_m * 1000.0 + f64::from(allowances) * LEAD_ALLOWANCE_MM,
-                CUT_ROUND_MM,
-            );
-            WireItem {
-                winding: w.name.to_string(),
-                role: w.role,
-                wire: wire_label(&w.wire, 1),
-                grade: w.insulation.to_string(),
-                strands: w.strands,
-                turns: w.turns,
-                length_m: e.length_m,
-                allowances,
-                cut_each_mm,
-                cut_total_mm: cut_each_mm * f64::from(w.strands),
-            }
+        .zip(bench::cuts(build, eval))
+        .map(|((w, e), cut)| WireItem {
+            winding: w.name.to_string(),
+            role: w.role,
+            wire: wire_label(&w.wire, 1),
+            grade: w.insulation.to_string(),
+            strands: w.strands,
+            turns: w.turns,
+            length_m: e.length_m,
+            allowances: cut.allowances,
+            cut_each_mm: cut.cut_each_mm,
+            cut_total_mm: cut.cut_total_mm,
         })
         .collect();
 
@@ -334,7 +294,7 @@ pub fn sheet(build: &Build, eval: &Evaluation, measure_at_c: f64) -> Sheet {
                     ));
                 }
                 for n in &names {
-                    let secs = sections_of(n);
+                    let secs = bench::sections_winding(build, n);
                     let pos = secs.iter().position(|&k| k == i).unwrap_or(0);
                     let w = build.winding(n);
                     let start = if pos == 0 {
@@ -373,7 +333,7 @@ pub fn sheet(build: &Build, eval: &Evaluation, measure_at_c: f64) -> Sheet {
                     "the flange you started at"
                 };
                 for n in &names {
-                    let secs = sections_of(n);
+                    let secs = bench::sections_winding(build, n);
                     let pos = secs.iter().position(|&k| k == i).unwrap_or(0);
                     let w = build.winding(n);
                     let finish = if pos + 1 == secs.len() {
@@ -487,9 +447,12 @@ fn crossing_leads(build: &Build, eval: &Evaluation) -> Vec<String> {
 
 fn checks(build: &Build, eval: &Evaluation, measure_at_c: f64) -> Vec<Check> {
     let mut out = Vec::new();
-    let ratio = temperature_ratio(build.setup.temperature_c, measure_at_c);
-    for (w, e) in build.windings.iter().zip(&eval.windings) {
-        let r = e.dcr_ohm * ratio;
+    for (w, dcr) in build
+        .windings
+        .iter()
+        .zip(bench::dcr_at_bench(build, eval, measure_at_c))
+    {
+        let r = dcr.expected;
         let pins = match (&w.start_pin, &w.finish_pin) {
             (Some(a), Some(b)) => format!("between pins {a} and {b}"),
             _ => "between its start and finish".into(),
@@ -505,8 +468,8 @@ fn checks(build: &Build, eval: &Evaluation, measure_at_c: f64) -> Vec<Check> {
             expected: format!(
                 "{} at {measure_at_c:.0} C ({} to {}, +/-{:.0} %)",
                 ohms(r),
-                ohms(r * (1.0 - DCR_TOLERANCE)),
-                ohms(r * (1.0 + DCR_TOLERANCE)),
+                ohms(dcr.low),
+                ohms(dcr.high),
                 DCR_TOLERANCE * 100.0
             ),
             how: format!(
@@ -516,8 +479,12 @@ fn checks(build: &Build, eval: &Evaluation, measure_at_c: f64) -> Vec<Check> {
         });
     }
     let primary = build.first_of(Role::Primary);
-    if let (Some(p), Some(al)) = (primary, build.bobbin.core.as_ref().and_then(|c| c.al_nh)) {
-        let l = measured_core::inductance_uh(al, p.turns);
+    if let (Some(p), Some(al), Some(spread)) = (
+        primary,
+        build.bobbin.core.as_ref().and_then(|c| c.al_nh),
+        bench::magnetising_at_bench(build),
+    ) {
+        let l = spread.expected;
         out.push(Check {
             what: format!("Magnetising inductance of {}", p.name),
             value: Some(l),
@@ -525,8 +492,8 @@ fn checks(build: &Build, eval: &Evaluation, measure_at_c: f64) -> Vec<Check> {
                 "{} (AL {al:.0} nH x {}^2; {} to {} for the usual +/-{:.0} % of AL)",
                 henries(l),
                 p.turns,
-                henries(l * (1.0 - AL_TOLERANCE)),
-                henries(l * (1.0 + AL_TOLERANCE)),
+                henries(spread.low),
+                henries(spread.high),
                 AL_TOLERANCE * 100.0
             ),
             how: "at the primary, every other winding open, core assembled and clamped, at a \
@@ -536,10 +503,7 @@ fn checks(build: &Build, eval: &Evaluation, measure_at_c: f64) -> Vec<Check> {
         });
     }
     if let (Some(p), Some(s)) = (primary, build.first_of(Role::Secondary))
-        && let Some(l) = eval
-            .leakage
-            .iter()
-            .find(|l| l.from == p.name && l.to == s.name)
+        && let Some(l) = primary_secondary_leakage(build, eval)
     {
         out.push(Check {
             what: format!("Leakage inductance {} - {}", p.name, s.name),
