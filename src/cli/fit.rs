@@ -4,7 +4,7 @@ use super::{Error, emit, fit_code, json_text, notice};
 use crate::files::{BobbinLibrary, load_build};
 use crate::model::BobbinSource;
 use crate::report::fit::{FitRow, rank};
-use crate::report::text::truncate;
+use crate::report::textfmt::truncate;
 use crate::report::wrap;
 use serde::Serialize;
 use std::fmt::Write as _;

@@ -5,7 +5,7 @@ use crate::engine::resistance::ohm_per_m;
 use crate::files::{BobbinLibrary, BobbinOrigin, user_bobbin_dir};
 use crate::library::wires::catalogue;
 use crate::model::Tube;
-use crate::report::text::truncate;
+use crate::report::textfmt::truncate;
 use serde::Serialize;
 use std::fmt::Write as _;
 use std::process::ExitCode;

@@ -5,7 +5,7 @@ use super::{Error, emit, load_or_demo, say};
 use crate::engine::search::{self, Outcome, Series, Settings};
 use crate::files::{build_to_toml, save_build};
 use crate::report::search::{binding_with_cli_advice, note_sentence};
-use crate::report::text::truncate;
+use crate::report::textfmt::truncate;
 use serde::Serialize;
 use std::fmt::Write as _;
 use std::io::IsTerminal;

@@ -6,6 +6,6 @@ pub mod json;
 pub mod search;
 pub mod sheet;
 pub mod text;
-mod wrap;
+pub mod textfmt;
 
-pub use wrap::wrap;
+pub use textfmt::wrap;

@@ -1,6 +1,7 @@
 //! The readable report of `turnstack check`: the stack from the tube outward with its layers,
 //! the windings, leakage, converter figures, the verdict and the warnings, in 80 columns.
 
+pub use super::textfmt::{truncate, wire_label};
 use super::wrap;
 use crate::engine::{
     AlSource, ConverterEval, CurrentSource, Evaluation, Limit, LossEval, SectionKind, WarningAt,
@@ -253,38 +254,6 @@ pub fn render(build: &Build, eval: &Evaluation) -> String {
         }
     }
     o
-}
-
-/// Cut to `n` display columns.
-pub fn truncate(s: &str, n: usize) -> String {
-    use unicode_width::UnicodeWidthChar;
-    let mut out = String::new();
-    let mut w = 0;
-    for c in s.chars() {
-        let cw = c.width().unwrap_or(0);
-        if w + cw > n {
-            break;
-        }
-        w += cw;
-        out.push(c);
-    }
-    out
-}
-
-/// A short wire label for tables: `3x0.5 mm`, `AWG 32`, `0.8/0.87 mm` for measured wire.
-pub fn wire_label(wire: &crate::model::WireSize, strands: u32) -> String {
-    use crate::model::{WireSize, trim_mm};
-    let base = match *wire {
-        WireSize::Measured { bare_mm, od_mm } => {
-            format!("{}/{} mm", trim_mm(bare_mm), trim_mm(od_mm))
-        }
-        other => other.to_string(),
-    };
-    if strands > 1 {
-        format!("{strands}x{base}")
-    } else {
-        base
-    }
 }
 
 fn currents_block(o: &mut String, eval: &Evaluation) {
