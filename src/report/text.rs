@@ -50,6 +50,23 @@ pub fn bobbin_line(build: &Build) -> String {
 
 pub fn render(build: &Build, eval: &Evaluation) -> String {
     let mut o = String::new();
+    header_block(&mut o, build, eval);
+    stack_block(&mut o, eval);
+    windings_block(&mut o, build, eval);
+    currents_block(&mut o, eval);
+    if let Some(c) = &eval.converter {
+        converter_block(&mut o, c);
+    }
+    if let Some(l) = &eval.losses {
+        losses_block(&mut o, l);
+    }
+    limits_block(&mut o, eval);
+    remarks_block(&mut o, build, eval);
+    o
+}
+
+/// The title, the bobbin, the setup, the verdict and the summary of heights.
+fn header_block(o: &mut String, build: &Build, eval: &Evaluation) {
     let title = if build.title.is_empty() {
         "(untitled build)"
     } else {
@@ -67,9 +84,7 @@ pub fn render(build: &Build, eval: &Evaluation) -> String {
         }
     }
     let s = &build.setup;
-    let freq = s
-        .frequency_khz
-        .map_or("no frequency".to_string(), |f| format!("{f} kHz"));
+    let freq = frequency_text(build);
     let setup = format!(
         "setup: {} C, allowance x{:.2}, margins {:.2} mm, tape {:.3} mm/wrap, {freq}",
         s.temperature_c, s.bulge, s.margin_mm, s.tape_mm
@@ -92,7 +107,10 @@ pub fn render(build: &Build, eval: &Evaluation) -> String {
     for l in wrap(&summary, WIDTH - 2, "  ") {
         let _ = writeln!(o, "  {l}");
     }
+}
 
+/// The stack from the tube outward, one row per section.
+fn stack_block(o: &mut String, eval: &Evaluation) {
     let _ = writeln!(o, "\nStack, from the tube outward");
     let _ = writeln!(
         o,
@@ -154,7 +172,20 @@ pub fn render(build: &Build, eval: &Evaluation) -> String {
             }
         }
     }
+}
 
+/// The switching frequency as the report writes it.
+fn frequency_text(build: &Build) -> String {
+    build
+        .setup
+        .frequency_khz
+        .map_or("no frequency".to_string(), |f| format!("{f} kHz"))
+}
+
+/// The windings with their resistance, the AC figures and the leakage.
+fn windings_block(o: &mut String, build: &Build, eval: &Evaluation) {
+    let freq = frequency_text(build);
+    let s = &build.setup;
     let _ = writeln!(o, "\nWindings, resistance at {} C", s.temperature_c);
     let _ = writeln!(
         o,
@@ -218,16 +249,10 @@ pub fn render(build: &Build, eval: &Evaluation) -> String {
             }
         }
     }
+}
 
-    currents_block(&mut o, eval);
-    if let Some(c) = &eval.converter {
-        converter_block(&mut o, c);
-    }
-    if let Some(l) = &eval.losses {
-        losses_block(&mut o, l);
-    }
-    limits_block(&mut o, eval);
-
+/// The warnings and the notes.
+fn remarks_block(o: &mut String, build: &Build, eval: &Evaluation) {
     let _ = writeln!(o, "\nWarnings");
     if eval.warnings.is_empty() {
         let _ = writeln!(o, "  none");
@@ -253,7 +278,6 @@ pub fn render(build: &Build, eval: &Evaluation) -> String {
             let _ = writeln!(o, "  {l}");
         }
     }
-    o
 }
 
 fn currents_block(o: &mut String, eval: &Evaluation) {
