@@ -8,7 +8,7 @@ pub mod text;
 pub use crate::files::{build_id, fnv1a64};
 
 use super::text::wire_label;
-use crate::engine::{Evaluation, SectionKind, bench, primary_secondary_leakage};
+use crate::engine::{Evaluation, SectionEval, SectionKind, bench, primary_secondary_leakage};
 use crate::model::{BobbinSource, Build, IsolationClass, Role, Section, Tube};
 
 pub use crate::engine::bench::{
@@ -110,6 +110,79 @@ fn pin_text(p: &Option<String>) -> String {
 /// The sheet of a build. `measure_at_c` is the temperature the DC resistance will be measured
 /// at (20 C unless told otherwise).
 pub fn sheet(build: &Build, eval: &Evaluation, measure_at_c: f64) -> Sheet {
+    let (bobbin, core) = bobbin_lines(build);
+
+    let wires: Vec<WireItem> = build
+        .windings
+        .iter()
+        .zip(&eval.windings)
+        .zip(bench::cuts(build, eval))
+        .map(|((w, e), cut)| WireItem {
+            winding: w.name.to_string(),
+            role: w.role,
+            wire: wire_label(&w.wire, 1),
+            grade: w.insulation.to_string(),
+            strands: w.strands,
+            turns: w.turns,
+            length_m: e.length_m,
+            allowances: cut.allowances,
+            cut_each_mm: cut.cut_each_mm,
+            cut_total_mm: cut.cut_total_mm,
+        })
+        .collect();
+
+    let materials = materials(build, eval);
+
+    let pins = build
+        .windings
+        .iter()
+        .map(|w| Pin {
+            winding: w.name.to_string(),
+            role: w.role,
+            start: w.start_pin.clone(),
+            finish: w.finish_pin.clone(),
+        })
+        .collect();
+
+    let convention = "Wind every layer of every winding in the same sense: set the winder's \
+        direction once and never reverse it. Each winding starts on its start pin, and that start \
+        is its dot: with one sense for all, the start pins are in phase. Layers run across the \
+        width and back, but the sense of rotation stays the same."
+        .to_string();
+
+    let steps = steps(build, eval);
+    let checks = checks(build, eval, measure_at_c);
+    let cautions = cautions(build);
+    Sheet {
+        title: if build.title.is_empty() {
+            "(untitled build)".into()
+        } else {
+            build.title.clone()
+        },
+        build_id: build_id(build),
+        bobbin,
+        core,
+        fits: eval.fits,
+        verdict: super::text::verdict(eval),
+        wires,
+        materials,
+        pins,
+        convention,
+        steps,
+        measure_at_c,
+        checks,
+        cautions,
+        warnings: eval
+            .warnings
+            .iter()
+            .map(|w| format!("{}: {}", w.code(), w.message()))
+            .collect(),
+        notes: eval.notes.iter().map(ToString::to_string).collect(),
+    }
+}
+
+/// The bobbin in one line (id, window, tube, name) and its core figures, if known.
+fn bobbin_lines(build: &Build) -> (String, Option<String>) {
     let bobbin_id = match &build.bobbin_source {
         BobbinSource::Id(id) => id.clone(),
         BobbinSource::Inline => "described in the build file".into(),
@@ -134,26 +207,12 @@ pub fn sheet(build: &Build, eval: &Evaluation, measure_at_c: f64) -> Sheet {
             .map_or("AL not known".to_string(), |a| format!("AL {a:.0} nH"));
         format!("Ae {:.1} mm2, le {:.1} mm, {al}", c.ae_mm2, c.le_mm)
     });
+    (bobbin, core)
+}
 
-    let wires: Vec<WireItem> = build
-        .windings
-        .iter()
-        .zip(&eval.windings)
-        .zip(bench::cuts(build, eval))
-        .map(|((w, e), cut)| WireItem {
-            winding: w.name.to_string(),
-            role: w.role,
-            wire: wire_label(&w.wire, 1),
-            grade: w.insulation.to_string(),
-            strands: w.strands,
-            turns: w.turns,
-            length_m: e.length_m,
-            allowances: cut.allowances,
-            cut_each_mm: cut.cut_each_mm,
-            cut_total_mm: cut.cut_total_mm,
-        })
-        .collect();
-
+/// The insulation tape, the margin tape and the sleeving, in words.
+fn materials(build: &Build, eval: &Evaluation) -> Vec<(String, String)> {
+    let b = &build.bobbin;
     let mut materials = Vec::new();
     let wraps = wraps_in_stack(eval);
     materials.push((
@@ -194,199 +253,185 @@ pub fn sheet(build: &Build, eval: &Evaluation, measure_at_c: f64) -> Sheet {
             ),
         ));
     }
+    materials
+}
 
-    let pins = build
-        .windings
-        .iter()
-        .map(|w| Pin {
-            winding: w.name.to_string(),
-            role: w.role,
-            start: w.start_pin.clone(),
-            finish: w.finish_pin.clone(),
-        })
-        .collect();
-
-    let convention = "Wind every layer of every winding in the same sense: set the winder's \
-        direction once and never reverse it. Each winding starts on its start pin, and that start \
-        is its dot: with one sense for all, the start pins are in phase. Layers run across the \
-        width and back, but the sense of rotation stays the same."
-        .to_string();
-
+/// The numbered steps, one per stack section, from the tube outward.
+fn steps(build: &Build, eval: &Evaluation) -> Vec<Step> {
     let mut steps = Vec::new();
     for (i, (sec, s_eval)) in build.stack.iter().zip(&eval.sections).enumerate() {
         let number = steps.len() + 1;
         match (sec, &s_eval.kind) {
             (Section::Tape { .. }, SectionKind::Tape { wraps }) => {
-                steps.push(Step {
-                    number,
-                    section: i,
-                    heading: format!("Tape: {}", plural(*wraps, "wrap", "wraps")),
-                    lines: vec![(
-                        "Tape".into(),
-                        format!(
-                            "{} of {:.1} mm tape over the whole width, flange to flange, \
-                             pulled flat; overlap the end a little",
-                            plural(*wraps, "wrap", "wraps"),
-                            b.window.width_mm
-                        ),
-                    )],
-                });
+                steps.push(tape_step(build, number, i, *wraps));
             }
-            (
-                Section::Winding(_),
-                SectionKind::Winding {
-                    winding,
-                    with,
-                    turns,
-                    turns_per_layer,
-                    layer_count,
-                    last_layer_turns,
-                    layer_tape,
-                    ..
-                },
-            ) => {
-                let mut names = vec![winding.clone()];
-                names.extend(with.clone());
-                let roles: Vec<String> = names
-                    .iter()
-                    .filter_map(|n| build.winding(n))
-                    .map(|w| format!("{} ({})", w.name, w.role.key()))
-                    .collect();
-                let heading = if with.is_some() {
-                    format!("Winding {} bifilar", roles.join(" with "))
-                } else {
-                    format!("Winding {}", roles.join(""))
-                };
-                let mut lines: Vec<(String, String)> = Vec::new();
-                if build.setup.margin_mm > 0.0 {
-                    lines.push((
-                        "Margins".into(),
-                        format!(
-                            "before the first layer, margin tape {:.1} mm wide against each \
-                             flange, built up to {:.2} mm (this section's height)",
-                            build.setup.margin_mm, s_eval.height_mm
-                        ),
-                    ));
-                }
-                for n in &names {
-                    let Some(w) = build.winding(n) else { continue };
-                    let strands = if w.strands > 1 {
-                        format!(
-                            "{} strands of {} {} laid side by side as one turn",
-                            w.strands,
-                            wire_label(&w.wire, 1),
-                            w.insulation
-                        )
-                    } else {
-                        format!("{} {}", wire_label(&w.wire, 1), w.insulation)
-                    };
-                    lines.push((format!("Wire {n}"), strands));
-                }
-                if with.is_some() {
-                    lines.push((
-                        "Bifilar".into(),
-                        format!(
-                            "lay the wires of {} together, side by side, and wind them as one: \
-                             the turns below count the pair once; keep them in the same order \
-                             across every layer",
-                            names.join(" and ")
-                        ),
-                    ));
-                }
-                for n in &names {
-                    let secs = bench::sections_winding(build, n);
-                    let pos = secs.iter().position(|&k| k == i).unwrap_or(0);
-                    let w = build.winding(n);
-                    let start = if pos == 0 {
-                        format!("{n} on {}", pin_text(&w.and_then(|w| w.start_pin.clone())))
-                    } else {
-                        format!(
-                            "{n}: go on with the wire left uncut at step {}",
-                            secs[pos - 1] + 1
-                        )
-                    };
-                    lines.push(("Start".into(), start));
-                }
-                lines.push((
-                    "Direction".into(),
-                    "the one sense for every winding (see the convention)".into(),
-                ));
-                lines.push((
-                    "Turns".into(),
-                    format!(
-                        "{turns} turns in {}: {turns_per_layer} a layer, {last_layer_turns} on the last layer",
-                        plural(*layer_count, "layer", "layers")
-                    ),
-                ));
-                if *layer_tape > 0 && *layer_count > 1 {
-                    lines.push((
-                        "Between".into(),
-                        format!(
-                            "{} of tape between layers",
-                            plural(*layer_tape, "wrap", "wraps")
-                        ),
-                    ));
-                }
-                let side = if layer_count % 2 == 1 {
-                    "the flange opposite the start"
-                } else {
-                    "the flange you started at"
-                };
-                for n in &names {
-                    let secs = bench::sections_winding(build, n);
-                    let pos = secs.iter().position(|&k| k == i).unwrap_or(0);
-                    let w = build.winding(n);
-                    let finish = if pos + 1 == secs.len() {
-                        format!(
-                            "{n} on {} (the wire ends at {side})",
-                            pin_text(&w.and_then(|w| w.finish_pin.clone()))
-                        )
-                    } else {
-                        format!(
-                            "{n}: do not cut; park it at {side}, it goes on at step {}",
-                            secs[pos + 1] + 1
-                        )
-                    };
-                    lines.push(("Finish".into(), finish));
-                }
-                steps.push(Step {
-                    number,
-                    section: i,
-                    heading,
-                    lines,
-                });
+            (Section::Winding(_), SectionKind::Winding { .. }) => {
+                steps.extend(winding_step(build, number, i, s_eval));
             }
             _ => {}
         }
     }
+    steps
+}
 
-    let checks = checks(build, eval, measure_at_c);
-    let cautions = cautions(build);
-    Sheet {
-        title: if build.title.is_empty() {
-            "(untitled build)".into()
-        } else {
-            build.title.clone()
-        },
-        build_id: build_id(build),
-        bobbin,
-        core,
-        fits: eval.fits,
-        verdict: super::text::verdict(eval),
-        wires,
-        materials,
-        pins,
-        convention,
-        steps,
-        measure_at_c,
-        checks,
-        cautions,
-        warnings: eval
-            .warnings
-            .iter()
-            .map(|w| format!("{}: {}", w.code(), w.message()))
-            .collect(),
-        notes: eval.notes.iter().map(ToString::to_string).collect(),
+/// The step of a tape section.
+fn tape_step(build: &Build, number: usize, i: usize, wraps: u32) -> Step {
+    let b = &build.bobbin;
+    let wraps = &wraps;
+    Step {
+        number,
+        section: i,
+        heading: format!("Tape: {}", plural(*wraps, "wrap", "wraps")),
+        lines: vec![(
+            "Tape".into(),
+            format!(
+                "{} of {:.1} mm tape over the whole width, flange to flange, \
+                 pulled flat; overlap the end a little",
+                plural(*wraps, "wrap", "wraps"),
+                b.window.width_mm
+            ),
+        )],
+    }
+}
+
+/// The step of a winding section: its heading and one line per thing to do, in order
+/// (`None` for a tape section).
+fn winding_step(build: &Build, number: usize, i: usize, s_eval: &SectionEval) -> Option<Step> {
+    let SectionKind::Winding {
+        winding,
+        with,
+        turns,
+        turns_per_layer,
+        layer_count,
+        last_layer_turns,
+        layer_tape,
+        ..
+    } = &s_eval.kind
+    else {
+        return None;
+    };
+    let mut names = vec![winding.clone()];
+    names.extend(with.clone());
+    let roles: Vec<String> = names
+        .iter()
+        .filter_map(|n| build.winding(n))
+        .map(|w| format!("{} ({})", w.name, w.role.key()))
+        .collect();
+    let heading = if with.is_some() {
+        format!("Winding {} bifilar", roles.join(" with "))
+    } else {
+        format!("Winding {}", roles.join(""))
+    };
+    let mut lines: Vec<(String, String)> = Vec::new();
+    if build.setup.margin_mm > 0.0 {
+        lines.push((
+            "Margins".into(),
+            format!(
+                "before the first layer, margin tape {:.1} mm wide against each \
+                 flange, built up to {:.2} mm (this section's height)",
+                build.setup.margin_mm, s_eval.height_mm
+            ),
+        ));
+    }
+    for n in &names {
+        let Some(w) = build.winding(n) else { continue };
+        lines.push((format!("Wire {n}"), wire_text(w)));
+    }
+    if with.is_some() {
+        lines.push((
+            "Bifilar".into(),
+            format!(
+                "lay the wires of {} together, side by side, and wind them as one: \
+                 the turns below count the pair once; keep them in the same order \
+                 across every layer",
+                names.join(" and ")
+            ),
+        ));
+    }
+    for n in &names {
+        lines.push(("Start".into(), start_text(build, i, n)));
+    }
+    lines.push((
+        "Direction".into(),
+        "the one sense for every winding (see the convention)".into(),
+    ));
+    lines.push((
+        "Turns".into(),
+        format!(
+            "{turns} turns in {}: {turns_per_layer} a layer, {last_layer_turns} on the last layer",
+            plural(*layer_count, "layer", "layers")
+        ),
+    ));
+    if *layer_tape > 0 && *layer_count > 1 {
+        lines.push((
+            "Between".into(),
+            format!(
+                "{} of tape between layers",
+                plural(*layer_tape, "wrap", "wraps")
+            ),
+        ));
+    }
+    let side = if layer_count % 2 == 1 {
+        "the flange opposite the start"
+    } else {
+        "the flange you started at"
+    };
+    for n in &names {
+        lines.push(("Finish".into(), finish_text(build, i, n, side)));
+    }
+    Some(Step {
+        number,
+        section: i,
+        heading,
+        lines,
+    })
+}
+
+/// Where a winding starts in section `i`: on its start pin, or going on from the section
+/// where it was parked.
+fn start_text(build: &Build, i: usize, n: &str) -> String {
+    let secs = bench::sections_winding(build, n);
+    let pos = secs.iter().position(|&k| k == i).unwrap_or(0);
+    let w = build.winding(n);
+    if pos == 0 {
+        format!("{n} on {}", pin_text(&w.and_then(|w| w.start_pin.clone())))
+    } else {
+        format!(
+            "{n}: go on with the wire left uncut at step {}",
+            secs[pos - 1] + 1
+        )
+    }
+}
+
+/// Where a winding ends in section `i`: on its finish pin, or parked for a later section.
+fn finish_text(build: &Build, i: usize, n: &str, side: &str) -> String {
+    let secs = bench::sections_winding(build, n);
+    let pos = secs.iter().position(|&k| k == i).unwrap_or(0);
+    let w = build.winding(n);
+    if pos + 1 == secs.len() {
+        format!(
+            "{n} on {} (the wire ends at {side})",
+            pin_text(&w.and_then(|w| w.finish_pin.clone()))
+        )
+    } else {
+        format!(
+            "{n}: do not cut; park it at {side}, it goes on at step {}",
+            secs[pos + 1] + 1
+        )
+    }
+}
+
+/// The wire of a winding in words, with its strands laid side by side.
+fn wire_text(w: &crate::model::Winding) -> String {
+    if w.strands > 1 {
+        format!(
+            "{} strands of {} {} laid side by side as one turn",
+            w.strands,
+            wire_label(&w.wire, 1),
+            w.insulation
+        )
+    } else {
+        format!("{} {}", wire_label(&w.wire, 1), w.insulation)
     }
 }
 
