@@ -312,27 +312,9 @@ fn winding_step(build: &Build, number: usize, i: usize, s_eval: &SectionEval) ->
     };
     let mut names = vec![winding.clone()];
     names.extend(with.clone());
-    let roles: Vec<String> = names
-        .iter()
-        .filter_map(|n| build.winding(n))
-        .map(|w| format!("{} ({})", w.name, w.role.key()))
-        .collect();
-    let heading = if with.is_some() {
-        format!("Winding {} bifilar", roles.join(" with "))
-    } else {
-        format!("Winding {}", roles.join(""))
-    };
+    let heading = winding_heading(build, &names, with.is_some());
     let mut lines: Vec<(String, String)> = Vec::new();
-    if build.setup.margin_mm > 0.0 {
-        lines.push((
-            "Margins".into(),
-            format!(
-                "before the first layer, margin tape {:.1} mm wide against each \
-                 flange, built up to {:.2} mm (this section's height)",
-                build.setup.margin_mm, s_eval.height_mm
-            ),
-        ));
-    }
+    lines.extend(margin_line(build, s_eval));
     for n in &names {
         let Some(w) = build.winding(n) else { continue };
         lines.push((format!("Wire {n}"), wire_text(w)));
@@ -384,6 +366,34 @@ fn winding_step(build: &Build, number: usize, i: usize, s_eval: &SectionEval) ->
         section: i,
         heading,
         lines,
+    })
+}
+
+/// The heading of a winding step: "Winding P (primary)", or a bifilar pair.
+fn winding_heading(build: &Build, names: &[crate::model::Name], bifilar: bool) -> String {
+    let roles: Vec<String> = names
+        .iter()
+        .filter_map(|n| build.winding(n))
+        .map(|w| format!("{} ({})", w.name, w.role.key()))
+        .collect();
+    if bifilar {
+        format!("Winding {} bifilar", roles.join(" with "))
+    } else {
+        format!("Winding {}", roles.join(""))
+    }
+}
+
+/// The margin tape to lay before a winding section, when the build has margins.
+fn margin_line(build: &Build, s_eval: &SectionEval) -> Option<(String, String)> {
+    (build.setup.margin_mm > 0.0).then(|| {
+        (
+            "Margins".into(),
+            format!(
+                "before the first layer, margin tape {:.1} mm wide against each \
+                 flange, built up to {:.2} mm (this section's height)",
+                build.setup.margin_mm, s_eval.height_mm
+            ),
+        )
     })
 }
 
@@ -523,6 +533,15 @@ fn checks(build: &Build, eval: &Evaluation, measure_at_c: f64) -> Vec<Check> {
             ),
         });
     }
+    out.extend(inductance_checks(build, eval));
+    out.push(polarity_check(build));
+    out.extend(hipot_check(build));
+    out
+}
+
+/// The magnetising inductance (from AL) and the primary-secondary leakage, where known.
+fn inductance_checks(build: &Build, eval: &Evaluation) -> Vec<Check> {
+    let mut out = Vec::new();
     let primary = build.first_of(Role::Primary);
     if let (Some(p), Some(al), Some(spread)) = (
         primary,
@@ -564,12 +583,17 @@ fn checks(build: &Build, eval: &Evaluation, measure_at_c: f64) -> Vec<Check> {
             ),
         });
     }
+    out
+}
+
+/// The polarity: every start pin in phase with the primary's.
+fn polarity_check(build: &Build) -> Check {
     let starts: Vec<String> = build
         .windings
         .iter()
         .filter_map(|w| w.start_pin.as_ref().map(|p| format!("{} pin {p}", w.name)))
         .collect();
-    out.push(Check {
+    Check {
         what: "Polarity".into(),
         value: None,
         expected: format!(
@@ -584,11 +608,15 @@ fn checks(build: &Build, eval: &Evaluation, measure_at_c: f64) -> Vec<Check> {
               compare each winding on a two-channel scope, grounds on the finish pins; or use \
               the meter's phase test"
             .into(),
-    });
+    }
+}
+
+/// The electric-strength test, for basic or reinforced isolation.
+fn hipot_check(build: &Build) -> Option<Check> {
     if let Some(iso) = &build.isolation
         && iso.class != IsolationClass::Functional
     {
-        out.push(Check {
+        return Some(Check {
             what: "Electric strength (hipot), primary side to secondary side".into(),
             value: None,
             expected: format!(
@@ -605,7 +633,7 @@ fn checks(build: &Build, eval: &Evaluation, measure_at_c: f64) -> Vec<Check> {
                 .into(),
         });
     }
-    out
+    None
 }
 
 fn cautions(build: &Build) -> Vec<String> {
