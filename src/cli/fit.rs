@@ -106,54 +106,7 @@ fn render(title: &str, source: &BobbinSource, rows: &[FitRow]) -> String {
         "", "", "mm", "mm", "", "ohm", "uH"
     );
     for r in rows {
-        let mark = if r.bobbin == current { "*" } else { " " };
-        let fits = if r.fits {
-            "yes"
-        } else if r.valid {
-            "no"
-        } else {
-            "no!"
-        };
-        let used = if r.valid {
-            format!(
-                "{:.2} / {:.2}",
-                r.height_with_allowance_mm, r.window_height_mm
-            )
-        } else {
-            format!("- / {:.2}", r.window_height_mm)
-        };
-        let spare = if r.valid {
-            format!("{:+.2}", r.spare_height_mm)
-        } else {
-            "-".into()
-        };
-        let (fill, dcr, leak) = if r.valid {
-            (
-                format!("{:.2}", r.fill_factor),
-                format!("{:.3}", r.dcr_total_ohm),
-                r.leakage_uh.map_or("-".into(), |l| format!("{l:.2}")),
-            )
-        } else {
-            ("-".into(), "-".into(), "-".into())
-        };
-        let _ = writeln!(
-            o,
-            " {mark} {:<16} {:<4} {:>13} {:>7} {:>6} {:>9} {:>9}",
-            truncate(&r.bobbin, 16),
-            fits,
-            used,
-            spare,
-            fill,
-            dcr,
-            leak
-        );
-        if !r.fits {
-            for reason in &r.reasons {
-                for l in wrap(reason, 72, "        ") {
-                    let _ = writeln!(o, "      {l}");
-                }
-            }
-        }
+        row_text(&mut o, r, current);
     }
     let n = rows.iter().filter(|r| r.fits).count();
     let _ = writeln!(
@@ -170,4 +123,56 @@ fn render(title: &str, source: &BobbinSource, rows: &[FitRow]) -> String {
         "Bundled figures are typical for the size: measure your bobbin before winding."
     );
     o
+}
+
+/// One bobbin's row of the ranking, and its reasons when it does not fit.
+fn row_text(o: &mut String, r: &FitRow, current: &str) {
+    let mark = if r.bobbin == current { "*" } else { " " };
+    let fits = if r.fits {
+        "yes"
+    } else if r.valid {
+        "no"
+    } else {
+        "no!"
+    };
+    let used = if r.valid {
+        format!(
+            "{:.2} / {:.2}",
+            r.height_with_allowance_mm, r.window_height_mm
+        )
+    } else {
+        format!("- / {:.2}", r.window_height_mm)
+    };
+    let spare = if r.valid {
+        format!("{:+.2}", r.spare_height_mm)
+    } else {
+        "-".into()
+    };
+    let (fill, dcr, leak) = if r.valid {
+        (
+            format!("{:.2}", r.fill_factor),
+            format!("{:.3}", r.dcr_total_ohm),
+            r.leakage_uh.map_or("-".into(), |l| format!("{l:.2}")),
+        )
+    } else {
+        ("-".into(), "-".into(), "-".into())
+    };
+    let _ = writeln!(
+        o,
+        " {mark} {:<16} {:<4} {:>13} {:>7} {:>6} {:>9} {:>9}",
+        truncate(&r.bobbin, 16),
+        fits,
+        used,
+        spare,
+        fill,
+        dcr,
+        leak
+    );
+    if !r.fits {
+        for reason in &r.reasons {
+            for l in wrap(reason, 72, "        ") {
+                let _ = writeln!(o, "      {l}");
+            }
+        }
+    }
 }
