@@ -25,6 +25,50 @@ pub fn escape(s: &str) -> String {
 /// Fills that also differ without colour: winding sections alternate a hatch direction.
 const FILLS: [&str; 4] = ["#c8742a", "#2a6fc8", "#4a9a3a", "#9a3a8a"];
 
+/// The labels at the right of the bands, pushed apart so that thin bands keep readable
+/// labels; a leader line runs from each band (at paper y) to its label.
+fn draw_labels(o: &mut String, labels: &[(f64, String)], edge: f64) {
+    let mut placed: Vec<f64> = labels.iter().map(|l| l.0).collect();
+    for i in 1..placed.len() {
+        // Stack order is bottom-up on paper, so each label sits above the previous one.
+        if placed[i] > placed[i - 1] - LABEL_GAP {
+            placed[i] = placed[i - 1] - LABEL_GAP;
+        }
+    }
+    let lx = edge + 6.0;
+    for ((cy, label), ly) in labels.iter().zip(&placed) {
+        let _ = write!(
+            o,
+            "<polyline points=\"{edge:.2},{cy:.3} {:.2},{cy:.3} {:.2},{ly:.3} {lx:.2},{ly:.3}\" fill=\"none\" stroke=\"#555\" stroke-width=\"0.15\"/>",
+            edge + 1.5,
+            edge + 4.0
+        );
+        let _ = write!(
+            o,
+            "<text x=\"{:.2}\" y=\"{:.3}\" font-size=\"2.4\">{}</text>",
+            lx + 0.5,
+            ly + 0.8,
+            escape(label)
+        );
+    }
+}
+
+/// The label of a band: the section number and what it is.
+fn band_label(i: usize, s: &SectionEval) -> String {
+    match &s.kind {
+        SectionKind::Tape { wraps } => format!("{} tape x{wraps}", i + 1),
+        SectionKind::Winding {
+            winding,
+            with,
+            turns,
+            ..
+        } => match with {
+            Some(b) => format!("{} {winding}+{b} bifilar, {turns} t", i + 1),
+            None => format!("{} {winding}, {turns} t", i + 1),
+        },
+    }
+}
+
 /// The paper transform of the drawing: window millimetres to paper millimetres.
 struct Paper {
     /// Paper x of the window's left flange face.
@@ -252,47 +296,10 @@ pub fn cross_section(build: &Build, eval: &Evaluation) -> (f64, String) {
                 winding_band(&mut o, build, eval, i, s, &paper, fill);
             }
         }
-        // Label at the right: the section number and what it is.
-        let label = match &s.kind {
-            SectionKind::Tape { wraps } => format!("{} tape x{wraps}", i + 1),
-            SectionKind::Winding {
-                winding,
-                with,
-                turns,
-                ..
-            } => match with {
-                Some(b) => format!("{} {winding}+{b} bifilar, {turns} t", i + 1),
-                None => format!("{} {winding}, {turns} t", i + 1),
-            },
-        };
-        labels.push((y(s.y_mm + s.height_mm / 2.0), label));
-    }
-    // Labels at the right, pushed apart so that thin bands keep readable labels; a leader
-    // line runs from each band to its label.
-    let mut placed: Vec<f64> = labels.iter().map(|l| l.0).collect();
-    for i in 1..placed.len() {
-        // Stack order is bottom-up on paper, so each label sits above the previous one.
-        if placed[i] > placed[i - 1] - LABEL_GAP {
-            placed[i] = placed[i - 1] - LABEL_GAP;
-        }
+        labels.push((y(s.y_mm + s.height_mm / 2.0), band_label(i, s)));
     }
     let edge = x(w) + flange;
-    let lx = edge + 6.0;
-    for ((cy, label), ly) in labels.iter().zip(&placed) {
-        let _ = write!(
-            o,
-            "<polyline points=\"{edge:.2},{cy:.3} {:.2},{cy:.3} {:.2},{ly:.3} {lx:.2},{ly:.3}\" fill=\"none\" stroke=\"#555\" stroke-width=\"0.15\"/>",
-            edge + 1.5,
-            edge + 4.0
-        );
-        let _ = write!(
-            o,
-            "<text x=\"{:.2}\" y=\"{:.3}\" font-size=\"2.4\">{}</text>",
-            lx + 0.5,
-            ly + 0.8,
-            escape(label)
-        );
-    }
+    draw_labels(&mut o, &labels, edge);
     // Window limit and the limit the allowance leaves for the bare build.
     let _ = write!(
         o,
