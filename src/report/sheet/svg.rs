@@ -69,6 +69,52 @@ fn band_label(i: usize, s: &SectionEval) -> String {
     }
 }
 
+/// The window limit, the limit the allowance leaves for the bare build, and the caption.
+fn draw_limits(o: &mut String, build: &Build, paper: &Paper, h_win: f64, flange: f64, tube: f64) {
+    let (w, k, y_base) = (paper.w, paper.k, paper.y_base);
+    let x = |mm: f64| paper.x(mm);
+    let y = |mm: f64| paper.y(mm);
+    let _ = write!(
+        o,
+        "<line class=\"limit\" x1=\"{:.2}\" y1=\"{:.3}\" x2=\"{:.2}\" y2=\"{:.3}\" stroke=\"#000\" stroke-width=\"0.3\"/>",
+        x(0.0) - flange,
+        y(h_win),
+        x(w) + flange,
+        y(h_win)
+    );
+    let bare_limit = h_win / build.setup.bulge;
+    let _ = write!(
+        o,
+        "<line class=\"allowance\" x1=\"{:.2}\" y1=\"{:.3}\" x2=\"{:.2}\" y2=\"{:.3}\" stroke=\"#000\" stroke-width=\"0.2\" stroke-dasharray=\"1,1\"/>",
+        x(0.0),
+        y(bare_limit),
+        x(w),
+        y(bare_limit)
+    );
+    let _ = write!(
+        o,
+        "<text x=\"{:.2}\" y=\"{:.2}\" font-size=\"2.4\">tube at the bottom; {w:.2} mm between flanges; solid line: window {h_win:.2} mm; dashed: window / allowance {:.2}; scale {k:.1} : 1</text>",
+        x(0.0) - flange,
+        y_base + tube + 4.0,
+        build.setup.bulge
+    );
+}
+
+/// One tape section's band.
+fn draw_tape(o: &mut String, paper: &Paper, i: usize, s: &SectionEval, wraps: u32) {
+    let (w, k) = (paper.w, paper.k);
+    let x = |mm: f64| paper.x(mm);
+    let (y_top, hgt) = (paper.y(s.y_mm + s.height_mm), s.height_mm * k);
+    let _ = write!(
+        o,
+        "<g class=\"band tape\" data-section=\"{}\"><rect x=\"{:.2}\" y=\"{y_top:.3}\" width=\"{:.2}\" height=\"{hgt:.3}\" fill=\"#f3e27a\" stroke=\"#7a6a10\" stroke-width=\"0.1\"/><title>stack #{}: tape, {wraps} wraps</title></g>",
+        i + 1,
+        x(0.0),
+        w * k,
+        i + 1
+    );
+}
+
 /// The paper transform of the drawing: window millimetres to paper millimetres.
 struct Paper {
     /// Paper x of the window's left flange face.
@@ -241,7 +287,6 @@ pub fn cross_section(build: &Build, eval: &Evaluation) -> (f64, String) {
         w,
         margin: build.setup.margin_mm,
     };
-
     let mut o = String::new();
     let _ = write!(
         o,
@@ -278,18 +323,8 @@ pub fn cross_section(build: &Build, eval: &Evaluation) -> (f64, String) {
     let mut colour = 0;
     let mut labels: Vec<(f64, String)> = Vec::new();
     for (i, s) in eval.sections.iter().enumerate() {
-        let (y_top, hgt) = (y(s.y_mm + s.height_mm), s.height_mm * k);
         match &s.kind {
-            SectionKind::Tape { wraps } => {
-                let _ = write!(
-                    o,
-                    "<g class=\"band tape\" data-section=\"{}\"><rect x=\"{:.2}\" y=\"{y_top:.3}\" width=\"{:.2}\" height=\"{hgt:.3}\" fill=\"#f3e27a\" stroke=\"#7a6a10\" stroke-width=\"0.1\"/><title>stack #{}: tape, {wraps} wraps</title></g>",
-                    i + 1,
-                    x(0.0),
-                    w * k,
-                    i + 1
-                );
-            }
+            SectionKind::Tape { wraps } => draw_tape(&mut o, &paper, i, s, *wraps),
             SectionKind::Winding { .. } => {
                 let fill = FILLS[colour % FILLS.len()];
                 colour += 1;
@@ -300,31 +335,7 @@ pub fn cross_section(build: &Build, eval: &Evaluation) -> (f64, String) {
     }
     let edge = x(w) + flange;
     draw_labels(&mut o, &labels, edge);
-    // Window limit and the limit the allowance leaves for the bare build.
-    let _ = write!(
-        o,
-        "<line class=\"limit\" x1=\"{:.2}\" y1=\"{:.3}\" x2=\"{:.2}\" y2=\"{:.3}\" stroke=\"#000\" stroke-width=\"0.3\"/>",
-        x(0.0) - flange,
-        y(h_win),
-        x(w) + flange,
-        y(h_win)
-    );
-    let bare_limit = h_win / build.setup.bulge;
-    let _ = write!(
-        o,
-        "<line class=\"allowance\" x1=\"{:.2}\" y1=\"{:.3}\" x2=\"{:.2}\" y2=\"{:.3}\" stroke=\"#000\" stroke-width=\"0.2\" stroke-dasharray=\"1,1\"/>",
-        x(0.0),
-        y(bare_limit),
-        x(w),
-        y(bare_limit)
-    );
-    let _ = write!(
-        o,
-        "<text x=\"{:.2}\" y=\"{:.2}\" font-size=\"2.4\">tube at the bottom; {w:.2} mm between flanges; solid line: window {h_win:.2} mm; dashed: window / allowance {:.2}; scale {k:.1} : 1</text>",
-        x(0.0) - flange,
-        y_base + tube + 4.0,
-        build.setup.bulge
-    );
+    draw_limits(&mut o, build, &paper, h_win, flange, tube);
     o.push_str("</svg>");
     (k, o)
 }
