@@ -262,8 +262,77 @@ pub(super) fn build(
     spans.top.insert("winding", 0..0);
     spans.top.insert("stack", 0..0);
 
-    let bobbin_span = file.bobbin.span();
-    let (bobbin_source, bobbin) = match file.bobbin.into_inner() {
+    let (bobbin_source, bobbin) = bobbin_of(&cx, file.bobbin, library, &mut spans)?;
+
+    let setup = setup_of(file.setup, &mut spans);
+
+    let windings = windings_of(&cx, file.winding, &mut spans)?;
+
+    let stack = stack_of(&cx, file.stack, &mut spans)?;
+
+    let operating = operating_of(&cx, file.operating, &mut spans)?;
+    let material = match file.material {
+        None => None,
+        Some(m) => Some(material(&cx, m, &mut spans)?),
+    };
+
+    let isolation = match file.isolation {
+        None => None,
+        Some(i) => {
+            spans.top.insert("isolation", i.span());
+            let i = i.into_inner();
+            put(&mut spans.top, "isolation.class", &i.class);
+            put_opt(
+                &mut spans.top,
+                "isolation.working_voltage_v",
+                &i.working_voltage_v,
+            );
+            put_opt(&mut spans.top, "isolation.creepage_mm", &i.creepage_mm);
+            let class = IsolationClass::from_key(i.class.get_ref()).ok_or_else(|| {
+                cx.err(
+                    Some(i.class.span()),
+                    "isolation.class",
+                    format!(
+                        "unknown isolation class \"{}\"; expected \"functional\", \"basic\" or \"reinforced\"",
+                        i.class.get_ref()
+                    ),
+                )
+            })?;
+            Some(Isolation {
+                class,
+                working_voltage_v: i.working_voltage_v.map(Spanned::into_inner),
+                creepage_mm: i.creepage_mm.map(Spanned::into_inner),
+            })
+        }
+    };
+
+    let build = Build {
+        title: file.title.unwrap_or_default(),
+        bobbin_source,
+        bobbin,
+        setup,
+        windings,
+        stack,
+        operating,
+        material,
+        isolation,
+    };
+    let problems = validate(&build);
+    if !problems.is_empty() {
+        return Err(cx.invalid(&spans, &problems));
+    }
+    Ok(build)
+}
+
+/// The build's bobbin: looked up by id in the library, or written inline.
+fn bobbin_of(
+    cx: &Ctx<'_>,
+    field: Spanned<BobbinField>,
+    library: &BobbinLibrary,
+    spans: &mut Spans,
+) -> Result<(BobbinSource, Bobbin), LoadError> {
+    let bobbin_span = field.span();
+    Ok(match field.into_inner() {
         BobbinField::Id(id) => match library.find(&id) {
             Some(Ok(b)) => (BobbinSource::Id(id), b),
             Some(Err(e)) => {
@@ -287,11 +356,14 @@ pub(super) fn build(
         },
         BobbinField::Inline(body) => (
             BobbinSource::Inline,
-            bobbin_body(&cx, *body, &mut spans.bobbin)?,
+            bobbin_body(cx, *body, &mut spans.bobbin)?,
         ),
-    };
+    })
+}
 
-    let setup = match file.setup {
+/// `[setup]`, its defaults where a key is left out.
+fn setup_of(raw: Option<raw::SetupRaw>, spans: &mut Spans) -> Setup {
+    match raw {
         None => Setup::default(),
         Some(s) => {
             put_opt(&mut spans.setup, "temperature_c", &s.temperature_c);
@@ -309,10 +381,17 @@ pub(super) fn build(
                 frequency_khz: s.frequency_khz.map(Spanned::into_inner),
             }
         }
-    };
+    }
+}
 
+/// The `[[winding]]` tables, in order.
+fn windings_of(
+    cx: &Ctx<'_>,
+    raw: Vec<Spanned<raw::WindingRaw>>,
+    spans: &mut Spans,
+) -> Result<Vec<Winding>, LoadError> {
     let mut windings = Vec::new();
-    for w in file.winding {
+    for w in raw {
         let mut m = HashMap::new();
         m.insert("", w.span());
         let w = w.into_inner();
@@ -363,9 +442,17 @@ pub(super) fn build(
             finish_pin: w.finish_pin.map(|p| p.0),
         });
     }
+    Ok(windings)
+}
 
+/// The `[[stack]]` sections, from the tube outward.
+fn stack_of(
+    cx: &Ctx<'_>,
+    raw: Vec<Spanned<raw::SectionRaw>>,
+    spans: &mut Spans,
+) -> Result<Vec<Section>, LoadError> {
     let mut stack = Vec::new();
-    for s in file.stack {
+    for s in raw {
         let mut m = HashMap::new();
         m.insert("", s.span());
         let whole = s.span();
@@ -419,8 +506,16 @@ pub(super) fn build(
         spans.section.push(m);
         stack.push(section);
     }
+    Ok(stack)
+}
 
-    let operating = match file.operating {
+/// `[operating]`, when given.
+fn operating_of(
+    cx: &Ctx<'_>,
+    raw: Option<Spanned<raw::OperatingRaw>>,
+    spans: &mut Spans,
+) -> Result<Option<Operating>, LoadError> {
+    Ok(match raw {
         None => None,
         Some(o) => {
             spans.top.insert("operating", o.span());
@@ -468,58 +563,7 @@ pub(super) fn build(
                 surface_area_cm2: o.surface_area_cm2.map(Spanned::into_inner),
             })
         }
-    };
-    let material = match file.material {
-        None => None,
-        Some(m) => Some(material(&cx, m, &mut spans)?),
-    };
-
-    let isolation = match file.isolation {
-        None => None,
-        Some(i) => {
-            spans.top.insert("isolation", i.span());
-            let i = i.into_inner();
-            put(&mut spans.top, "isolation.class", &i.class);
-            put_opt(
-                &mut spans.top,
-                "isolation.working_voltage_v",
-                &i.working_voltage_v,
-            );
-            put_opt(&mut spans.top, "isolation.creepage_mm", &i.creepage_mm);
-            let class = IsolationClass::from_key(i.class.get_ref()).ok_or_else(|| {
-                cx.err(
-                    Some(i.class.span()),
-                    "isolation.class",
-                    format!(
-                        "unknown isolation class \"{}\"; expected \"functional\", \"basic\" or \"reinforced\"",
-                        i.class.get_ref()
-                    ),
-                )
-            })?;
-            Some(Isolation {
-                class,
-                working_voltage_v: i.working_voltage_v.map(Spanned::into_inner),
-                creepage_mm: i.creepage_mm.map(Spanned::into_inner),
-            })
-        }
-    };
-
-    let build = Build {
-        title: file.title.unwrap_or_default(),
-        bobbin_source,
-        bobbin,
-        setup,
-        windings,
-        stack,
-        operating,
-        material,
-        isolation,
-    };
-    let problems = validate(&build);
-    if !problems.is_empty() {
-        return Err(cx.invalid(&spans, &problems));
-    }
-    Ok(build)
+    })
 }
 
 /// `[material]`: a bundled grade's typical figures, with the file's explicit keys over them.
