@@ -2,7 +2,7 @@
 
 use super::{EXIT_BAD_INPUT, Error, emit, emit_listing, json_text};
 use crate::engine::resistance::ohm_per_m;
-use crate::files::{BobbinLibrary, BobbinOrigin, user_bobbin_dir};
+use crate::files::{BobbinEntry, BobbinLibrary, BobbinOrigin, user_bobbin_dir};
 use crate::library::wires::catalogue;
 use crate::model::Tube;
 use crate::report::textfmt::truncate;
@@ -46,25 +46,7 @@ struct WireJson {
 pub fn bobbins(as_json: bool) -> Result<ExitCode, Error> {
     let entries = BobbinLibrary::standard().entries();
     if as_json {
-        let list: Vec<_> = entries
-            .iter()
-            .map(|e| match &e.bobbin {
-                Ok(b) => BobbinJson::Read {
-                    id: &e.id,
-                    origin: e.origin.label(),
-                    name: &b.name,
-                    window_width_mm: b.window.width_mm,
-                    window_height_mm: b.window.height_mm,
-                    ae_mm2: b.core.as_ref().map(|c| c.ae_mm2),
-                },
-                Err(err) => BobbinJson::Unreadable {
-                    id: &e.id,
-                    origin: e.origin.label(),
-                    error: err.to_string(),
-                },
-            })
-            .collect();
-        return emit_listing(&json_text(&list));
+        return emit_listing(&json_text(&bobbins_json(&entries)));
     }
     let mut o = String::new();
     let _ = writeln!(
@@ -114,25 +96,7 @@ pub fn bobbins(as_json: bool) -> Result<ExitCode, Error> {
             }
         }
     }
-    match user_bobbin_dir() {
-        Some(d) => {
-            let note = if entries
-                .iter()
-                .any(|e| matches!(e.origin, BobbinOrigin::User(_)))
-            {
-                ""
-            } else {
-                " (none yet)"
-            };
-            let _ = writeln!(o, "\nyour bobbins: {}{note}", d.display());
-        }
-        None => {
-            let _ = writeln!(
-                o,
-                "\nyour bobbins: no data directory on this system; set TURNSTACK_BOBBINS"
-            );
-        }
-    }
+    user_folder_line(&mut o, &entries);
     let _ = writeln!(
         o,
         "bundled figures are typical for the size:\nmeasure your own bobbin before trusting a fit"
@@ -200,4 +164,50 @@ pub fn wires(as_json: bool) -> Result<ExitCode, Error> {
         "TIW: typical figures (bare + 0.2 mm). Resistance: IEC 60028 annealed copper."
     );
     emit_listing(&o)
+}
+
+/// The entries of `bobbins --json`, in the library's order.
+fn bobbins_json(entries: &[BobbinEntry]) -> Vec<BobbinJson<'_>> {
+    let list: Vec<_> = entries
+        .iter()
+        .map(|e| match &e.bobbin {
+            Ok(b) => BobbinJson::Read {
+                id: &e.id,
+                origin: e.origin.label(),
+                name: &b.name,
+                window_width_mm: b.window.width_mm,
+                window_height_mm: b.window.height_mm,
+                ae_mm2: b.core.as_ref().map(|c| c.ae_mm2),
+            },
+            Err(err) => BobbinJson::Unreadable {
+                id: &e.id,
+                origin: e.origin.label(),
+                error: err.to_string(),
+            },
+        })
+        .collect();
+    list
+}
+
+/// Where the user's own bobbins live, and whether there are any yet.
+fn user_folder_line(o: &mut String, entries: &[BobbinEntry]) {
+    match user_bobbin_dir() {
+        Some(d) => {
+            let note = if entries
+                .iter()
+                .any(|e| matches!(e.origin, BobbinOrigin::User(_)))
+            {
+                ""
+            } else {
+                " (none yet)"
+            };
+            let _ = writeln!(o, "\nyour bobbins: {}{note}", d.display());
+        }
+        None => {
+            let _ = writeln!(
+                o,
+                "\nyour bobbins: no data directory on this system; set TURNSTACK_BOBBINS"
+            );
+        }
+    }
 }
