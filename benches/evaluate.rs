@@ -4,8 +4,8 @@
 
 use std::path::Path;
 use turnstack::engine::evaluate;
+use turnstack::files::demo_build;
 use turnstack::files::load_build;
-use turnstack::library::demo::demo_build;
 use turnstack::model::Build;
 
 fn main() {

@@ -3,7 +3,7 @@
 
 use ratatui::Terminal;
 use ratatui::backend::TestBackend;
-use turnstack::library::demo::demo_build;
+use turnstack::files::demo_build;
 use turnstack::tui::{Action, App, view};
 
 fn main() {

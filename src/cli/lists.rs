@@ -1,32 +1,52 @@
 //! `turnstack bobbins` and `turnstack wires`.
 
-use super::{EXIT_BAD_INPUT, emit, emit_listing, json_text};
+use super::{EXIT_BAD_INPUT, Error, emit, emit_listing, json_text};
 use crate::engine::resistance::ohm_per_m;
-use crate::files::{BobbinLibrary, BobbinOrigin, user_bobbin_dir};
+use crate::files::{BobbinEntry, BobbinLibrary, BobbinOrigin, user_bobbin_dir};
 use crate::library::wires::catalogue;
 use crate::model::Tube;
-use crate::report::text::truncate;
-use serde_json::json;
+use crate::report::textfmt::truncate;
+use serde::Serialize;
 use std::fmt::Write as _;
 use std::process::ExitCode;
 
-pub fn bobbins(as_json: bool) -> ExitCode {
+/// One entry of `bobbins --json`: a bobbin that loads, or the error of one that does not.
+#[derive(Serialize)]
+#[serde(untagged)]
+enum BobbinJson<'a> {
+    Read {
+        id: &'a str,
+        origin: &'static str,
+        name: &'a str,
+        window_width_mm: f64,
+        window_height_mm: f64,
+        /// `null` without core data.
+        ae_mm2: Option<f64>,
+    },
+    Unreadable {
+        id: &'a str,
+        origin: &'static str,
+        error: String,
+    },
+}
+
+/// One row of `wires --json`.
+#[derive(Serialize)]
+struct WireJson {
+    wire: Option<String>,
+    bare_mm: f64,
+    od_grade1_mm: f64,
+    od_grade2_mm: f64,
+    od_grade3_mm: f64,
+    od_tiw_mm: f64,
+    ohm_per_m_20c: f64,
+    confirmed: bool,
+}
+
+pub fn bobbins(as_json: bool) -> Result<ExitCode, Error> {
     let entries = BobbinLibrary::standard().entries();
     if as_json {
-        let list: Vec<_> = entries
-            .iter()
-            .map(|e| match &e.bobbin {
-                Ok(b) => json!({
-                    "id": e.id, "origin": e.origin.label(), "name": b.name,
-                    "window_width_mm": b.window.width_mm, "window_height_mm": b.window.height_mm,
-                    "ae_mm2": b.core.as_ref().map(|c| c.ae_mm2),
-                }),
-                Err(err) => {
-                    json!({"id": e.id, "origin": e.origin.label(), "error": err.to_string()})
-                }
-            })
-            .collect();
-        return emit_listing(&json_text(&list));
+        return emit_listing(&json_text(&bobbins_json(&entries)));
     }
     let mut o = String::new();
     let _ = writeln!(
@@ -76,52 +96,34 @@ pub fn bobbins(as_json: bool) -> ExitCode {
             }
         }
     }
-    match user_bobbin_dir() {
-        Some(d) => {
-            let note = if entries
-                .iter()
-                .any(|e| matches!(e.origin, BobbinOrigin::User(_)))
-            {
-                ""
-            } else {
-                " (none yet)"
-            };
-            let _ = writeln!(o, "\nyour bobbins: {}{note}", d.display());
-        }
-        None => {
-            let _ = writeln!(
-                o,
-                "\nyour bobbins: no data directory on this system; set TURNSTACK_BOBBINS"
-            );
-        }
-    }
+    user_folder_line(&mut o, &entries);
     let _ = writeln!(
         o,
         "bundled figures are typical for the size:\nmeasure your own bobbin before trusting a fit"
     );
-    if !emit(&o) {
-        return ExitCode::from(EXIT_BAD_INPUT);
-    }
-    if broken {
+    emit(&o)?;
+    // The listing shows each broken file's error in its row; the exit code says there was one.
+    Ok(if broken {
         ExitCode::from(EXIT_BAD_INPUT)
     } else {
         ExitCode::SUCCESS
-    }
+    })
 }
 
-pub fn wires(as_json: bool) -> ExitCode {
+pub fn wires(as_json: bool) -> Result<ExitCode, Error> {
     let rows = catalogue();
     if as_json {
         let list: Vec<_> = rows
             .iter()
-            .map(|r| {
-                json!({
-                    "wire": r.size.key(), "bare_mm": r.bare_mm,
-                    "od_grade1_mm": r.od_mm[0], "od_grade2_mm": r.od_mm[1],
-                    "od_grade3_mm": r.od_mm[2], "od_tiw_mm": r.od_mm[3],
-                    "ohm_per_m_20c": ohm_per_m(r.bare_mm, 1, 20.0),
-                    "confirmed": r.confirmed,
-                })
+            .map(|r| WireJson {
+                wire: r.size.key(),
+                bare_mm: r.bare_mm,
+                od_grade1_mm: r.od_mm[0],
+                od_grade2_mm: r.od_mm[1],
+                od_grade3_mm: r.od_mm[2],
+                od_tiw_mm: r.od_mm[3],
+                ohm_per_m_20c: ohm_per_m(r.bare_mm, 1, 20.0),
+                confirmed: r.confirmed,
             })
             .collect();
         return emit_listing(&json_text(&list));
@@ -162,4 +164,50 @@ pub fn wires(as_json: bool) -> ExitCode {
         "TIW: typical figures (bare + 0.2 mm). Resistance: IEC 60028 annealed copper."
     );
     emit_listing(&o)
+}
+
+/// The entries of `bobbins --json`, in the library's order.
+fn bobbins_json(entries: &[BobbinEntry]) -> Vec<BobbinJson<'_>> {
+    let list: Vec<_> = entries
+        .iter()
+        .map(|e| match &e.bobbin {
+            Ok(b) => BobbinJson::Read {
+                id: &e.id,
+                origin: e.origin.label(),
+                name: &b.name,
+                window_width_mm: b.window.width_mm,
+                window_height_mm: b.window.height_mm,
+                ae_mm2: b.core.as_ref().map(|c| c.ae_mm2),
+            },
+            Err(err) => BobbinJson::Unreadable {
+                id: &e.id,
+                origin: e.origin.label(),
+                error: err.to_string(),
+            },
+        })
+        .collect();
+    list
+}
+
+/// Where the user's own bobbins live, and whether there are any yet.
+fn user_folder_line(o: &mut String, entries: &[BobbinEntry]) {
+    match user_bobbin_dir() {
+        Some(d) => {
+            let note = if entries
+                .iter()
+                .any(|e| matches!(e.origin, BobbinOrigin::User(_)))
+            {
+                ""
+            } else {
+                " (none yet)"
+            };
+            let _ = writeln!(o, "\nyour bobbins: {}{note}", d.display());
+        }
+        None => {
+            let _ = writeln!(
+                o,
+                "\nyour bobbins: no data directory on this system; set TURNSTACK_BOBBINS"
+            );
+        }
+    }
 }

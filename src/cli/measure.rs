@@ -1,7 +1,7 @@
 //! `turnstack measure bobbin ...`: calliper readings and a test winding into a bobbin file.
 
-use super::{EXIT_BAD_INPUT, MeasureBobbin, emit};
-use crate::engine::core_test::{self, GapReading, Leg, Measured};
+use super::{Error, MeasureBobbin, emit, notice};
+use crate::engine::measured_core::{self, GapReading, Leg, Measured};
 use crate::engine::validate_bobbin;
 use crate::files::{bobbin_to_toml, parse_bobbin, user_bobbin_dir, write_atomic};
 use crate::model::Tube;
@@ -9,9 +9,9 @@ use std::fmt::Write as _;
 use std::path::Path;
 use std::process::ExitCode;
 
-fn bad(msg: &str) -> ExitCode {
-    eprintln!("turnstack: {msg}");
-    ExitCode::from(EXIT_BAD_INPUT)
+/// The error of a reading the command cannot use.
+fn bad(msg: &str) -> Result<ExitCode, Error> {
+    Err(Error::input(msg))
 }
 
 fn id_ok(id: &str) -> bool {
@@ -22,7 +22,7 @@ fn id_ok(id: &str) -> bool {
             .all(|c| c.is_ascii_alphanumeric() || matches!(c, '-' | '_' | '.'))
 }
 
-pub fn bobbin(m: &MeasureBobbin) -> ExitCode {
+pub fn bobbin(m: &MeasureBobbin) -> Result<ExitCode, Error> {
     if !id_ok(&m.id) {
         return bad(&format!(
             "--id \"{}\": use letters, digits, '-', '_' or '.' (it becomes the file name)",
@@ -49,7 +49,7 @@ pub fn bobbin(m: &MeasureBobbin) -> ExitCode {
     let (le_mm, le_how) = match (m.le, m.le_path) {
         (Some(le), _) => (Some(le), "entered".to_string()),
         (None, Some((along, across))) => (
-            Some(core_test::le_from_path_mm(along, across)),
+            Some(measured_core::le_from_path_mm(along, across)),
             format!("estimated as 2 x ({along} + {across}) from the mean path round one window"),
         ),
         _ => (None, String::new()),
@@ -58,13 +58,13 @@ pub fn bobbin(m: &MeasureBobbin) -> ExitCode {
         return bad("--turns must be at least 1");
     }
     let al_nh = match (m.turns, m.inductance_uh) {
-        (Some(n), Some(l)) => Some(core_test::al_nh(l, n)),
+        (Some(n), Some(l)) => Some(measured_core::al_nh(l, n)),
         _ => None,
     };
     if al_nh.is_some() && (leg.is_none() || le_mm.is_none()) {
-        eprintln!(
-            "turnstack: note: without --leg-rect/--leg-round and --le/--le-path only AL can be \
-             worked out; the core data needs Ae and le"
+        notice(
+            "note: without --leg-rect/--leg-round and --le/--le-path only AL can be \
+             worked out; the core data needs Ae and le",
         );
     }
     let mut origin = "Measured with callipers".to_string();
@@ -92,7 +92,7 @@ pub fn bobbin(m: &MeasureBobbin) -> ExitCode {
         al_nh,
         pin_count: m.pins,
     };
-    let bobbin = core_test::bobbin_from(&measured);
+    let bobbin = measured_core::bobbin_from(&measured);
     let problems = validate_bobbin(&bobbin);
     if let Some(p) = problems.first() {
         return bad(&format!("the readings do not make a bobbin: {p}"));
@@ -151,25 +151,25 @@ pub fn bobbin(m: &MeasureBobbin) -> ExitCode {
         }
     }
     if let (Some(al), Some(le), Some(l)) = (al_nh, le_mm, leg) {
-        let mu_e = core_test::mu_e(al, le, l.area_mm2());
+        let mu_e = measured_core::mu_e(al, le, l.area_mm2());
         let _ = writeln!(
             o,
             "  mu_e {mu_e:>8.0}        AL le / (mu0 Ae): effective permeability"
         );
         match m.mu_i {
             Some(mu_i) => {
-                let gap = core_test::equivalent_gap_mm(mu_e, mu_i, le);
+                let gap = measured_core::equivalent_gap_mm(mu_e, mu_i, le);
                 let _ = writeln!(
                     o,
                     "  gap {gap:>9.3} mm   le (1/mu_e - 1/mu_i) with mu_i {mu_i}: the air in the whole path"
                 );
-                let say = match core_test::read_gap(gap) {
+                let say = match measured_core::read_gap(gap) {
                     GapReading::Negative => "mu_e is above the mu_i you stated: the material's \
                         permeability is higher than you think, or le or Ae is off."
                         .to_string(),
                     GapReading::Clean => format!(
                         "under {:.0} um: as expected of clean, ground mating faces.",
-                        core_test::CLEAN_FACE_GAP_MM * 1000.0
+                        measured_core::CLEAN_FACE_GAP_MM * 1000.0
                     ),
                     GapReading::Gapped => "a gap: the core is gapped on purpose, or its mating \
                         faces are dirty, glued or chipped (glue and grit show up as a gap; an E \
@@ -189,19 +189,17 @@ pub fn bobbin(m: &MeasureBobbin) -> ExitCode {
             }
         }
     }
-    if !emit(&o) {
-        return ExitCode::from(EXIT_BAD_INPUT);
-    }
+    emit(&o)?;
     if m.save {
         let Some(dir) = user_bobbin_dir() else {
             return bad("no data directory on this system: set TURNSTACK_BOBBINS to a folder");
         };
         return save(&dir, &m.id, &toml, m.force);
     }
-    ExitCode::SUCCESS
+    Ok(ExitCode::SUCCESS)
 }
 
-fn save(dir: &Path, id: &str, toml: &str, force: bool) -> ExitCode {
+fn save(dir: &Path, id: &str, toml: &str, force: bool) -> Result<ExitCode, Error> {
     if let Err(e) = std::fs::create_dir_all(dir) {
         return bad(&format!("cannot create {}: {e}", dir.display()));
     }
@@ -215,6 +213,6 @@ fn save(dir: &Path, id: &str, toml: &str, force: bool) -> ExitCode {
     if let Err(e) = write_atomic(&path, toml) {
         return bad(&format!("cannot write {}: {e}", path.display()));
     }
-    eprintln!("turnstack: saved {}", path.display());
-    ExitCode::SUCCESS
+    notice(&format!("saved {}", path.display()));
+    Ok(ExitCode::SUCCESS)
 }

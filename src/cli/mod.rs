@@ -2,6 +2,7 @@
 //! use (0 fits, 1 valid but does not fit, 2 the input is wrong).
 
 mod args;
+mod error;
 mod fit;
 mod lists;
 mod measure;
@@ -10,10 +11,12 @@ mod sheet;
 mod verify;
 
 pub use args::{Cli, Command, MeasureBobbin, MeasureWhat};
+pub use error::Error;
+pub(crate) use error::{notice, say};
 
 use crate::engine::evaluate;
+use crate::files::demo_build;
 use crate::files::{LoadError, load_build};
-use crate::library::demo::demo_build;
 use crate::model::Build;
 use crate::report;
 use clap::Parser;
@@ -25,9 +28,20 @@ pub const EXIT_FITS: u8 = 0;
 pub const EXIT_DOES_NOT_FIT: u8 = 1;
 pub const EXIT_BAD_INPUT: u8 = 2;
 
-/// Entry point of the binary.
+/// Entry point of the binary: parse the arguments, run the command, print its error if any.
 pub fn main() -> ExitCode {
-    let cli = Cli::parse();
+    match run(Cli::parse()) {
+        Ok(code) => code,
+        Err(e) => {
+            error::print_error(&e);
+            ExitCode::from(EXIT_BAD_INPUT)
+        }
+    }
+}
+
+/// Run one command line: the exit code of a run that worked (0 fits, 1 does not fit), or the
+/// error that stopped it (exit code 2).
+pub fn run(cli: Cli) -> Result<ExitCode, Error> {
     match cli.command {
         None => crate::cli::run_editor(None),
         Some(Command::Check { file, json }) => check(file.as_deref(), json),
@@ -96,37 +110,35 @@ pub fn main() -> ExitCode {
 }
 
 /// Print to stdout; a closed pipe (`| head`) is not an error.
-pub(crate) fn emit(text: &str) -> bool {
+pub(crate) fn emit(text: &str) -> Result<(), Error> {
     let mut out = std::io::stdout().lock();
     match out.write_all(text.as_bytes()).and_then(|()| out.flush()) {
-        Ok(()) => true,
-        Err(e) if e.kind() == std::io::ErrorKind::BrokenPipe => true,
-        Err(e) => {
-            eprintln!("turnstack: cannot write the output: {e}");
-            false
-        }
+        Ok(()) => Ok(()),
+        Err(e) if e.kind() == std::io::ErrorKind::BrokenPipe => Ok(()),
+        Err(e) => Err(Error::Output(e)),
     }
 }
 
-/// Pretty JSON with a final newline, for `--json`.
+/// Pretty JSON with a final newline, for `--json`. It goes through a `serde_json::Value`,
+/// whose map sorts the keys: every object prints its keys in alphabetical order, as the
+/// output always has, whatever the order of the fields of the typed struct.
 pub(crate) fn json_text<T: serde::Serialize>(v: &T) -> String {
-    let mut s = serde_json::to_string_pretty(v).unwrap_or_default();
+    let value = serde_json::to_value(v).unwrap_or_default();
+    let mut s = serde_json::to_string_pretty(&value).unwrap_or_default();
     s.push('\n');
     s
 }
 
-/// Print, and the exit code of a listing: 0, or 2 when the output could not be written.
-pub(crate) fn emit_listing(text: &str) -> ExitCode {
-    if emit(text) {
-        ExitCode::SUCCESS
-    } else {
-        ExitCode::from(EXIT_BAD_INPUT)
-    }
+/// Print, and the exit code of a listing: 0, or the error when the output could not be
+/// written.
+pub(crate) fn emit_listing(text: &str) -> Result<ExitCode, Error> {
+    emit(text)?;
+    Ok(ExitCode::SUCCESS)
 }
 
-pub(crate) fn fail(e: &LoadError) -> ExitCode {
-    eprintln!("turnstack: {}", e.with_snippet());
-    ExitCode::from(EXIT_BAD_INPUT)
+/// The exit code of a build that fits (0) or does not (1).
+pub(crate) fn fit_code(fits: bool) -> ExitCode {
+    ExitCode::from(if fits { EXIT_FITS } else { EXIT_DOES_NOT_FIT })
 }
 
 /// The build of a file, or the bundled demo when no file is given.
@@ -137,53 +149,38 @@ pub(crate) fn load_or_demo(file: Option<&Path>) -> Result<Build, LoadError> {
     }
 }
 
-fn check(file: Option<&Path>, json: bool) -> ExitCode {
-    let build = match load_or_demo(file) {
-        Ok(b) => b,
-        Err(e) => return fail(&e),
-    };
+fn check(file: Option<&Path>, json: bool) -> Result<ExitCode, Error> {
+    let build = load_or_demo(file)?;
     let eval = evaluate(&build);
     let text = if json {
         json_text(&report::json::report(&build, &eval))
     } else {
         report::text::render(&build, &eval)
     };
-    if !emit(&text) {
-        return ExitCode::from(EXIT_BAD_INPUT);
-    }
-    ExitCode::from(if eval.fits {
-        EXIT_FITS
-    } else {
-        EXIT_DOES_NOT_FIT
-    })
+    emit(&text)?;
+    Ok(fit_code(eval.fits))
 }
 
 /// The interactive planner: on the demo build, on a build file, or on a new build for a file
 /// that does not exist yet (its bobbin picked first).
-pub fn run_editor(file: Option<&Path>) -> ExitCode {
+pub fn run_editor(file: Option<&Path>) -> Result<ExitCode, Error> {
     use std::io::IsTerminal;
     if !std::io::stdout().is_terminal() || !std::io::stdin().is_terminal() {
-        eprintln!(
-            "turnstack: the planner needs a terminal; for a report use `turnstack check [FILE]`"
-        );
         if let (Some(p), Some(dir)) = (file, crate::files::recovery_dir())
             && crate::files::read_recovery(&dir, p).is_some()
         {
-            eprintln!(
-                "turnstack: {} has unsaved edits from an earlier session; run `turnstack edit` in a terminal to restore or discard them",
+            notice(&format!(
+                "{} has unsaved edits from an earlier session; run `turnstack edit` in a terminal to restore or discard them",
                 p.display()
-            );
+            ));
         }
-        return ExitCode::from(EXIT_BAD_INPUT);
+        return Err(Error::NoTerminal);
     }
     let mut app = match file {
         Some(p) if !p.exists() => {
             crate::tui::App::new_file(p.to_path_buf(), crate::tui::run::read_library(Some(p)))
         }
-        _ => match load_or_demo(file) {
-            Ok(b) => crate::tui::App::new(b, file.map(Path::to_path_buf)),
-            Err(e) => return fail(&e),
-        },
+        _ => crate::tui::App::new(load_or_demo(file)?, file.map(Path::to_path_buf)),
     };
     // Unsaved edits an earlier session left (a crash, a closed terminal): offered back.
     if let Some(dir) = crate::files::recovery_dir() {
@@ -194,11 +191,6 @@ pub fn run_editor(file: Option<&Path>) -> ExitCode {
             &mut std::io::stderr(),
         );
     }
-    match crate::tui::run::run(app) {
-        Ok(()) => ExitCode::SUCCESS,
-        Err(e) => {
-            eprintln!("turnstack: terminal error: {e}");
-            ExitCode::from(EXIT_BAD_INPUT)
-        }
-    }
+    crate::tui::run::run(app).map_err(Error::Terminal)?;
+    Ok(ExitCode::SUCCESS)
 }

@@ -1,11 +1,12 @@
 //! `turnstack search`: let the planner try wires, strands and section orders, and report the
 //! Pareto set; `--out` writes the chosen candidate as a build file.
 
-use super::{EXIT_BAD_INPUT, emit, fail, load_or_demo};
+use super::{Error, emit, load_or_demo, say};
 use crate::engine::search::{self, Outcome, Series, Settings};
 use crate::files::{build_to_toml, check_output, save_build_keeping};
-use crate::report::text::truncate;
-use serde_json::json;
+use crate::report::search::{binding_with_cli_advice, note_sentence};
+use crate::report::textfmt::truncate;
+use serde::Serialize;
 use std::fmt::Write as _;
 use std::io::IsTerminal;
 use std::path::Path;
@@ -77,47 +78,37 @@ fn check_flags(args: &SearchArgs) -> Result<(), String> {
     Ok(())
 }
 
-pub fn run(args: &SearchArgs) -> ExitCode {
-    if let Err(why) = check_flags(args) {
-        eprintln!("turnstack: search: {why}");
-        return ExitCode::from(EXIT_BAD_INPUT);
-    }
+pub fn run(args: &SearchArgs) -> Result<ExitCode, Error> {
+    check_flags(args).map_err(|why| Error::input(format!("search: {why}")))?;
     // Before the search: its result never replaces the input, nor another file unasked.
-    if let Some(out) = args.out
-        && let Err(why) = check_output(out, args.file, args.force)
-    {
-        eprintln!("turnstack: search --out: {why}");
-        return ExitCode::from(EXIT_BAD_INPUT);
+    if let Some(out) = args.out {
+        check_output(out, args.file, args.force)
+            .map_err(|why| Error::input(format!("search --out: {why}")))?;
     }
-    let mut build = match load_or_demo(args.file) {
-        Ok(b) => b,
-        Err(e) => return fail(&e),
-    };
+    let mut build = load_or_demo(args.file)?;
     // The bench readings belong to the part wound from this build, not to other candidates.
     build.set_measured(None);
     if let Err(e) = search::search_ready(&build) {
-        match args.file {
-            Some(p) => eprintln!("turnstack: {}: {e}", p.display()),
-            None => eprintln!("turnstack: {e}"),
-        }
-        return ExitCode::from(EXIT_BAD_INPUT);
+        return Err(Error::input(match args.file {
+            Some(p) => format!("{}: {e}", p.display()),
+            None => e.to_string(),
+        }));
     }
     // The size of the search, said before it starts; too large a one is refused.
     let size = search::space_size(&build, &args.settings);
     if size > search::MAX_SPACE {
-        eprintln!(
-            "turnstack: search: {size} combinations is more than the {} a search goes through; narrow it with a lower --max-strands, a narrower --j-min/--j-max band or --isolation-wraps",
+        return Err(Error::input(format!(
+            "search: {size} combinations is more than the {} a search goes through; narrow it with a lower --max-strands, a narrower --j-min/--j-max band or --isolation-wraps",
             search::MAX_SPACE
-        );
-        return ExitCode::from(EXIT_BAD_INPUT);
+        )));
+    }
+    if size > 1_000_000 {
+        super::notice(&format!(
+            "searching {size} combinations on {} threads (Ctrl-C stops it)",
+            args.settings.threads
+        ));
     }
     let tty = std::io::stderr().is_terminal();
-    if size > 1_000_000 {
-        eprintln!(
-            "turnstack: searching {size} combinations on {} threads (Ctrl-C stops it)",
-            args.settings.threads
-        );
-    }
     let progress = move |done: usize, total: usize| {
         if tty && total > 20_000 {
             eprint!("\rsearching: {done} of {total}");
@@ -126,83 +117,101 @@ pub fn run(args: &SearchArgs) -> ExitCode {
             }
         }
     };
-    let outcome = match search::search(&build, &args.settings, &progress) {
-        Ok(o) => o,
-        Err(e) => {
-            eprintln!("turnstack: {e}");
-            return ExitCode::from(EXIT_BAD_INPUT);
-        }
-    };
+    let outcome = search::search(&build, &args.settings, &progress)?;
     if let Some(out) = args.out {
         let Some(c) = outcome.candidates.get(args.pick.saturating_sub(1)) else {
-            eprintln!(
-                "turnstack: there is no candidate {} to write ({} found)",
+            return Err(Error::input(format!(
+                "there is no candidate {} to write ({} found)",
                 args.pick,
                 outcome.candidates.len()
-            );
-            return ExitCode::from(EXIT_BAD_INPUT);
+            )));
         };
         // Written onto the input's text: its comments and layout stay, only the values the
         // search changed are rewritten.
-        match save_build_keeping(out, args.file, &c.build) {
-            Ok(saved) if !saved.note().is_empty() => eprintln!("turnstack: {}", saved.note()),
-            Ok(_) => {}
-            Err(e) => {
-                eprintln!("turnstack: cannot write {}: {e}", out.display());
-                return ExitCode::from(EXIT_BAD_INPUT);
-            }
+        let saved =
+            save_build_keeping(out, args.file, &c.build).map_err(|source| Error::Write {
+                path: out.to_path_buf(),
+                source,
+            })?;
+        if !saved.note().is_empty() {
+            super::notice(&saved.note());
         }
-        eprintln!(
+        say(&format!(
             "wrote candidate {} to {}: {}",
             args.pick,
             out.display(),
             c.description
-        );
+        ));
     }
     let text = if args.json {
         outcome_json(&outcome)
     } else {
         report(&outcome, &args.settings)
     };
-    if !emit(&text) {
-        return ExitCode::from(EXIT_BAD_INPUT);
-    }
-    if outcome.candidates.is_empty() {
-        ExitCode::from(1)
+    emit(&text)?;
+    Ok(if outcome.candidates.is_empty() {
+        ExitCode::from(super::EXIT_DOES_NOT_FIT)
     } else {
         ExitCode::SUCCESS
-    }
+    })
+}
+
+/// `search --json` (FORMAT.md, "turnstack search").
+#[derive(Serialize)]
+struct OutcomeJson<'a> {
+    space: usize,
+    evaluated: usize,
+    pruned: usize,
+    feasible: usize,
+    candidates: Vec<CandidateJson<'a>>,
+    /// Why nothing was found; `null` when something was.
+    binding: Option<String>,
+    notes: Vec<String>,
+}
+
+/// One candidate of the front, lowest loss first.
+#[derive(Serialize)]
+struct CandidateJson<'a> {
+    description: &'a str,
+    fits: bool,
+    copper_loss_w: f64,
+    total_loss_w: f64,
+    /// `null` without a surface to estimate the rise from.
+    temperature_rise_c: Option<f64>,
+    leakage_uh: f64,
+    spare_height_mm: f64,
+    height_with_allowance_mm: f64,
+    fill_factor: f64,
+    /// The candidate as a build file.
+    build: String,
 }
 
 fn outcome_json(o: &Outcome) -> String {
-    let list: Vec<_> = o
+    let candidates = o
         .candidates
         .iter()
-        .map(|c| {
-            json!({
-                "description": c.description,
-                "fits": c.eval.fits,
-                "copper_loss_w": c.copper_loss_w,
-                "total_loss_w": c.objectives.loss_w,
-                "temperature_rise_c": c.eval.losses.as_ref().and_then(|l| l.temperature_rise_c),
-                "leakage_uh": c.objectives.leakage_uh,
-                "spare_height_mm": c.eval.spare_height_mm,
-                "height_with_allowance_mm": c.eval.height_with_allowance_mm,
-                "fill_factor": c.eval.fill_factor,
-                "build": build_to_toml(&c.build),
-            })
+        .map(|c| CandidateJson {
+            description: &c.description,
+            fits: c.eval.fits,
+            copper_loss_w: c.copper_loss_w,
+            total_loss_w: c.objectives.loss_w,
+            temperature_rise_c: c.eval.losses.as_ref().and_then(|l| l.temperature_rise_c),
+            leakage_uh: c.objectives.leakage_uh,
+            spare_height_mm: c.eval.spare_height_mm,
+            height_with_allowance_mm: c.eval.height_with_allowance_mm,
+            fill_factor: c.eval.fill_factor,
+            build: build_to_toml(&c.build),
         })
         .collect();
-    let v = json!({
-        "space": o.space,
-        "evaluated": o.evaluated,
-        "pruned": o.pruned,
-        "feasible": o.feasible,
-        "candidates": list,
-        "binding": o.binding,
-        "notes": o.notes,
-    });
-    super::json_text(&v)
+    super::json_text(&OutcomeJson {
+        space: o.space,
+        evaluated: o.evaluated,
+        pruned: o.pruned,
+        feasible: o.feasible,
+        candidates,
+        binding: o.binding.as_ref().map(binding_with_cli_advice),
+        notes: o.notes.iter().map(note_sentence).collect(),
+    })
 }
 
 fn report(o: &Outcome, settings: &Settings) -> String {
@@ -225,11 +234,11 @@ fn report(o: &Outcome, settings: &Settings) -> String {
         o.candidates.len()
     );
     for n in &o.notes {
-        let _ = writeln!(s, "  note: {n}");
+        let _ = writeln!(s, "  note: {}", note_sentence(n));
     }
     if let Some(b) = &o.binding {
         let _ = writeln!(s, "\nNothing fits within the constraints.");
-        for l in crate::report::wrap(b, 76, "  ") {
+        for l in crate::report::wrap(&binding_with_cli_advice(b), 76, "  ") {
             let _ = writeln!(s, "  {l}");
         }
         return s;

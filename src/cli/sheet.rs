@@ -1,6 +1,6 @@
 //! `turnstack sheet FILE [--html OUT.html]`: the technician's winding sheet.
 
-use super::{EXIT_BAD_INPUT, EXIT_DOES_NOT_FIT, EXIT_FITS, emit, fail, load_or_demo};
+use super::{Error, emit, fit_code, load_or_demo, notice};
 use crate::engine::evaluate;
 use crate::files::{check_output, write_atomic};
 use crate::report::sheet::{self, html, svg, text};
@@ -12,52 +12,38 @@ pub fn sheet(
     html_out: Option<(&Path, bool)>,
     measure_at_c: f64,
     page_lines: usize,
-) -> ExitCode {
+) -> Result<ExitCode, Error> {
     // Before any work: the page never replaces the build, nor another file without --force.
-    if let Some((out, force)) = html_out
-        && let Err(why) = check_output(out, file, force)
-    {
-        eprintln!("turnstack: sheet --html: {why}");
-        return ExitCode::from(EXIT_BAD_INPUT);
+    if let Some((out, force)) = html_out {
+        check_output(out, file, force)
+            .map_err(|why| Error::input(format!("sheet --html: {why}")))?;
     }
     if !(measure_at_c.is_finite() && (-40.0..=60.0).contains(&measure_at_c)) {
-        eprintln!(
-            "turnstack: --measure-at-c {measure_at_c}: expected a bench temperature between -40 and 60 C"
-        );
-        return ExitCode::from(EXIT_BAD_INPUT);
+        return Err(Error::input(format!(
+            "--measure-at-c {measure_at_c}: expected a bench temperature between -40 and 60 C"
+        )));
     }
-    let build = match load_or_demo(file) {
-        Ok(b) => b,
-        Err(e) => return fail(&e),
-    };
+    let build = load_or_demo(file)?;
     let eval = evaluate(&build);
     let s = sheet::sheet(&build, &eval, measure_at_c);
     match html_out {
         Some((out, _)) => {
             let (scale, svg) = svg::cross_section(&build, &eval);
             let page = html::render(&s, &svg, scale);
-            if let Err(e) = write_atomic(out, &page) {
-                eprintln!("turnstack: cannot write {}: {e}", out.display());
-                return ExitCode::from(EXIT_BAD_INPUT);
-            }
-            eprintln!(
-                "turnstack: wrote the winding sheet of build {} to {}",
+            write_atomic(out, &page).map_err(|source| Error::Write {
+                path: out.to_path_buf(),
+                source,
+            })?;
+            notice(&format!(
+                "wrote the winding sheet of build {} to {}",
                 s.build_id,
                 out.display()
-            );
+            ));
         }
-        None => {
-            if !emit(&text::render(&s, page_lines)) {
-                return ExitCode::from(EXIT_BAD_INPUT);
-            }
-        }
+        None => emit(&text::render(&s, page_lines))?,
     }
     if !eval.fits {
-        eprintln!("turnstack: the build does not fit its bobbin: the sheet says DO NOT WIND");
+        notice("the build does not fit its bobbin: the sheet says DO NOT WIND");
     }
-    ExitCode::from(if eval.fits {
-        EXIT_FITS
-    } else {
-        EXIT_DOES_NOT_FIT
-    })
+    Ok(fit_code(eval.fits))
 }

@@ -1,11 +1,12 @@
 //! The pure engine: turns a `Build` into an `Evaluation`. No I/O, no terminal, no clap.
-//! Every figure has its one definition here (see shared/spec/build-format.md and FORMAT.md).
+//! Every figure has its one definition here (see FORMAT.md, the project's copy of the file
+//! format and the definition of each figure).
 
 pub mod ac;
+pub mod bench;
 pub mod constants;
 pub mod converter;
 pub mod core_loss;
-pub mod core_test;
 pub mod currents;
 mod evaluation;
 pub mod geometry;
@@ -16,6 +17,7 @@ pub mod leakage;
 pub mod limits;
 pub mod losses;
 pub mod magnetics;
+pub mod measured_core;
 pub mod memo;
 mod remarks;
 pub mod resistance;
@@ -25,6 +27,7 @@ pub mod validate;
 pub mod verify;
 mod warnings;
 
+pub use bench::primary_secondary_leakage;
 pub use converter::ConverterEval;
 pub use currents::CurrentSource;
 pub use evaluation::{

@@ -3,7 +3,7 @@
 
 use super::layout::{Resolved, turns_per_layer, usable_width_mm};
 use crate::library::wires::AWG_RANGE;
-use crate::model::{Bobbin, Build, Role, Section, Tube, WireSize};
+use crate::model::{Bobbin, Build, Role, Section, Tube, WindingSection, WireSize};
 use std::fmt;
 
 /// Where in the build a problem lies; the loader maps it to a line and column.
@@ -138,9 +138,24 @@ pub fn validate(build: &Build) -> Vec<Invalid> {
 pub(super) fn validate_resolved(build: &Build, resolved: &Resolved) -> Vec<Invalid> {
     let mut out = Vec::new();
     out.extend(validate_bobbin(&build.bobbin));
-    let b = &build.bobbin;
     let mut bad = |place: Place, message: String| out.push(Invalid { place, message });
+    for check in [
+        check_setup,
+        check_windings,
+        check_sections,
+        check_turn_sums,
+        check_operating,
+        check_material,
+    ] {
+        check(build, resolved, &mut bad);
+    }
+    out.extend(super::isolation::validate(build));
+    out
+}
 
+/// The setup: temperature, allowance, margins, tape, frequency.
+fn check_setup(build: &Build, _resolved: &Resolved, bad: &mut dyn FnMut(Place, String)) {
+    let b = &build.bobbin;
     // The setup.
     let s = &build.setup;
     if !(s.temperature_c.is_finite() && (-60.0..=250.0).contains(&s.temperature_c)) {
@@ -192,7 +207,10 @@ pub(super) fn validate_resolved(build: &Build, resolved: &Resolved) -> Vec<Inval
             format!("must be a positive frequency in kHz, got {f}"),
         );
     }
+}
 
+/// The windings: names, turns, strands and wire.
+fn check_windings(build: &Build, _resolved: &Resolved, bad: &mut dyn FnMut(Place, String)) {
     // The windings.
     if build.windings.is_empty() {
         bad(
@@ -235,34 +253,7 @@ pub(super) fn validate_resolved(build: &Build, resolved: &Resolved) -> Vec<Inval
                 ),
             );
         }
-        match w.wire {
-            WireSize::Awg(n) if !AWG_RANGE.contains(&n) => bad(
-                Place::Winding(i, "wire"),
-                format!(
-                    "AWG {n} is outside the table (awg{} to awg{})",
-                    AWG_RANGE.start(),
-                    AWG_RANGE.end()
-                ),
-            ),
-            WireSize::Metric { bare_mm } if !(bare_mm > 0.0 && bare_mm <= 5.0) => bad(
-                Place::Winding(i, "wire"),
-                format!("expected a bare diameter above 0 and up to 5 mm, got {bare_mm} mm"),
-            ),
-            WireSize::Measured { bare_mm, od_mm } => {
-                if !positive(bare_mm) || !positive(od_mm) {
-                    bad(
-                        Place::Winding(i, "wire"),
-                        format!("bare_mm and od_mm must be positive, got {bare_mm} and {od_mm}"),
-                    );
-                } else if od_mm < bare_mm {
-                    bad(
-                        Place::Winding(i, "wire"),
-                        format!("od_mm ({od_mm}) is smaller than bare_mm ({bare_mm})"),
-                    );
-                }
-            }
-            _ => {}
-        }
+        check_wire(i, w.wire, bad);
         if let Some(c) = w.current_rms_a
             && !(c.is_finite() && c >= 0.0)
         {
@@ -272,7 +263,43 @@ pub(super) fn validate_resolved(build: &Build, resolved: &Resolved) -> Vec<Inval
             );
         }
     }
+}
 
+/// A winding's wire: an AWG size in the table, a metric size up to 5 mm, or measured
+/// diameters that make sense.
+fn check_wire(i: usize, wire: WireSize, bad: &mut dyn FnMut(Place, String)) {
+    match wire {
+        WireSize::Awg(n) if !AWG_RANGE.contains(&n) => bad(
+            Place::Winding(i, "wire"),
+            format!(
+                "AWG {n} is outside the table (awg{} to awg{})",
+                AWG_RANGE.start(),
+                AWG_RANGE.end()
+            ),
+        ),
+        WireSize::Metric { bare_mm } if !(bare_mm > 0.0 && bare_mm <= 5.0) => bad(
+            Place::Winding(i, "wire"),
+            format!("expected a bare diameter above 0 and up to 5 mm, got {bare_mm} mm"),
+        ),
+        WireSize::Measured { bare_mm, od_mm } => {
+            if !positive(bare_mm) || !positive(od_mm) {
+                bad(
+                    Place::Winding(i, "wire"),
+                    format!("bare_mm and od_mm must be positive, got {bare_mm} and {od_mm}"),
+                );
+            } else if od_mm < bare_mm {
+                bad(
+                    Place::Winding(i, "wire"),
+                    format!("od_mm ({od_mm}) is smaller than bare_mm ({bare_mm})"),
+                );
+            }
+        }
+        _ => {}
+    }
+}
+
+/// The stack's sections: tape wraps, the winding each names, its turns and fit in the width.
+fn check_sections(build: &Build, resolved: &Resolved, bad: &mut dyn FnMut(Place, String)) {
     // The stack.
     if build.stack.is_empty() {
         bad(
@@ -280,16 +307,6 @@ pub(super) fn validate_resolved(build: &Build, resolved: &Resolved) -> Vec<Inval
             "a build needs at least one [[stack]] section".into(),
         );
     }
-    let list = || {
-        build
-            .windings
-            .iter()
-            .map(|w| w.name.as_str())
-            .collect::<Vec<_>>()
-            .join(", ")
-    };
-    let wires = &resolved.wires;
-    let w_u = usable_width_mm(build);
     for (i, section) in build.stack.iter().enumerate() {
         match section {
             Section::Tape { wraps } => {
@@ -302,68 +319,92 @@ pub(super) fn validate_resolved(build: &Build, resolved: &Resolved) -> Vec<Inval
                     );
                 }
             }
-            Section::Winding(ws) => {
-                let r = resolved.sections[i];
-                let (a, with) = (r.winding, r.with);
-                if a.is_none() {
-                    bad(
-                        Place::Section(i, "winding"),
-                        format!(
-                            "unknown winding \"{}\"; the windings are {}",
-                            ws.winding,
-                            list()
-                        ),
-                    );
-                }
-                let c = match &ws.with {
-                    Some(n) => {
-                        let c = with;
-                        if c.is_none() {
-                            bad(
-                                Place::Section(i, "with"),
-                                format!("unknown winding \"{n}\"; the windings are {}", list()),
-                            );
-                        } else if c == a {
-                            bad(
-                                Place::Section(i, "with"),
-                                format!("\"{n}\" cannot be wound bifilar with itself"),
-                            );
-                        }
-                        c
-                    }
-                    None => None,
-                };
-                if ws.layer_tape > MAX_WRAPS {
-                    bad(
-                        Place::Section(i, "layer_tape"),
-                        format!("{} wraps is more than {MAX_WRAPS}", ws.layer_tape),
-                    );
-                }
-                if r.turns == 0 {
-                    let why = if ws.turns.is_some() {
-                        "must be at least 1".to_string()
-                    } else {
-                        format!("no turns of \"{}\" are left for this section", ws.winding)
-                    };
-                    bad(Place::Section(i, "turns"), why);
-                }
-                if let Some(a) = a {
-                    let pitch = f64::from(build.windings[a].strands.max(1)) * wires[a].od_mm
-                        + c.filter(|&c| c != a).map_or(0.0, |c| {
-                            f64::from(build.windings[c].strands.max(1)) * wires[c].od_mm
-                        });
-                    if w_u > 0.0 && pitch > 0.0 && turns_per_layer(w_u, pitch) == 0 {
-                        bad(
-                            Place::Section(i, "winding"),
-                            format!(
-                                "one turn needs {pitch:.3} mm of width but only {w_u:.3} mm is usable between the margins"
-                            ),
-                        );
-                    }
-                }
-            }
+            Section::Winding(ws) => check_winding_section(build, resolved, i, ws, bad),
         }
     }
+}
+
+/// One winding section: the winding and partner it names, its layer tape and turns, and
+/// that one turn fits in the usable width.
+fn check_winding_section(
+    build: &Build,
+    resolved: &Resolved,
+    i: usize,
+    ws: &WindingSection,
+    bad: &mut dyn FnMut(Place, String),
+) {
+    let list = || {
+        build
+            .windings
+            .iter()
+            .map(|w| w.name.as_str())
+            .collect::<Vec<_>>()
+            .join(", ")
+    };
+    let wires = &resolved.wires;
+    let w_u = usable_width_mm(build);
+    let r = resolved.sections[i];
+    let (a, with) = (r.winding, r.with);
+    if a.is_none() {
+        bad(
+            Place::Section(i, "winding"),
+            format!(
+                "unknown winding \"{}\"; the windings are {}",
+                ws.winding,
+                list()
+            ),
+        );
+    }
+    let c = match &ws.with {
+        Some(n) => {
+            let c = with;
+            if c.is_none() {
+                bad(
+                    Place::Section(i, "with"),
+                    format!("unknown winding \"{n}\"; the windings are {}", list()),
+                );
+            } else if c == a {
+                bad(
+                    Place::Section(i, "with"),
+                    format!("\"{n}\" cannot be wound bifilar with itself"),
+                );
+            }
+            c
+        }
+        None => None,
+    };
+    if ws.layer_tape > MAX_WRAPS {
+        bad(
+            Place::Section(i, "layer_tape"),
+            format!("{} wraps is more than {MAX_WRAPS}", ws.layer_tape),
+        );
+    }
+    if r.turns == 0 {
+        let why = if ws.turns.is_some() {
+            "must be at least 1".to_string()
+        } else {
+            format!("no turns of \"{}\" are left for this section", ws.winding)
+        };
+        bad(Place::Section(i, "turns"), why);
+    }
+    if let Some(a) = a {
+        let pitch = f64::from(build.windings[a].strands.max(1)) * wires[a].od_mm
+            + c.filter(|&c| c != a).map_or(0.0, |c| {
+                f64::from(build.windings[c].strands.max(1)) * wires[c].od_mm
+            });
+        if w_u > 0.0 && pitch > 0.0 && turns_per_layer(w_u, pitch) == 0 {
+            bad(
+                Place::Section(i, "winding"),
+                format!(
+                    "one turn needs {pitch:.3} mm of width but only {w_u:.3} mm is usable between the margins"
+                ),
+            );
+        }
+    }
+}
+
+/// Each winding's turns are those its sections wind (as the winding or the bifilar partner).
+fn check_turn_sums(build: &Build, resolved: &Resolved, bad: &mut dyn FnMut(Place, String)) {
     for (k, w) in build.windings.iter().enumerate() {
         // Every section that winds it, as the winding or as the bifilar partner.
         let sum: u64 = resolved
@@ -388,7 +429,11 @@ pub(super) fn validate_resolved(build: &Build, resolved: &Resolved) -> Vec<Inval
             bad(Place::Winding(k, "turns"), msg);
         }
     }
+}
 
+/// The operating point: it needs a frequency, and its figures must be in range.
+fn check_operating(build: &Build, _resolved: &Resolved, bad: &mut dyn FnMut(Place, String)) {
+    let s = &build.setup;
     // The operating point.
     if let Some(op) = &build.operating {
         if s.frequency_khz.is_none() {
@@ -458,6 +503,10 @@ pub(super) fn validate_resolved(build: &Build, resolved: &Resolved) -> Vec<Inval
             }
         }
     }
+}
+
+/// The core material: saturation, remanence, permeability, Steinmetz figures and gap.
+fn check_material(build: &Build, _resolved: &Resolved, bad: &mut dyn FnMut(Place, String)) {
     if let Some(m) = &build.material {
         if !positive(m.bsat_mt) {
             bad(
@@ -496,6 +545,4 @@ pub(super) fn validate_resolved(build: &Build, resolved: &Resolved) -> Vec<Inval
             );
         }
     }
-    out.extend(super::isolation::validate(build));
-    out
 }

@@ -15,8 +15,8 @@
 
 use super::Evaluation;
 use super::constants::{MM, MM2, MU0_H_PER_M};
-use super::core_test;
 use super::magnetics::{self, AlSource};
+use super::measured_core as core_test;
 use super::resistance::temperature_ratio;
 use crate::library::wires;
 use crate::model::{Build, Name, Role, WireSize};

@@ -379,214 +379,15 @@ pub(super) fn build(
             ));
         }
     }
-    let bobbin_span = file.bobbin.span();
-    let (bobbin_source, bobbin) = match file.bobbin.into_inner() {
-        BobbinField::Id(id) => match library.find(&id) {
-            Some(Ok(b)) => (BobbinSource::Id(id), b),
-            Some(Err(e)) => {
-                return Err(cx.err(
-                    Some(bobbin_span),
-                    "bobbin",
-                    format!("bobbin \"{id}\" cannot be used: {e}"),
-                ));
-            }
-            None => {
-                let ids = library.ids();
-                return Err(cx.err(
-                    Some(bobbin_span),
-                    "bobbin",
-                    format!(
-                        "unknown bobbin id \"{id}\"; the bobbins that exist are: {}",
-                        ids.join(", ")
-                    ),
-                ));
-            }
-        },
-        BobbinField::Inline(body) => (
-            BobbinSource::Inline,
-            bobbin_body(&cx, *body, &mut spans.bobbin)?,
-        ),
-    };
+    let (bobbin_source, bobbin) = bobbin_of(&cx, file.bobbin, library, &mut spans)?;
 
-    let setup = match file.setup {
-        None => Setup::default(),
-        Some(s) => {
-            put_opt(&mut spans.setup, "temperature_c", &s.temperature_c);
-            put_opt(&mut spans.setup, "bulge", &s.bulge);
-            put_opt(&mut spans.setup, "margin_mm", &s.margin_mm);
-            put_opt(&mut spans.setup, "tape_mm", &s.tape_mm);
-            put_opt(&mut spans.setup, "frequency_khz", &s.frequency_khz);
-            let d = Setup::default();
-            let v = |x: Option<Spanned<f64>>, default: f64| x.map_or(default, Spanned::into_inner);
-            Setup {
-                temperature_c: v(s.temperature_c, d.temperature_c),
-                bulge: v(s.bulge, d.bulge),
-                margin_mm: v(s.margin_mm, d.margin_mm),
-                tape_mm: v(s.tape_mm, d.tape_mm),
-                frequency_khz: s.frequency_khz.map(Spanned::into_inner),
-                measured: None,
-            }
-        }
-    };
+    let setup = setup_of(file.setup, &mut spans);
 
-    let mut windings = Vec::new();
-    for w in file.winding {
-        let mut m = HashMap::new();
-        m.insert("", w.span());
-        let w = w.into_inner();
-        put(&mut m, "name", &w.name);
-        put(&mut m, "turns", &w.turns);
-        put(&mut m, "wire", &w.wire);
-        put_opt(&mut m, "strands", &w.strands);
-        put_opt(&mut m, "current_rms_a", &w.current_rms_a);
-        let index = windings.len() + 1;
-        let role = Role::from_key(w.role.get_ref()).ok_or_else(|| {
-            cx.err(
-                Some(w.role.span()),
-                format!("winding #{index} role"),
-                format!("unknown role \"{}\"; expected \"primary\", \"secondary\", \"reset\" or \"auxiliary\"", w.role.get_ref()),
-            )
-        })?;
-        let insulation = match &w.insulation {
-            None => Insulation::Grade2,
-            Some(g) => Insulation::from_key(g.get_ref()).ok_or_else(|| {
-                cx.err(
-                    Some(g.span()),
-                    format!("winding #{index} insulation"),
-                    format!("unknown insulation \"{}\"; expected \"grade1\", \"grade2\", \"grade3\" or \"tiw\"", g.get_ref()),
-                )
-            })?,
-        };
-        let wire_span = w.wire.span();
-        let wire = match w.wire.into_inner() {
-            WireField::Named(n) => WireSize::parse(&n).ok_or_else(|| {
-                cx.err(
-                    Some(wire_span),
-                    format!("winding #{index} wire"),
-                    format!("unknown wire \"{n}\"; expected \"awgNN\" (e.g. \"awg27\"), a bare diameter like \"0.355mm\", or {{ bare_mm = 0.40, od_mm = 0.452 }}"),
-                )
-            })?,
-            WireField::Measured { bare_mm, od_mm } => WireSize::Measured { bare_mm, od_mm },
-        };
-        spans.winding.push(m);
-        windings.push(Winding {
-            name: w.name.into_inner().into(),
-            role,
-            turns: w.turns.into_inner(),
-            wire,
-            insulation,
-            strands: w.strands.map_or(1, Spanned::into_inner),
-            current_rms_a: w.current_rms_a.map(Spanned::into_inner),
-            start_pin: w.start_pin.map(|p| p.0),
-            finish_pin: w.finish_pin.map(|p| p.0),
-        });
-    }
+    let windings = windings_of(&cx, file.winding, &mut spans)?;
 
-    let mut stack = Vec::new();
-    for s in file.stack {
-        let mut m = HashMap::new();
-        m.insert("", s.span());
-        let whole = s.span();
-        let s = s.into_inner();
-        put_opt(&mut m, "winding", &s.winding);
-        put_opt(&mut m, "turns", &s.turns);
-        put_opt(&mut m, "with", &s.with);
-        put_opt(&mut m, "layer_tape", &s.layer_tape);
-        put_opt(&mut m, "tape", &s.tape);
-        let index = stack.len() + 1;
-        let section = match (s.winding, s.tape) {
-            (Some(w), None) => Section::Winding(WindingSection {
-                winding: w.into_inner(),
-                turns: s.turns.map(Spanned::into_inner),
-                with: s.with.map(Spanned::into_inner),
-                layer_tape: s.layer_tape.map_or(0, Spanned::into_inner),
-            }),
-            (None, Some(t)) => {
-                for (key, span) in [
-                    ("turns", s.turns.map(|x| x.span())),
-                    ("with", s.with.map(|x| x.span())),
-                    ("layer_tape", s.layer_tape.map(|x| x.span())),
-                ] {
-                    if let Some(span) = span {
-                        return Err(cx.err(
-                            Some(span),
-                            format!("stack #{index} {key}"),
-                            format!("a tape section takes only `tape`, not `{key}`"),
-                        ));
-                    }
-                }
-                Section::Tape {
-                    wraps: t.into_inner(),
-                }
-            }
-            (Some(_), Some(t)) => {
-                return Err(cx.err(
-                    Some(t.span()),
-                    format!("stack #{index}"),
-                    "a section is either a winding or tape, not both",
-                ));
-            }
-            (None, None) => {
-                return Err(cx.err(
-                    Some(whole),
-                    format!("stack #{index}"),
-                    "missing key: expected `winding = \"name\"` or `tape = wraps`",
-                ));
-            }
-        };
-        spans.section.push(m);
-        stack.push(section);
-    }
+    let stack = stack_of(&cx, file.stack, &mut spans)?;
 
-    let operating = match file.operating {
-        None => None,
-        Some(o) => {
-            spans.top.insert("operating", o.span());
-            let o = o.into_inner();
-            let sp = &mut spans.operating;
-            put(sp, "vin_min_v", &o.vin_min_v);
-            put(sp, "vin_max_v", &o.vin_max_v);
-            put(sp, "vout_v", &o.vout_v);
-            put(sp, "iout_a", &o.iout_a);
-            put_opt(sp, "rectifier_drop_v", &o.rectifier_drop_v);
-            put_opt(sp, "duty_limit", &o.duty_limit);
-            put_opt(sp, "rise_limit_c", &o.rise_limit_c);
-            put_opt(sp, "surface_area_cm2", &o.surface_area_cm2);
-            if let Some(c) = &o.converter
-                && c.get_ref() != "forward"
-            {
-                return Err(cx.err(
-                    Some(c.span()),
-                    "operating.converter",
-                    format!(
-                        "unknown converter \"{}\"; this version knows \"forward\" (single switch)",
-                        c.get_ref()
-                    ),
-                ));
-            }
-            let reset_side = match &o.reset_side {
-                None => ResetSide::Primary,
-                Some(r) => match r.get_ref().as_str() {
-                    "primary" => ResetSide::Primary,
-                    "secondary" => ResetSide::Secondary,
-                    other => {
-                        return Err(cx.err(Some(r.span()), "operating.reset_side", format!("unknown reset side \"{other}\"; expected \"primary\" or \"secondary\"")));
-                    }
-                },
-            };
-            Some(Operating {
-                reset_side,
-                vin_min_v: o.vin_min_v.into_inner(),
-                vin_max_v: o.vin_max_v.into_inner(),
-                vout_v: o.vout_v.into_inner(),
-                iout_a: o.iout_a.into_inner(),
-                rectifier_drop_v: o.rectifier_drop_v.map_or(0.0, Spanned::into_inner),
-                duty_limit: o.duty_limit.map(Spanned::into_inner),
-                rise_limit_c: o.rise_limit_c.map(Spanned::into_inner),
-                surface_area_cm2: o.surface_area_cm2.map(Spanned::into_inner),
-            })
-        }
-    };
+    let operating = operating_of(&cx, file.operating, &mut spans)?;
     let material = match file.material {
         None => None,
         Some(m) => Some(material(&cx, m, &mut spans)?),
@@ -640,6 +441,249 @@ pub(super) fn build(
     }
     build.set_measured(measured);
     Ok(build)
+}
+
+/// The build's bobbin: looked up by id in the library, or written inline.
+fn bobbin_of(
+    cx: &Ctx<'_>,
+    field: Spanned<BobbinField>,
+    library: &BobbinLibrary,
+    spans: &mut Spans,
+) -> Result<(BobbinSource, Bobbin), LoadError> {
+    let bobbin_span = field.span();
+    Ok(match field.into_inner() {
+        BobbinField::Id(id) => match library.find(&id) {
+            Some(Ok(b)) => (BobbinSource::Id(id), b),
+            Some(Err(e)) => {
+                return Err(cx.err(
+                    Some(bobbin_span),
+                    "bobbin",
+                    format!("bobbin \"{id}\" cannot be used: {e}"),
+                ));
+            }
+            None => {
+                let ids = library.ids();
+                return Err(cx.err(
+                    Some(bobbin_span),
+                    "bobbin",
+                    format!(
+                        "unknown bobbin id \"{id}\"; the bobbins that exist are: {}",
+                        ids.join(", ")
+                    ),
+                ));
+            }
+        },
+        BobbinField::Inline(body) => (
+            BobbinSource::Inline,
+            bobbin_body(cx, *body, &mut spans.bobbin)?,
+        ),
+    })
+}
+
+/// `[setup]`, its defaults where a key is left out.
+fn setup_of(raw: Option<raw::SetupRaw>, spans: &mut Spans) -> Setup {
+    match raw {
+        None => Setup::default(),
+        Some(s) => {
+            put_opt(&mut spans.setup, "temperature_c", &s.temperature_c);
+            put_opt(&mut spans.setup, "bulge", &s.bulge);
+            put_opt(&mut spans.setup, "margin_mm", &s.margin_mm);
+            put_opt(&mut spans.setup, "tape_mm", &s.tape_mm);
+            put_opt(&mut spans.setup, "frequency_khz", &s.frequency_khz);
+            let d = Setup::default();
+            let v = |x: Option<Spanned<f64>>, default: f64| x.map_or(default, Spanned::into_inner);
+            Setup {
+                temperature_c: v(s.temperature_c, d.temperature_c),
+                bulge: v(s.bulge, d.bulge),
+                margin_mm: v(s.margin_mm, d.margin_mm),
+                tape_mm: v(s.tape_mm, d.tape_mm),
+                frequency_khz: s.frequency_khz.map(Spanned::into_inner),
+                measured: None,
+            }
+        }
+    }
+}
+
+/// The `[[winding]]` tables, in order.
+fn windings_of(
+    cx: &Ctx<'_>,
+    raw: Vec<Spanned<raw::WindingRaw>>,
+    spans: &mut Spans,
+) -> Result<Vec<Winding>, LoadError> {
+    let mut windings = Vec::new();
+    for w in raw {
+        let mut m = HashMap::new();
+        m.insert("", w.span());
+        let w = w.into_inner();
+        put(&mut m, "name", &w.name);
+        put(&mut m, "turns", &w.turns);
+        put(&mut m, "wire", &w.wire);
+        put_opt(&mut m, "strands", &w.strands);
+        put_opt(&mut m, "current_rms_a", &w.current_rms_a);
+        let index = windings.len() + 1;
+        let role = Role::from_key(w.role.get_ref()).ok_or_else(|| {
+            cx.err(
+                Some(w.role.span()),
+                format!("winding #{index} role"),
+                format!("unknown role \"{}\"; expected \"primary\", \"secondary\", \"reset\" or \"auxiliary\"", w.role.get_ref()),
+            )
+        })?;
+        let insulation = match &w.insulation {
+            None => Insulation::Grade2,
+            Some(g) => Insulation::from_key(g.get_ref()).ok_or_else(|| {
+                cx.err(
+                    Some(g.span()),
+                    format!("winding #{index} insulation"),
+                    format!("unknown insulation \"{}\"; expected \"grade1\", \"grade2\", \"grade3\" or \"tiw\"", g.get_ref()),
+                )
+            })?,
+        };
+        let wire_span = w.wire.span();
+        let wire = match w.wire.into_inner() {
+            WireField::Named(n) => WireSize::parse(&n).ok_or_else(|| {
+                cx.err(
+                    Some(wire_span),
+                    format!("winding #{index} wire"),
+                    format!("unknown wire \"{n}\"; expected \"awgNN\" (e.g. \"awg27\"), a bare diameter like \"0.355mm\", or {{ bare_mm = 0.40, od_mm = 0.452 }}"),
+                )
+            })?,
+            WireField::Measured { bare_mm, od_mm } => WireSize::Measured { bare_mm, od_mm },
+        };
+        spans.winding.push(m);
+        windings.push(Winding {
+            name: w.name.into_inner().into(),
+            role,
+            turns: w.turns.into_inner(),
+            wire,
+            insulation,
+            strands: w.strands.map_or(1, Spanned::into_inner),
+            current_rms_a: w.current_rms_a.map(Spanned::into_inner),
+            start_pin: w.start_pin.map(|p| p.0),
+            finish_pin: w.finish_pin.map(|p| p.0),
+        });
+    }
+    Ok(windings)
+}
+
+/// The `[[stack]]` sections, from the tube outward.
+fn stack_of(
+    cx: &Ctx<'_>,
+    raw: Vec<Spanned<raw::SectionRaw>>,
+    spans: &mut Spans,
+) -> Result<Vec<Section>, LoadError> {
+    let mut stack = Vec::new();
+    for s in raw {
+        let mut m = HashMap::new();
+        m.insert("", s.span());
+        let whole = s.span();
+        let s = s.into_inner();
+        put_opt(&mut m, "winding", &s.winding);
+        put_opt(&mut m, "turns", &s.turns);
+        put_opt(&mut m, "with", &s.with);
+        put_opt(&mut m, "layer_tape", &s.layer_tape);
+        put_opt(&mut m, "tape", &s.tape);
+        let index = stack.len() + 1;
+        let section = match (s.winding, s.tape) {
+            (Some(w), None) => Section::Winding(WindingSection {
+                winding: w.into_inner(),
+                turns: s.turns.map(Spanned::into_inner),
+                with: s.with.map(Spanned::into_inner),
+                layer_tape: s.layer_tape.map_or(0, Spanned::into_inner),
+            }),
+            (None, Some(t)) => {
+                for (key, span) in [
+                    ("turns", s.turns.map(|x| x.span())),
+                    ("with", s.with.map(|x| x.span())),
+                    ("layer_tape", s.layer_tape.map(|x| x.span())),
+                ] {
+                    if let Some(span) = span {
+                        return Err(cx.err(
+                            Some(span),
+                            format!("stack #{index} {key}"),
+                            format!("a tape section takes only `tape`, not `{key}`"),
+                        ));
+                    }
+                }
+                Section::Tape {
+                    wraps: t.into_inner(),
+                }
+            }
+            (Some(_), Some(t)) => {
+                return Err(cx.err(
+                    Some(t.span()),
+                    format!("stack #{index}"),
+                    "a section is either a winding or tape, not both",
+                ));
+            }
+            (None, None) => {
+                return Err(cx.err(
+                    Some(whole),
+                    format!("stack #{index}"),
+                    "missing key: expected `winding = \"name\"` or `tape = wraps`",
+                ));
+            }
+        };
+        spans.section.push(m);
+        stack.push(section);
+    }
+    Ok(stack)
+}
+
+/// `[operating]`, when given.
+fn operating_of(
+    cx: &Ctx<'_>,
+    raw: Option<Spanned<raw::OperatingRaw>>,
+    spans: &mut Spans,
+) -> Result<Option<Operating>, LoadError> {
+    Ok(match raw {
+        None => None,
+        Some(o) => {
+            spans.top.insert("operating", o.span());
+            let o = o.into_inner();
+            let sp = &mut spans.operating;
+            put(sp, "vin_min_v", &o.vin_min_v);
+            put(sp, "vin_max_v", &o.vin_max_v);
+            put(sp, "vout_v", &o.vout_v);
+            put(sp, "iout_a", &o.iout_a);
+            put_opt(sp, "rectifier_drop_v", &o.rectifier_drop_v);
+            put_opt(sp, "duty_limit", &o.duty_limit);
+            put_opt(sp, "rise_limit_c", &o.rise_limit_c);
+            put_opt(sp, "surface_area_cm2", &o.surface_area_cm2);
+            if let Some(c) = &o.converter
+                && c.get_ref() != "forward"
+            {
+                return Err(cx.err(
+                    Some(c.span()),
+                    "operating.converter",
+                    format!(
+                        "unknown converter \"{}\"; this version knows \"forward\" (single switch)",
+                        c.get_ref()
+                    ),
+                ));
+            }
+            let reset_side = match &o.reset_side {
+                None => ResetSide::Primary,
+                Some(r) => match r.get_ref().as_str() {
+                    "primary" => ResetSide::Primary,
+                    "secondary" => ResetSide::Secondary,
+                    other => {
+                        return Err(cx.err(Some(r.span()), "operating.reset_side", format!("unknown reset side \"{other}\"; expected \"primary\" or \"secondary\"")));
+                    }
+                },
+            };
+            Some(Operating {
+                reset_side,
+                vin_min_v: o.vin_min_v.into_inner(),
+                vin_max_v: o.vin_max_v.into_inner(),
+                vout_v: o.vout_v.into_inner(),
+                iout_a: o.iout_a.into_inner(),
+                rectifier_drop_v: o.rectifier_drop_v.map_or(0.0, Spanned::into_inner),
+                duty_limit: o.duty_limit.map(Spanned::into_inner),
+                rise_limit_c: o.rise_limit_c.map(Spanned::into_inner),
+                surface_area_cm2: o.surface_area_cm2.map(Spanned::into_inner),
+            })
+        }
+    })
 }
 
 /// `[material]`: a bundled grade's typical figures, with the file's explicit keys over them.

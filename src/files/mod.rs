@@ -1,7 +1,9 @@
 //! Loading build and bobbin files with clear errors, bobbin lookup, and atomic saving.
 //! The only module besides the front ends that touches the file system.
 
+mod build_id;
 mod convert;
+mod demo;
 mod error;
 mod keep;
 mod lookup;
@@ -10,7 +12,9 @@ mod raw;
 mod recovery;
 mod save;
 
+pub use build_id::{build_id, fnv1a64};
 pub use convert::{MAX_SECTIONS, MAX_WINDINGS};
+pub use demo::demo_build;
 pub use error::LoadError;
 pub use keep::merge_onto;
 pub use lookup::{BobbinEntry, BobbinLibrary, BobbinOrigin, USER_BOBBINS_ENV, user_bobbin_dir};

@@ -1,8 +1,8 @@
 //! Which bobbin fits a build: the same windings and stack laid onto each bobbin of a list,
 //! ranked. Pure: takes the bobbins, reads only `engine::validate` and `engine::evaluate`.
 
-use crate::engine::{Evaluation, evaluate, validate};
-use crate::model::{Bobbin, BobbinSource, Build, Role};
+use crate::engine::{evaluate, primary_secondary_leakage, validate};
+use crate::model::{Bobbin, BobbinSource, Build};
 
 /// One bobbin's answer.
 #[derive(Debug, Clone, PartialEq)]
@@ -53,18 +53,9 @@ pub fn fit_one(build: &Build, id: &str, bobbin: &Bobbin) -> FitRow {
         spare_height_mm: eval.spare_height_mm,
         fill_factor: eval.fill_factor,
         dcr_total_ohm: eval.windings.iter().map(|w| w.dcr_ohm).sum(),
-        leakage_uh: primary_secondary_leakage(&b, &eval),
+        leakage_uh: primary_secondary_leakage(&b, &eval).map(|l| l.uh),
         reasons,
     }
-}
-
-fn primary_secondary_leakage(build: &Build, eval: &Evaluation) -> Option<f64> {
-    let p = build.first_of(Role::Primary)?;
-    let s = build.first_of(Role::Secondary)?;
-    eval.leakage
-        .iter()
-        .find(|l| l.from == p.name && l.to == s.name)
-        .map(|l| l.uh)
 }
 
 /// Every bobbin's row, ranked: those that fit first, most spare height first; then those that

@@ -3,9 +3,10 @@
 
 pub mod fit;
 pub mod json;
+pub mod search;
 pub mod sheet;
 pub mod text;
+pub mod textfmt;
 pub mod verify;
-mod wrap;
 
-pub use wrap::wrap;
+pub use textfmt::wrap;

@@ -1,6 +1,7 @@
 //! The readable report of `turnstack check`: the stack from the tube outward with its layers,
 //! the windings, leakage, converter figures, the verdict and the warnings, in 80 columns.
 
+pub use super::textfmt::{truncate, wire_label};
 use super::wrap;
 use crate::engine::{
     AlSource, ConverterEval, CurrentSource, Evaluation, Limit, LossEval, SectionKind, WarningAt,
@@ -49,6 +50,23 @@ pub fn bobbin_line(build: &Build) -> String {
 
 pub fn render(build: &Build, eval: &Evaluation) -> String {
     let mut o = String::new();
+    header_block(&mut o, build, eval);
+    stack_block(&mut o, eval);
+    windings_block(&mut o, build, eval);
+    currents_block(&mut o, eval);
+    if let Some(c) = &eval.converter {
+        converter_block(&mut o, c);
+    }
+    if let Some(l) = &eval.losses {
+        losses_block(&mut o, l);
+    }
+    limits_block(&mut o, eval);
+    remarks_block(&mut o, build, eval);
+    o
+}
+
+/// The title, the bobbin, the setup, the verdict and the summary of heights.
+fn header_block(o: &mut String, build: &Build, eval: &Evaluation) {
     let title = if build.title.is_empty() {
         "(untitled build)"
     } else {
@@ -66,9 +84,7 @@ pub fn render(build: &Build, eval: &Evaluation) -> String {
         }
     }
     let s = &build.setup;
-    let freq = s
-        .frequency_khz
-        .map_or("no frequency".to_string(), |f| format!("{f} kHz"));
+    let freq = frequency_text(build);
     let setup = format!(
         "setup: {} C, allowance x{:.2}, margins {:.2} mm, tape {:.3} mm/wrap, {freq}",
         s.temperature_c, s.bulge, s.margin_mm, s.tape_mm
@@ -91,7 +107,10 @@ pub fn render(build: &Build, eval: &Evaluation) -> String {
     for l in wrap(&summary, WIDTH - 2, "  ") {
         let _ = writeln!(o, "  {l}");
     }
+}
 
+/// The stack from the tube outward, one row per section.
+fn stack_block(o: &mut String, eval: &Evaluation) {
     let _ = writeln!(o, "\nStack, from the tube outward");
     let _ = writeln!(
         o,
@@ -153,7 +172,20 @@ pub fn render(build: &Build, eval: &Evaluation) -> String {
             }
         }
     }
+}
 
+/// The switching frequency as the report writes it.
+fn frequency_text(build: &Build) -> String {
+    build
+        .setup
+        .frequency_khz
+        .map_or("no frequency".to_string(), |f| format!("{f} kHz"))
+}
+
+/// The windings with their resistance, the AC figures and the leakage.
+fn windings_block(o: &mut String, build: &Build, eval: &Evaluation) {
+    let freq = frequency_text(build);
+    let s = &build.setup;
     let _ = writeln!(o, "\nWindings, resistance at {} C", s.temperature_c);
     let _ = writeln!(
         o,
@@ -217,16 +249,10 @@ pub fn render(build: &Build, eval: &Evaluation) -> String {
             }
         }
     }
+}
 
-    currents_block(&mut o, eval);
-    if let Some(c) = &eval.converter {
-        converter_block(&mut o, c);
-    }
-    if let Some(l) = &eval.losses {
-        losses_block(&mut o, l);
-    }
-    limits_block(&mut o, eval);
-
+/// The warnings and the notes.
+fn remarks_block(o: &mut String, build: &Build, eval: &Evaluation) {
     let _ = writeln!(o, "\nWarnings");
     if eval.warnings.is_empty() {
         let _ = writeln!(o, "  none");
@@ -251,39 +277,6 @@ pub fn render(build: &Build, eval: &Evaluation) -> String {
         for l in wrap(&format!("note: {n}"), WIDTH - 2, "    ") {
             let _ = writeln!(o, "  {l}");
         }
-    }
-    o
-}
-
-/// Cut to `n` display columns.
-pub fn truncate(s: &str, n: usize) -> String {
-    use unicode_width::UnicodeWidthChar;
-    let mut out = String::new();
-    let mut w = 0;
-    for c in s.chars() {
-        let cw = c.width().unwrap_or(0);
-        if w + cw > n {
-            break;
-        }
-        w += cw;
-        out.push(c);
-    }
-    out
-}
-
-/// A short wire label for tables: `3x0.5 mm`, `AWG 32`, `0.8/0.87 mm` for measured wire.
-pub fn wire_label(wire: &crate::model::WireSize, strands: u32) -> String {
-    use crate::model::{WireSize, trim_mm};
-    let base = match *wire {
-        WireSize::Measured { bare_mm, od_mm } => {
-            format!("{}/{} mm", trim_mm(bare_mm), trim_mm(od_mm))
-        }
-        other => other.to_string(),
-    };
-    if strands > 1 {
-        format!("{strands}x{base}")
-    } else {
-        base
     }
 }
 

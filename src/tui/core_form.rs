@@ -5,7 +5,7 @@
 use super::app::App;
 use super::app::Effect;
 use super::overlay::PromptPurpose;
-use crate::engine::core_test::{self, GapReading, Leg, Measured};
+use crate::engine::measured_core::{self as core_test, GapReading, Leg, Measured};
 use crate::files::bobbin_to_toml;
 use crate::model::BobbinSource;
 

@@ -47,7 +47,7 @@ fn every_example_shows_the_converter_figures_and_the_binding_constraint() {
                 "{name}: {l}"
             );
         }
-        let j = json::report(&b, &e);
+        let j = json::report(&b, &e).to_value();
         assert!(j["converter"]["reset_duty_limit"].is_number(), "{name}");
         assert!(j["limits"][0]["constraint"].is_string(), "{name}");
         assert!(j["losses"]["copper_loss_w"].is_number(), "{name}");

@@ -3,7 +3,7 @@
 //! from memory; the effective-permeability note of IEC 60205), with worked examples.
 
 use std::process::Command;
-use turnstack::engine::core_test::{
+use turnstack::engine::measured_core::{
     GapReading, Leg, al_nh, al_with_gap_nh, equivalent_gap_mm, le_from_path_mm, mu_e,
     mu_e_with_gap, read_gap,
 };

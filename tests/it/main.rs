@@ -5,6 +5,7 @@ mod common;
 mod tui_support;
 
 mod ac_dowell_harmonics;
+mod bench_figures;
 mod cli;
 mod cli_writes;
 mod converter_examples;
@@ -12,7 +13,10 @@ mod converter_forward;
 mod core_relations;
 mod fit_ranking;
 mod golden_outputs;
+mod json_contract;
+mod layering;
 mod layout_cases;
+mod memo_reuse;
 mod recovery;
 mod reference_figures;
 mod save_roundtrip;

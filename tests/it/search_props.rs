@@ -6,6 +6,7 @@ use turnstack::engine::search::{Objectives, Settings, search};
 use turnstack::engine::{evaluate, validate};
 use turnstack::files::{BobbinLibrary, parse_build};
 use turnstack::model::{Build, WireSize};
+use turnstack::report::search::binding_with_cli_advice;
 
 fn build_text(width_mm: f64, height_mm: f64, np: u32, ns: u32, ip: f64, is: f64) -> String {
     format!(
@@ -101,7 +102,7 @@ fn a_window_too_small_for_any_wire_says_what_binds() {
     let build = parse(&build_text(10.0, 0.5, 20, 20, 0.5, 0.5));
     let out = search(&build, &small_settings(true), &no_progress).unwrap();
     assert!(out.candidates.is_empty());
-    let why = out.binding.expect("a reason");
+    let why = binding_with_cli_advice(&out.binding.expect("a reason"));
     assert!(why.contains("window height"), "{why}");
 }
 
@@ -186,7 +187,7 @@ fn a_current_the_band_cannot_take_names_the_band_with_or_without_pruning() {
     let brute = search(&build, &band(false), &no_progress).unwrap();
     for out in [&pruned, &brute] {
         assert!(out.candidates.is_empty());
-        let why = out.binding.as_deref().unwrap();
+        let why = binding_with_cli_advice(out.binding.as_ref().unwrap());
         assert!(
             why.contains("current-density band") && why.contains("puts P inside"),
             "{why}"

@@ -3,7 +3,7 @@
 //! Build as intended, undo restores it, and invalid input is refused with a message.
 
 use crate::tui_support::*;
-use turnstack::engine::core_test;
+use turnstack::engine::measured_core;
 use turnstack::model::{BobbinSource, IsolationClass, ResetSide};
 use turnstack::tui::app::{Overlay, PickValue, StatusKind};
 use turnstack::tui::{Action, App, Effect, run::perform};
@@ -274,7 +274,7 @@ fn bobbin_list_is_ranked_by_fit_with_the_current_one_marked() {
 }
 
 /// A 20-turn test winding of 600 uH on a 7.5 x 7.5 mm leg, le 57.5 mm, mu_i 2300: AL =
-/// L/N^2 = 1500 nH, and the gap from `engine::core_test` reads as a gapped or dirty face.
+/// L/N^2 = 1500 nH, and the gap from `engine::measured_core` reads as a gapped or dirty face.
 #[test]
 fn measured_core_shows_al_mu_e_and_gap_then_applies_and_undoes() {
     let mut app = demo_app();
@@ -301,8 +301,8 @@ fn measured_core_shows_al_mu_e_and_gap_then_applies_and_undoes() {
     assert_eq!(app.ui.core_draft.test_uh, Some(600.0));
     assert_eq!(app.ui.core_draft.le_mm, Some(57.5));
     assert_eq!(app.ui.core_draft.mu_i, Some(2300.0));
-    let mu_e = core_test::mu_e(1500.0, 57.5, 56.25);
-    let gap = core_test::equivalent_gap_mm(mu_e, 2300.0, 57.5);
+    let mu_e = measured_core::mu_e(1500.0, 57.5, 56.25);
+    let gap = measured_core::equivalent_gap_mm(mu_e, 2300.0, 57.5);
     let s = screen(&app, 80, 24);
     assert!(s.contains("AL = L/N^2 1500 nH"), "{s}");
     assert!(s.contains(&format!("mu_e {mu_e:.0}")), "{s}");

@@ -97,27 +97,68 @@ pub struct Outcome {
     /// The Pareto set, lowest loss first.
     pub candidates: Vec<Candidate>,
     /// Why nothing was found, when nothing was: the constraint that binds.
-    pub binding: Option<String>,
+    pub binding: Option<Binding>,
     /// Remarks on how the space was built (windings held fixed, and why).
-    pub notes: Vec<String>,
+    pub notes: Vec<SearchNote>,
+}
+
+/// The constraint that keeps every candidate out, as data; `report::search` words it.
+#[derive(Debug, Clone, PartialEq)]
+pub enum Binding {
+    /// The space is empty: no wire in the series suits the windings.
+    EmptySpace,
+    /// The current-density band (A/mm^2 RMS): no wire tried puts `windings` inside it, or,
+    /// when `windings` is empty, no one choice puts every winding inside it together.
+    CurrentBand {
+        j_min_a_mm2: f64,
+        j_max_a_mm2: f64,
+        windings: Vec<Name>,
+    },
+    /// The window height: none of the `in_band` combinations with wire inside the band
+    /// fits; `least` is the least height seen or bounded, where known.
+    WindowHeight {
+        j_min_a_mm2: f64,
+        j_max_a_mm2: f64,
+        in_band: usize,
+        least: Option<LeastHeight>,
+    },
+    /// The builds that fit within the band run hotter than the temperature-rise limit.
+    TemperatureRise,
+    /// The builds that fit within the band leave more leakage than allowed.
+    Leakage,
+}
+
+/// The least height with the allowance that a search saw, against the window.
+#[derive(Debug, Clone, Copy, PartialEq)]
+pub enum LeastHeight {
+    /// Of an evaluated candidate.
+    Evaluated { height_mm: f64, window_mm: f64 },
+    /// A lower bound found while pruning (no candidate in the band was evaluated).
+    Bound { height_mm: f64, window_mm: f64 },
+}
+
+/// A remark on how the search's space was built: a winding whose wire is kept, and why.
+#[derive(Debug, Clone, PartialEq)]
+pub enum SearchNote {
+    /// The winding has no current (no `current_rms_a`, none from an operating point).
+    NoCurrent { winding: Name },
+    /// No wire in the series suits the winding at its current.
+    NoWireSuits { winding: Name, current_a: f64 },
+    /// Reset and primary turns differ, so the reset is not tried bifilar with the primary.
+    ResetTurnsDiffer,
 }
 
 /// Why a search cannot start.
-#[derive(Debug, Clone, PartialEq)]
+#[derive(Debug, Clone, PartialEq, thiserror::Error)]
 pub enum SearchError {
+    /// The build lacks a primary or a secondary winding.
+    #[error(
+        "the search needs a primary and a secondary winding (expected a [[winding]] with role = \"primary\" and one with role = \"secondary\")"
+    )]
     NeedsRoles,
+    /// The build does not pass validation; its first problem.
+    #[error("the build is not valid: {0}")]
     Invalid(String),
-}
-
-impl std::fmt::Display for SearchError {
-    fn fmt(&self, f: &mut std::fmt::Formatter<'_>) -> std::fmt::Result {
-        match self {
-            SearchError::NeedsRoles => {
-                f.write_str("the search needs a primary and a secondary winding (expected a [[winding]] with role = \"primary\" and one with role = \"secondary\")")
-            }
-            SearchError::Invalid(m) => write!(f, "the build is not valid: {m}"),
-        }
-    }
 }
 
 /// RMS current of each winding the search sizes wire for, as the evaluation has it: the
@@ -294,7 +335,7 @@ pub fn search(
             plan.len(),
             settings,
             build.bobbin.window.height_mm,
-            &plan.out_of_band_windings(),
+            plan.out_of_band_windings(),
         )
     });
     Ok(Outcome {
@@ -310,10 +351,5 @@ pub fn search(
 
 /// Leakage between the first primary and the first secondary, referred to the primary.
 pub fn primary_secondary_leakage_uh(build: &Build, eval: &Evaluation) -> f64 {
-    let p = build.first_of(Role::Primary).map(|w| w.name.as_str());
-    let s = build.first_of(Role::Secondary).map(|w| w.name.as_str());
-    eval.leakage
-        .iter()
-        .find(|l| Some(l.from.as_str()) == p && Some(l.to.as_str()) == s)
-        .map_or(0.0, |l| l.uh)
+    super::primary_secondary_leakage(build, eval).map_or(0.0, |l| l.uh)
 }

@@ -1,13 +1,13 @@
 //! The space the search walks: a wire choice per winding times an arrangement of sections,
 //! numbered by a mixed radix so that any combination can be built from its index alone.
 
-use super::{Series, Settings};
+use super::{Binding, LeastHeight, SearchNote, Series, Settings};
 use crate::engine::Evaluation;
 use crate::engine::isolation::{Side, side_of};
 use crate::engine::layout::{turns_per_layer, usable_width_mm};
 use crate::engine::resistance::area_mm2;
 use crate::library::wires::{self, AWG_RANGE};
-use crate::model::{Build, Role, Section, WindingSection, WireSize};
+use crate::model::{Build, Name, Role, Section, WindingSection, WireSize};
 
 /// A wire for one winding: size and strands in parallel.
 #[derive(Debug, Clone, Copy, PartialEq)]
@@ -65,7 +65,7 @@ pub struct Space<'a> {
     iso_wraps: u32,
     section_wraps: u32,
     outer_wraps: u32,
-    notes: Vec<String>,
+    notes: Vec<SearchNote>,
     currents: Vec<Option<f64>>,
     /// True where the winding's wire is chosen from the series (false: held as it is).
     sized: Vec<bool>,
@@ -136,10 +136,9 @@ impl<'a> Space<'a> {
                     return own();
                 }
                 let Some(i) = currents[k].filter(|&i| i > 0.0) else {
-                    notes.push(format!(
-                        "\"{}\" has no current (no current_rms_a, none from an operating point): its wire is kept",
-                        w.name
-                    ));
+                    notes.push(SearchNote::NoCurrent {
+                        winding: w.name.clone(),
+                    });
                     return own();
                 };
                 // A range around the band: the brute-force search sees these too, and the
@@ -176,10 +175,10 @@ impl<'a> Space<'a> {
                     }
                 }
                 if out.is_empty() {
-                    notes.push(format!(
-                        "no wire in the series suits \"{}\" at {i} A: its wire is kept",
-                        w.name
-                    ));
+                    notes.push(SearchNote::NoWireSuits {
+                        winding: w.name.clone(),
+                        current_a: i,
+                    });
                     return own();
                 }
                 sized[k] = true;
@@ -208,7 +207,7 @@ impl<'a> Space<'a> {
                 if base.windings[r].turns == np {
                     v.insert(0, Some(ResetPlace::BifilarWithPrimary));
                 } else {
-                    notes.push("reset and primary turns differ: the reset is not tried bifilar with the primary".into());
+                    notes.push(SearchNote::ResetTurnsDiffer);
                 }
                 v
             }
@@ -268,7 +267,7 @@ impl<'a> Space<'a> {
         &self.sized
     }
 
-    pub fn notes(&self) -> Vec<String> {
+    pub fn notes(&self) -> Vec<SearchNote> {
         self.notes.clone()
     }
 
@@ -306,10 +305,10 @@ impl<'a> Space<'a> {
     }
 
     /// The windings none of whose wire choices falls inside the band.
-    pub fn out_of_band_windings(&self) -> Vec<String> {
+    pub fn out_of_band_windings(&self) -> Vec<Name> {
         (0..self.choices.len())
             .filter(|&k| !self.choices[k].iter().any(|c| self.in_band(k, c)))
-            .map(|k| self.base.windings[k].name.to_string())
+            .map(|k| self.base.windings[k].name.clone())
             .collect()
     }
 
@@ -593,44 +592,42 @@ impl Reasons {
         space: usize,
         settings: &Settings,
         window_mm: f64,
-        out_of_band: &[String],
-    ) -> String {
-        let band = format!(
-            "{:.1}-{:.1} A/mm2",
-            settings.j_min_a_mm2, settings.j_max_a_mm2
-        );
+        out_of_band: Vec<Name>,
+    ) -> Binding {
+        let (j_min_a_mm2, j_max_a_mm2) = (settings.j_min_a_mm2, settings.j_max_a_mm2);
         if space == 0 {
-            return "the space is empty: no wire in the series suits the windings".into();
+            return Binding::EmptySpace;
         }
         if self.in_band == 0 {
-            let who = if out_of_band.is_empty() {
-                "no one choice puts every winding inside it together".to_string()
-            } else {
-                format!("no wire tried puts {} inside it", out_of_band.join(", "))
+            return Binding::CurrentBand {
+                j_min_a_mm2,
+                j_max_a_mm2,
+                windings: out_of_band,
             };
-            return format!(
-                "the current-density band ({band}) binds: {who}; widen it with --j-min / --j-max"
-            );
         }
         if self.in_band_fit == 0 {
             let least = match (self.least_height_mm, self.least_bound_mm) {
-                (Some((h, w)), _) => format!(
-                    "; the shortest needs {h:.2} mm with the allowance against a {w:.2} mm window"
-                ),
-                (None, Some(b)) => format!(
-                    "; the thinnest needs at least {b:.2} mm with the allowance against a {window_mm:.2} mm window"
-                ),
-                _ => String::new(),
+                (Some((height_mm, window_mm)), _) => Some(LeastHeight::Evaluated {
+                    height_mm,
+                    window_mm,
+                }),
+                (None, Some(height_mm)) => Some(LeastHeight::Bound {
+                    height_mm,
+                    window_mm,
+                }),
+                _ => None,
             };
-            return format!(
-                "the window height binds: none of the {} combinations with wire inside the {band} band fits{least}",
-                self.in_band
-            );
+            return Binding::WindowHeight {
+                j_min_a_mm2,
+                j_max_a_mm2,
+                in_band: self.in_band,
+                least,
+            };
         }
         if self.temperature >= self.leakage {
-            "the temperature rise binds: the builds that fit within the band run hotter than the limit".to_string()
+            Binding::TemperatureRise
         } else {
-            "the leakage limit binds: the builds that fit within the band leave more leakage than allowed".to_string()
+            Binding::Leakage
         }
     }
 }

@@ -1,36 +1,20 @@
 //! The technician's winding sheet: its content is derived once from the Build and its
 //! Evaluation here, then rendered as 80-column text (`text`) or one printable HTML page (`html`).
 
-mod build_id;
 pub mod html;
 pub mod readings;
 pub mod svg;
 pub mod text;
 
-pub use build_id::{build_id, fnv1a64};
+pub use crate::files::{build_id, fnv1a64};
 
 use super::text::wire_label;
-use crate::engine::resistance::temperature_ratio;
-use crate::engine::{Evaluation, SectionKind, core_test};
+use crate::engine::{Evaluation, SectionEval, SectionKind, bench, primary_secondary_leakage};
 use crate::model::{BobbinSource, Build, IsolationClass, Role, Section, Tube};
 
-/// Wire left at each end of a winding for the lead to its pin and the soldering (common
-/// practice for bobbins of this size: enough to reach any pin and to strip and tin the end).
-pub const LEAD_ALLOWANCE_MM: f64 = 100.0;
-
-/// Cut lengths are rounded up to this, so the reel is never cut short.
-pub const CUT_ROUND_MM: f64 = 10.0;
-
-/// Tolerance on the expected DC resistance: wire diameter tolerance of IEC 60317 (about +/-1 %
-/// on the diameter, so +/-2 % on the copper area), the hand-wound length (the allowance the
-/// build carries is 10 %) and the meter's lead resistance at milliohm levels (common practice).
-pub const DCR_TOLERANCE: f64 = 0.10;
-
-/// Tolerance on AL of an ungapped ferrite pair as sold (from memory: +/-25 % is the usual figure).
-pub const AL_TOLERANCE: f64 = 0.25;
-
-/// Default temperature at which the technician measures resistance: the bench, 20 C.
-pub const MEASURE_AT_C: f64 = 20.0;
+pub use crate::engine::bench::{
+    AL_TOLERANCE, CUT_ROUND_MM, DCR_TOLERANCE, LEAD_ALLOWANCE_MM, MEASURE_AT_C,
+};
 
 #[derive(Debug, Clone, PartialEq)]
 pub struct WireItem {
@@ -105,10 +89,6 @@ fn plural(n: u32, one: &str, many: &str) -> String {
     format!("{n} {}", if n == 1 { one } else { many })
 }
 
-fn round_up(x: f64, step: f64) -> f64 {
-    (x / step - 1e-9).ceil() * step
-}
-
 fn wraps_in_stack(eval: &Evaluation) -> u32 {
     eval.sections
         .iter()
@@ -133,6 +113,80 @@ fn pin_text(p: &Option<String>) -> String {
 /// The sheet of a build. `measure_at_c` is the temperature the DC resistance will be measured
 /// at (20 C unless told otherwise).
 pub fn sheet(build: &Build, eval: &Evaluation, measure_at_c: f64) -> Sheet {
+    let (bobbin, core) = bobbin_lines(build);
+
+    let wires: Vec<WireItem> = build
+        .windings
+        .iter()
+        .zip(&eval.windings)
+        .zip(bench::cuts(build, eval))
+        .map(|((w, e), cut)| WireItem {
+            winding: w.name.to_string(),
+            role: w.role,
+            wire: wire_label(&w.wire, 1),
+            grade: w.insulation.to_string(),
+            strands: w.strands,
+            turns: w.turns,
+            length_m: e.length_m,
+            allowances: cut.allowances,
+            cut_each_mm: cut.cut_each_mm,
+            cut_total_mm: cut.cut_total_mm,
+        })
+        .collect();
+
+    let materials = materials(build, eval);
+
+    let pins = build
+        .windings
+        .iter()
+        .map(|w| Pin {
+            winding: w.name.to_string(),
+            role: w.role,
+            start: w.start_pin.clone(),
+            finish: w.finish_pin.clone(),
+        })
+        .collect();
+
+    let convention = "Wind every layer of every winding in the same sense: set the winder's \
+        direction once and never reverse it. Each winding starts on its start pin, and that start \
+        is its dot: with one sense for all, the start pins are in phase. Layers run across the \
+        width and back, but the sense of rotation stays the same."
+        .to_string();
+
+    let steps = steps(build, eval);
+    let checks = checks(build, eval, measure_at_c);
+    let cautions = cautions(build);
+    Sheet {
+        title: if build.title.is_empty() {
+            "(untitled build)".into()
+        } else {
+            build.title.clone()
+        },
+        build_id: build_id(build),
+        bobbin,
+        core,
+        fits: eval.fits,
+        verdict: super::text::verdict(eval),
+        wires,
+        materials,
+        pins,
+        convention,
+        steps,
+        measure_at_c,
+        checks,
+        readings: readings::rows(build, eval, measure_at_c),
+        cautions,
+        warnings: eval
+            .warnings
+            .iter()
+            .map(|w| format!("{}: {}", w.code(), w.message()))
+            .collect(),
+        notes: eval.notes.iter().map(ToString::to_string).collect(),
+    }
+}
+
+/// The bobbin in one line (id, window, tube, name) and its core figures, if known.
+fn bobbin_lines(build: &Build) -> (String, Option<String>) {
     let bobbin_id = match &build.bobbin_source {
         BobbinSource::Id(id) => id.clone(),
         BobbinSource::Inline => "described in the build file".into(),
@@ -157,47 +211,12 @@ pub fn sheet(build: &Build, eval: &Evaluation, measure_at_c: f64) -> Sheet {
             .map_or("AL not known".to_string(), |a| format!("AL {a:.0} nH"));
         format!("Ae {:.1} mm2, le {:.1} mm, {al}", c.ae_mm2, c.le_mm)
     });
+    (bobbin, core)
+}
 
-    // Sections that wind each winding (as `winding` or `with`), in stack order.
-    let sections_of = |name: &str| -> Vec<usize> {
-        build
-            .stack
-            .iter()
-            .enumerate()
-            .filter(|(_, s)| match s {
-                Section::Winding(ws) => ws.winding == name || ws.with.as_deref() == Some(name),
-                Section::Tape { .. } => false,
-            })
-            .map(|(i, _)| i)
-            .collect()
-    };
-
-    let wires: Vec<WireItem> = build
-        .windings
-        .iter()
-        .zip(&eval.windings)
-        .map(|(w, e)| {
-            let parks = sections_of(&w.name).len().saturating_sub(1) as u32;
-            let allowances = 2 + parks;
-            let cut_each_mm = round_up(
-                e.length_m * 1000.0 + f64::from(allowances) * LEAD_ALLOWANCE_MM,
-                CUT_ROUND_MM,
-            );
-            WireItem {
-                winding: w.name.to_string(),
-                role: w.role,
-                wire: wire_label(&w.wire, 1),
-                grade: w.insulation.to_string(),
-                strands: w.strands,
-                turns: w.turns,
-                length_m: e.length_m,
-                allowances,
-                cut_each_mm,
-                cut_total_mm: cut_each_mm * f64::from(w.strands),
-            }
-        })
-        .collect();
-
+/// The insulation tape, the margin tape and the sleeving, in words.
+fn materials(build: &Build, eval: &Evaluation) -> Vec<(String, String)> {
+    let b = &build.bobbin;
     let mut materials = Vec::new();
     let wraps = wraps_in_stack(eval);
     materials.push((
@@ -238,200 +257,195 @@ pub fn sheet(build: &Build, eval: &Evaluation, measure_at_c: f64) -> Sheet {
             ),
         ));
     }
+    materials
+}
 
-    let pins = build
-        .windings
-        .iter()
-        .map(|w| Pin {
-            winding: w.name.to_string(),
-            role: w.role,
-            start: w.start_pin.clone(),
-            finish: w.finish_pin.clone(),
-        })
-        .collect();
-
-    let convention = "Wind every layer of every winding in the same sense: set the winder's \
-        direction once and never reverse it. Each winding starts on its start pin, and that start \
-        is its dot: with one sense for all, the start pins are in phase. Layers run across the \
-        width and back, but the sense of rotation stays the same."
-        .to_string();
-
+/// The numbered steps, one per stack section, from the tube outward.
+fn steps(build: &Build, eval: &Evaluation) -> Vec<Step> {
     let mut steps = Vec::new();
     for (i, (sec, s_eval)) in build.stack.iter().zip(&eval.sections).enumerate() {
         let number = steps.len() + 1;
         match (sec, &s_eval.kind) {
             (Section::Tape { .. }, SectionKind::Tape { wraps }) => {
-                steps.push(Step {
-                    number,
-                    section: i,
-                    heading: format!("Tape: {}", plural(*wraps, "wrap", "wraps")),
-                    lines: vec![(
-                        "Tape".into(),
-                        format!(
-                            "{} of {:.1} mm tape over the whole width, flange to flange, \
-                             pulled flat; overlap the end a little",
-                            plural(*wraps, "wrap", "wraps"),
-                            b.window.width_mm
-                        ),
-                    )],
-                });
+                steps.push(tape_step(build, number, i, *wraps));
             }
-            (
-                Section::Winding(_),
-                SectionKind::Winding {
-                    winding,
-                    with,
-                    turns,
-                    turns_per_layer,
-                    layer_count,
-                    last_layer_turns,
-                    layer_tape,
-                    ..
-                },
-            ) => {
-                let mut names = vec![winding.clone()];
-                names.extend(with.clone());
-                let roles: Vec<String> = names
-                    .iter()
-                    .filter_map(|n| build.winding(n))
-                    .map(|w| format!("{} ({})", w.name, w.role.key()))
-                    .collect();
-                let heading = if with.is_some() {
-                    format!("Winding {} bifilar", roles.join(" with "))
-                } else {
-                    format!("Winding {}", roles.join(""))
-                };
-                let mut lines: Vec<(String, String)> = Vec::new();
-                if build.setup.margin_mm > 0.0 {
-                    lines.push((
-                        "Margins".into(),
-                        format!(
-                            "before the first layer, margin tape {:.1} mm wide against each \
-                             flange, built up to {:.2} mm (this section's height)",
-                            build.setup.margin_mm, s_eval.height_mm
-                        ),
-                    ));
-                }
-                for n in &names {
-                    let Some(w) = build.winding(n) else { continue };
-                    let strands = if w.strands > 1 {
-                        format!(
-                            "{} strands of {} {} laid side by side as one turn",
-                            w.strands,
-                            wire_label(&w.wire, 1),
-                            w.insulation
-                        )
-                    } else {
-                        format!("{} {}", wire_label(&w.wire, 1), w.insulation)
-                    };
-                    lines.push((format!("Wire {n}"), strands));
-                }
-                if with.is_some() {
-                    lines.push((
-                        "Bifilar".into(),
-                        format!(
-                            "lay the wires of {} together, side by side, and wind them as one: \
-                             the turns below count the pair once; keep them in the same order \
-                             across every layer",
-                            names.join(" and ")
-                        ),
-                    ));
-                }
-                for n in &names {
-                    let secs = sections_of(n);
-                    let pos = secs.iter().position(|&k| k == i).unwrap_or(0);
-                    let w = build.winding(n);
-                    let start = if pos == 0 {
-                        format!("{n} on {}", pin_text(&w.and_then(|w| w.start_pin.clone())))
-                    } else {
-                        format!(
-                            "{n}: go on with the wire left uncut at step {}",
-                            secs[pos - 1] + 1
-                        )
-                    };
-                    lines.push(("Start".into(), start));
-                }
-                lines.push((
-                    "Direction".into(),
-                    "the one sense for every winding (see the convention)".into(),
-                ));
-                lines.push((
-                    "Turns".into(),
-                    format!(
-                        "{turns} turns in {}: {turns_per_layer} a layer, {last_layer_turns} on the last layer",
-                        plural(*layer_count, "layer", "layers")
-                    ),
-                ));
-                if *layer_tape > 0 && *layer_count > 1 {
-                    lines.push((
-                        "Between".into(),
-                        format!(
-                            "{} of tape between layers",
-                            plural(*layer_tape, "wrap", "wraps")
-                        ),
-                    ));
-                }
-                let side = if layer_count % 2 == 1 {
-                    "the flange opposite the start"
-                } else {
-                    "the flange you started at"
-                };
-                for n in &names {
-                    let secs = sections_of(n);
-                    let pos = secs.iter().position(|&k| k == i).unwrap_or(0);
-                    let w = build.winding(n);
-                    let finish = if pos + 1 == secs.len() {
-                        format!(
-                            "{n} on {} (the wire ends at {side})",
-                            pin_text(&w.and_then(|w| w.finish_pin.clone()))
-                        )
-                    } else {
-                        format!(
-                            "{n}: do not cut; park it at {side}, it goes on at step {}",
-                            secs[pos + 1] + 1
-                        )
-                    };
-                    lines.push(("Finish".into(), finish));
-                }
-                steps.push(Step {
-                    number,
-                    section: i,
-                    heading,
-                    lines,
-                });
+            (Section::Winding(_), SectionKind::Winding { .. }) => {
+                steps.extend(winding_step(build, number, i, s_eval));
             }
             _ => {}
         }
     }
+    steps
+}
 
-    let checks = checks(build, eval, measure_at_c);
-    let cautions = cautions(build);
-    Sheet {
-        title: if build.title.is_empty() {
-            "(untitled build)".into()
-        } else {
-            build.title.clone()
-        },
-        build_id: build_id(build),
-        bobbin,
-        core,
-        fits: eval.fits,
-        verdict: super::text::verdict(eval),
-        wires,
-        materials,
-        pins,
-        convention,
-        steps,
-        measure_at_c,
-        checks,
-        readings: readings::rows(build, eval, measure_at_c),
-        cautions,
-        warnings: eval
-            .warnings
-            .iter()
-            .map(|w| format!("{}: {}", w.code(), w.message()))
-            .collect(),
-        notes: eval.notes.iter().map(ToString::to_string).collect(),
+/// The step of a tape section.
+fn tape_step(build: &Build, number: usize, i: usize, wraps: u32) -> Step {
+    let b = &build.bobbin;
+    let wraps = &wraps;
+    Step {
+        number,
+        section: i,
+        heading: format!("Tape: {}", plural(*wraps, "wrap", "wraps")),
+        lines: vec![(
+            "Tape".into(),
+            format!(
+                "{} of {:.1} mm tape over the whole width, flange to flange, \
+                 pulled flat; overlap the end a little",
+                plural(*wraps, "wrap", "wraps"),
+                b.window.width_mm
+            ),
+        )],
+    }
+}
+
+/// The step of a winding section: its heading and one line per thing to do, in order
+/// (`None` for a tape section).
+fn winding_step(build: &Build, number: usize, i: usize, s_eval: &SectionEval) -> Option<Step> {
+    let SectionKind::Winding {
+        winding,
+        with,
+        turns,
+        turns_per_layer,
+        layer_count,
+        last_layer_turns,
+        layer_tape,
+        ..
+    } = &s_eval.kind
+    else {
+        return None;
+    };
+    let mut names = vec![winding.clone()];
+    names.extend(with.clone());
+    let heading = winding_heading(build, &names, with.is_some());
+    let mut lines: Vec<(String, String)> = Vec::new();
+    lines.extend(margin_line(build, s_eval));
+    for n in &names {
+        let Some(w) = build.winding(n) else { continue };
+        lines.push((format!("Wire {n}"), wire_text(w)));
+    }
+    if with.is_some() {
+        lines.push((
+            "Bifilar".into(),
+            format!(
+                "lay the wires of {} together, side by side, and wind them as one: \
+                 the turns below count the pair once; keep them in the same order \
+                 across every layer",
+                names.join(" and ")
+            ),
+        ));
+    }
+    for n in &names {
+        lines.push(("Start".into(), start_text(build, i, n)));
+    }
+    lines.push((
+        "Direction".into(),
+        "the one sense for every winding (see the convention)".into(),
+    ));
+    lines.push((
+        "Turns".into(),
+        format!(
+            "{turns} turns in {}: {turns_per_layer} a layer, {last_layer_turns} on the last layer",
+            plural(*layer_count, "layer", "layers")
+        ),
+    ));
+    if *layer_tape > 0 && *layer_count > 1 {
+        lines.push((
+            "Between".into(),
+            format!(
+                "{} of tape between layers",
+                plural(*layer_tape, "wrap", "wraps")
+            ),
+        ));
+    }
+    let side = if layer_count % 2 == 1 {
+        "the flange opposite the start"
+    } else {
+        "the flange you started at"
+    };
+    for n in &names {
+        lines.push(("Finish".into(), finish_text(build, i, n, side)));
+    }
+    Some(Step {
+        number,
+        section: i,
+        heading,
+        lines,
+    })
+}
+
+/// The heading of a winding step: "Winding P (primary)", or a bifilar pair.
+fn winding_heading(build: &Build, names: &[crate::model::Name], bifilar: bool) -> String {
+    let roles: Vec<String> = names
+        .iter()
+        .filter_map(|n| build.winding(n))
+        .map(|w| format!("{} ({})", w.name, w.role.key()))
+        .collect();
+    if bifilar {
+        format!("Winding {} bifilar", roles.join(" with "))
+    } else {
+        format!("Winding {}", roles.join(""))
+    }
+}
+
+/// The margin tape to lay before a winding section, when the build has margins.
+fn margin_line(build: &Build, s_eval: &SectionEval) -> Option<(String, String)> {
+    (build.setup.margin_mm > 0.0).then(|| {
+        (
+            "Margins".into(),
+            format!(
+                "before the first layer, margin tape {:.1} mm wide against each \
+                 flange, built up to {:.2} mm (this section's height)",
+                build.setup.margin_mm, s_eval.height_mm
+            ),
+        )
+    })
+}
+
+/// Where a winding starts in section `i`: on its start pin, or going on from the section
+/// where it was parked.
+fn start_text(build: &Build, i: usize, n: &str) -> String {
+    let secs = bench::sections_winding(build, n);
+    let pos = secs.iter().position(|&k| k == i).unwrap_or(0);
+    let w = build.winding(n);
+    if pos == 0 {
+        format!("{n} on {}", pin_text(&w.and_then(|w| w.start_pin.clone())))
+    } else {
+        format!(
+            "{n}: go on with the wire left uncut at step {}",
+            secs[pos - 1] + 1
+        )
+    }
+}
+
+/// Where a winding ends in section `i`: on its finish pin, or parked for a later section.
+fn finish_text(build: &Build, i: usize, n: &str, side: &str) -> String {
+    let secs = bench::sections_winding(build, n);
+    let pos = secs.iter().position(|&k| k == i).unwrap_or(0);
+    let w = build.winding(n);
+    if pos + 1 == secs.len() {
+        format!(
+            "{n} on {} (the wire ends at {side})",
+            pin_text(&w.and_then(|w| w.finish_pin.clone()))
+        )
+    } else {
+        format!(
+            "{n}: do not cut; park it at {side}, it goes on at step {}",
+            secs[pos + 1] + 1
+        )
+    }
+}
+
+/// The wire of a winding in words, with its strands laid side by side.
+fn wire_text(w: &crate::model::Winding) -> String {
+    if w.strands > 1 {
+        format!(
+            "{} strands of {} {} laid side by side as one turn",
+            w.strands,
+            wire_label(&w.wire, 1),
+            w.insulation
+        )
+    } else {
+        format!("{} {}", wire_label(&w.wire, 1), w.insulation)
     }
 }
 
@@ -492,9 +506,12 @@ fn crossing_leads(build: &Build, eval: &Evaluation) -> Vec<String> {
 
 fn checks(build: &Build, eval: &Evaluation, measure_at_c: f64) -> Vec<Check> {
     let mut out = Vec::new();
-    let ratio = temperature_ratio(build.setup.temperature_c, measure_at_c);
-    for (w, e) in build.windings.iter().zip(&eval.windings) {
-        let r = e.dcr_ohm * ratio;
+    for (w, dcr) in build
+        .windings
+        .iter()
+        .zip(bench::dcr_at_bench(build, eval, measure_at_c))
+    {
+        let r = dcr.expected;
         let pins = match (&w.start_pin, &w.finish_pin) {
             (Some(a), Some(b)) => format!("between pins {a} and {b}"),
             _ => "between its start and finish".into(),
@@ -510,8 +527,8 @@ fn checks(build: &Build, eval: &Evaluation, measure_at_c: f64) -> Vec<Check> {
             expected: format!(
                 "{} at {measure_at_c:.0} C ({} to {}, +/-{:.0} %)",
                 ohms(r),
-                ohms(r * (1.0 - DCR_TOLERANCE)),
-                ohms(r * (1.0 + DCR_TOLERANCE)),
+                ohms(dcr.low),
+                ohms(dcr.high),
                 DCR_TOLERANCE * 100.0
             ),
             how: format!(
@@ -520,9 +537,22 @@ fn checks(build: &Build, eval: &Evaluation, measure_at_c: f64) -> Vec<Check> {
             ),
         });
     }
+    out.extend(inductance_checks(build, eval));
+    out.push(polarity_check(build));
+    out.extend(hipot_check(build));
+    out
+}
+
+/// The magnetising inductance (from AL) and the primary-secondary leakage, where known.
+fn inductance_checks(build: &Build, eval: &Evaluation) -> Vec<Check> {
+    let mut out = Vec::new();
     let primary = build.first_of(Role::Primary);
-    if let (Some(p), Some(al)) = (primary, build.bobbin.core.as_ref().and_then(|c| c.al_nh)) {
-        let l = core_test::inductance_uh(al, p.turns);
+    if let (Some(p), Some(al), Some(spread)) = (
+        primary,
+        build.bobbin.core.as_ref().and_then(|c| c.al_nh),
+        bench::magnetising_at_bench(build),
+    ) {
+        let l = spread.expected;
         out.push(Check {
             what: format!("Magnetising inductance of {}", p.name),
             value: Some(l),
@@ -530,8 +560,8 @@ fn checks(build: &Build, eval: &Evaluation, measure_at_c: f64) -> Vec<Check> {
                 "{} (AL {al:.0} nH x {}^2; {} to {} for the usual +/-{:.0} % of AL)",
                 henries(l),
                 p.turns,
-                henries(l * (1.0 - AL_TOLERANCE)),
-                henries(l * (1.0 + AL_TOLERANCE)),
+                henries(spread.low),
+                henries(spread.high),
                 AL_TOLERANCE * 100.0
             ),
             how: "at the primary, every other winding open, core assembled and clamped, at a \
@@ -541,10 +571,7 @@ fn checks(build: &Build, eval: &Evaluation, measure_at_c: f64) -> Vec<Check> {
         });
     }
     if let (Some(p), Some(s)) = (primary, build.first_of(Role::Secondary))
-        && let Some(l) = eval
-            .leakage
-            .iter()
-            .find(|l| l.from == p.name && l.to == s.name)
+        && let Some(l) = primary_secondary_leakage(build, eval)
     {
         out.push(Check {
             what: format!("Leakage inductance {} - {}", p.name, s.name),
@@ -560,12 +587,17 @@ fn checks(build: &Build, eval: &Evaluation, measure_at_c: f64) -> Vec<Check> {
             ),
         });
     }
+    out
+}
+
+/// The polarity: every start pin in phase with the primary's.
+fn polarity_check(build: &Build) -> Check {
     let starts: Vec<String> = build
         .windings
         .iter()
         .filter_map(|w| w.start_pin.as_ref().map(|p| format!("{} pin {p}", w.name)))
         .collect();
-    out.push(Check {
+    Check {
         what: "Polarity".into(),
         value: None,
         expected: format!(
@@ -580,11 +612,15 @@ fn checks(build: &Build, eval: &Evaluation, measure_at_c: f64) -> Vec<Check> {
               compare each winding on a two-channel scope, grounds on the finish pins; or use \
               the meter's phase test"
             .into(),
-    });
+    }
+}
+
+/// The electric-strength test, for basic or reinforced isolation.
+fn hipot_check(build: &Build) -> Option<Check> {
     if let Some(iso) = &build.isolation
         && iso.class != IsolationClass::Functional
     {
-        out.push(Check {
+        return Some(Check {
             what: "Electric strength (hipot), primary side to secondary side".into(),
             value: None,
             expected: format!(
@@ -601,7 +637,7 @@ fn checks(build: &Build, eval: &Evaluation, measure_at_c: f64) -> Vec<Check> {
                 .into(),
         });
     }
-    out
+    None
 }
 
 fn cautions(build: &Build) -> Vec<String> {

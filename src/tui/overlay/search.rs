@@ -28,6 +28,8 @@ impl App {
         if outcome.candidates.is_empty() {
             let why = outcome
                 .binding
+                .as_ref()
+                .map(crate::report::search::binding_in_planner)
                 .unwrap_or_else(|| "no candidate meets the constraints".into());
             self.info(format!("search found nothing ({counts}): {why}"));
             return;

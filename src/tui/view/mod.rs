@@ -114,26 +114,10 @@ pub(crate) fn fit(s: &str, width: usize) -> String {
 
 /// Pad or cut text to exactly a display width.
 pub(crate) fn pad(s: &str, width: usize) -> String {
-    let s = fit(s, width);
-    let w = s.width();
-    format!("{s}{}", " ".repeat(width.saturating_sub(w)))
+    crate::report::textfmt::pad(s, width)
 }
 
 /// Word-wrap text to a display width (a word longer than the width is cut).
 pub(crate) fn wrap(text: &str, width: usize) -> Vec<String> {
-    let mut lines = Vec::new();
-    let mut line = String::new();
-    for word in text.split_whitespace() {
-        if !line.is_empty() && line.width() + 1 + word.width() > width {
-            lines.push(std::mem::take(&mut line));
-        }
-        if !line.is_empty() {
-            line.push(' ');
-        }
-        line.push_str(&fit(word, width));
-    }
-    if !line.is_empty() {
-        lines.push(line);
-    }
-    lines
+    crate::report::textfmt::wrap_cut(text, width)
 }

@@ -6,7 +6,7 @@ use ratatui::Terminal;
 use ratatui::backend::TestBackend;
 use ratatui::buffer::Buffer;
 use ratatui::crossterm::event::{KeyCode, KeyEvent, KeyModifiers};
-use turnstack::library::demo::demo_build;
+use turnstack::files::demo_build;
 use turnstack::tui::theme::Theme;
 use turnstack::tui::{App, view};
 

@@ -2,7 +2,7 @@
 //! hash of the build's canonical TOML and its bobbin's, so it ignores comments and layout of
 //! the file but changes when any figure of the build or its bobbin changes.
 
-use crate::files::{bobbin_to_toml, build_to_toml};
+use super::{bobbin_to_toml, build_to_toml};
 use crate::model::Build;
 
 /// FNV-1a 64-bit offset basis and prime (Fowler, Noll, Vo; IETF draft-eastlake-fnv).

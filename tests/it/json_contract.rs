@@ -1,0 +1,253 @@
+//! The keys of `check --json` against the contract: the key lists of the build-format spec
+//! ("The JSON report: `check FILE --json`") and the additions FORMAT.md documents ("JSON
+//! additions", "JSON extras"), written out here, so a renamed, lost or undocumented key fails.
+
+use crate::common::example;
+use serde_json::Value;
+use std::collections::BTreeSet;
+use turnstack::report::json;
+
+/// Keys the spec requires in every report, per object.
+const TOP_REQUIRED: &[&str] = &[
+    "fits",
+    "build_height_mm",
+    "height_with_allowance_mm",
+    "window_height_mm",
+    "fill_factor",
+    "sections",
+    "windings",
+    "leakage",
+    "warnings",
+];
+/// FORMAT.md's extras and additions at the top level (`converter` and `losses` only with an
+/// operating point).
+const TOP_EXTRA: &[&str] = &[
+    "format",
+    "title",
+    "bobbin",
+    "usable_width_mm",
+    "spare_height_mm",
+    "window_width_mm",
+    "temperature_c",
+    "notes",
+    "limits",
+    "converter",
+    "losses",
+];
+const WINDING_SECTION_REQUIRED: &[&str] = &[
+    "kind",
+    "winding",
+    "with",
+    "turns",
+    "turns_per_layer",
+    "layers",
+    "height_mm",
+    "mlt_mm",
+];
+const WINDING_SECTION_EXTRA: &[&str] = &[
+    "y_mm",
+    "pitch_mm",
+    "layer_height_mm",
+    "last_layer_turns",
+    "layer_tape",
+    "past_window",
+    "layer_list",
+];
+const TAPE_SECTION_REQUIRED: &[&str] = &["kind", "wraps", "height_mm"];
+const TAPE_SECTION_EXTRA: &[&str] = &["y_mm", "past_window"];
+const LAYER_KEYS: &[&str] = &["y_mm", "height_mm", "turns", "mlt_mm", "partial"];
+const WINDING_REQUIRED: &[&str] = &["name", "turns", "length_m", "mlt_mm", "dcr_ohm"];
+/// `ac_factor` and `rac_ohm` are required when the setup gives a frequency.
+const WINDING_AC: &[&str] = &["ac_factor", "rac_ohm"];
+const WINDING_EXTRA: &[&str] = &[
+    "role",
+    "strands",
+    "bare_mm",
+    "od_mm",
+    "copper_area_mm2",
+    "current_density_a_mm2",
+    "skin_depth_mm",
+    "ac_factor_waveform",
+    "rac_waveform_ohm",
+    "current_rms_a",
+    "current_source",
+    "current_model_rms_a",
+    "copper_loss_w",
+];
+const LEAKAGE_KEYS: &[&str] = &["from", "to", "referred_to", "uh"];
+const WARNING_REQUIRED: &[&str] = &["code", "message"];
+const WARNING_EXTRA: &[&str] = &["section", "winding", "about"];
+const CONVERTER_REQUIRED: &[&str] = &[
+    "reset_duty_limit",
+    "switch_voltage_v",
+    "duty_needed_at_vin_min",
+];
+/// `flux_swing_worst_mt` with core data, `flux_headroom_mt` with a `[material]`.
+const CONVERTER_CORE: &[&str] = &["flux_swing_worst_mt", "flux_headroom_mt"];
+const CONVERTER_EXTRA: &[&str] = &[
+    "reset_side",
+    "duty_max",
+    "steady_duty_ceiling",
+    "reset_duty_limit_primary_side",
+    "duty_available",
+    "duty_needed_at_vin_max",
+    "duty_margin",
+    "duty_used_at_vin_min",
+    "reset_time_us",
+    "reset_time_worst_us",
+    "flux_swing_steady_mt",
+    "al_nh",
+    "al_source",
+    "magnetising_uh",
+    "magnetising_peak_a",
+    "magnetising_peak_worst_a",
+    "reset_peak_a",
+    "reset_peak_worst_a",
+    "reset_rms_a",
+    "reset_current_density_a_mm2",
+];
+const LOSSES_REQUIRED: &[&str] = &[
+    "copper_loss_w",
+    "total_loss_w",
+    "rise_limit_c",
+    "surface_estimated",
+    "windings_without_current",
+];
+const LOSSES_EXTRA: &[&str] = &[
+    "core_loss_w",
+    "core_loss_kw_m3",
+    "core_volume_mm3",
+    "core_swing_mt",
+    "core_duty",
+    "core_reset_fraction",
+    "surface_area_cm2",
+    "temperature_rise_c",
+];
+/// FORMAT.md, "Limits": each entry of `limits`.
+const LIMIT_KEYS: &[&str] = &[
+    "constraint",
+    "margin",
+    "used",
+    "allowed",
+    "unit",
+    "about",
+    "broken",
+];
+
+/// The object's keys hold every required key and none outside `required + extra`.
+fn holds(what: &str, v: &Value, required: &[&str], extra: &[&str]) -> Result<(), String> {
+    let Some(map) = v.as_object() else {
+        return Err(format!("{what}: not an object"));
+    };
+    let keys: BTreeSet<&str> = map.keys().map(String::as_str).collect();
+    let missing: Vec<_> = required.iter().filter(|k| !keys.contains(*k)).collect();
+    let allowed: BTreeSet<&str> = required.iter().chain(extra).copied().collect();
+    let unknown: Vec<_> = keys.difference(&allowed).collect();
+    if missing.is_empty() && unknown.is_empty() {
+        Ok(())
+    } else {
+        Err(format!(
+            "{what}: missing {missing:?}, not documented {unknown:?}"
+        ))
+    }
+}
+
+fn check_report(name: &str, j: &Value, with_frequency: bool) -> Result<(), String> {
+    holds(name, j, TOP_REQUIRED, TOP_EXTRA)?;
+    for (i, s) in j["sections"].as_array().unwrap().iter().enumerate() {
+        let what = format!("{name} section {i}");
+        match s["kind"].as_str() {
+            Some("winding") => {
+                holds(&what, s, WINDING_SECTION_REQUIRED, WINDING_SECTION_EXTRA)?;
+                for l in s["layer_list"].as_array().unwrap() {
+                    holds(&what, l, LAYER_KEYS, &[])?;
+                }
+            }
+            Some("tape") => holds(&what, s, TAPE_SECTION_REQUIRED, TAPE_SECTION_EXTRA)?,
+            other => return Err(format!("{what}: kind {other:?}")),
+        }
+    }
+    for w in j["windings"].as_array().unwrap() {
+        if with_frequency {
+            let required: Vec<&str> = WINDING_REQUIRED.iter().chain(WINDING_AC).copied().collect();
+            holds(&format!("{name} winding"), w, &required, WINDING_EXTRA)?;
+        } else {
+            let extra: Vec<&str> = WINDING_EXTRA.iter().chain(WINDING_AC).copied().collect();
+            holds(&format!("{name} winding"), w, WINDING_REQUIRED, &extra)?;
+        }
+    }
+    for l in j["leakage"].as_array().unwrap() {
+        holds(&format!("{name} leakage"), l, LEAKAGE_KEYS, &[])?;
+    }
+    for w in j["warnings"].as_array().unwrap() {
+        holds(
+            &format!("{name} warning"),
+            w,
+            WARNING_REQUIRED,
+            WARNING_EXTRA,
+        )?;
+    }
+    if let Some(c) = j.get("converter") {
+        let extra: Vec<&str> = CONVERTER_EXTRA
+            .iter()
+            .chain(CONVERTER_CORE)
+            .copied()
+            .collect();
+        holds(&format!("{name} converter"), c, CONVERTER_REQUIRED, &extra)?;
+    }
+    if let Some(l) = j.get("losses") {
+        holds(&format!("{name} losses"), l, LOSSES_REQUIRED, LOSSES_EXTRA)?;
+    }
+    for l in j["limits"].as_array().unwrap() {
+        holds(&format!("{name} limit"), l, LIMIT_KEYS, &[])?;
+    }
+    Ok(())
+}
+
+/// Every example's `check --json` carries the spec's keys and only documented ones.
+#[test]
+fn check_json_keys_are_the_documented_set() {
+    for name in [
+        "first-try",
+        "bench-forward",
+        "mains-isolated",
+        "salvaged-too-small",
+    ] {
+        let (b, e) = example(name);
+        let j = json::report(&b, &e).to_value();
+        let with_frequency = b.setup.frequency_khz.is_some();
+        check_report(name, &j, with_frequency).unwrap();
+    }
+}
+
+/// bench-forward has an operating point, core data and a `[material]`: its converter object
+/// carries the two keys the spec makes conditional on them, and a winding's `with` is present
+/// (as `null`) even when the section is not bifilar.
+#[test]
+fn conditional_keys_are_present_when_their_inputs_are() {
+    let (b, e) = example("bench-forward");
+    let j = json::report(&b, &e).to_value();
+    for k in CONVERTER_CORE {
+        assert!(j["converter"].get(*k).is_some(), "converter lacks {k}");
+    }
+    assert!(j.get("losses").is_some());
+    let first = j["sections"]
+        .as_array()
+        .unwrap()
+        .iter()
+        .find(|s| s["kind"] == "winding")
+        .unwrap();
+    assert!(first.get("with").is_some());
+}
+
+/// The check itself fails on a lost key and on an undocumented one.
+#[test]
+fn the_key_check_catches_a_lost_and_an_unknown_key() {
+    let (b, e) = example("first-try");
+    let mut j = json::report(&b, &e).to_value();
+    let mut lost = j.clone();
+    lost.as_object_mut().unwrap().remove("fill_factor");
+    assert!(check_report("lost", &lost, false).is_err());
+    j["windings"][0]["dcr_mohm"] = Value::from(1.0);
+    assert!(check_report("unknown", &j, false).is_err());
+}
