@@ -115,22 +115,23 @@ pub fn pair_weights(x: usize, y: usize, y_per_turn: f64) -> impl Fn(usize) -> f6
 }
 
 /// Leakage inductance (H) between windings `x` and `y` (index, turns), referred to `x`.
-/// `winding_count` is the number of windings the indices count.
+/// `wound_breadth_mm` is `b_w`, the breadth the turns occupy (the window width less both
+/// margins); `winding_count` is the number of windings the indices count.
 pub fn leakage_h(
     laid: &[Laid],
     tube: &Tube,
-    window_width_mm: f64,
+    wound_breadth_mm: f64,
     winding_count: usize,
     x: (usize, u32),
     y: (usize, u32),
 ) -> f64 {
     let (xi, nx) = x;
     let (yi, ny) = y;
-    if ny == 0 || window_width_mm <= 0.0 || xi >= winding_count || yi >= winding_count {
+    if ny == 0 || wound_breadth_mm <= 0.0 || xi >= winding_count || yi >= winding_count {
         return 0.0;
     }
     let weight = pair_weights(xi, yi, -f64::from(nx) / f64::from(ny));
     let mut energy = 0.0;
     for_each_slab_by(laid, weight, |s| energy += slab_energy_m2(&s, tube));
-    MU0_H_PER_M / (window_width_mm * MM) * energy
+    MU0_H_PER_M / (wound_breadth_mm * MM) * energy
 }

@@ -27,12 +27,14 @@ mod warnings;
 pub use converter::ConverterEval;
 pub use currents::CurrentSource;
 pub use evaluation::{
-    AcFigures, Evaluation, LayerEval, LeakageEval, SectionEval, SectionKind, WindingEval,
+    AcFigures, Evaluation, LayerEval, LeakageEval, SectionEval, SectionKind, TemperatureSource,
+    WindingEval,
 };
 pub use limits::{Constraint, Limit};
 pub use losses::LossEval;
 pub use magnetics::AlSource;
 pub use remarks::{Note, Warning, WarningAt, WarningKind};
+pub use thermal::InsulationPart;
 pub use validate::{Invalid, Place, validate, validate_bobbin};
 
 use crate::model::Build;

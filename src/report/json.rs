@@ -109,7 +109,8 @@ pub fn report(build: &Build, eval: &Evaluation) -> Value {
         "usable_width_mm": eval.usable_width_mm,
         "spare_height_mm": eval.spare_height_mm,
         "fill_factor": eval.fill_factor,
-        "temperature_c": build.setup.temperature_c,
+        "temperature_c": eval.temperature_c,
+        "temperature_source": eval.temperature_source.key(),
         "sections": sections,
         "windings": windings,
         "leakage": leakage,
@@ -137,6 +138,7 @@ pub fn report(build: &Build, eval: &Evaluation) -> Value {
         conv["duty_available"] = json!(c.duty_available);
         conv["duty_needed_at_vin_max"] = json!(c.duty_needed_at_vin_max);
         conv["duty_margin"] = json!(c.duty_margin);
+        conv["duty_needed_total_at_vin_min"] = json!(c.duty_needed_total_at_vin_min);
         conv["duty_used_at_vin_min"] = json!(c.duty_used_at_vin_min);
         conv["reset_time_us"] = json!(c.reset_time_us);
         conv["reset_time_worst_us"] = json!(c.reset_time_worst_us);
@@ -150,6 +152,11 @@ pub fn report(build: &Build, eval: &Evaluation) -> Value {
             ("reset_peak_worst_a", c.reset_peak_worst_a),
             ("reset_rms_a", c.reset_rms_a),
             ("reset_current_density_a_mm2", c.reset_current_density_a_mm2),
+            ("switch_rating_v", c.switch_rating_v),
+            ("leakage_ps_uh", c.leakage_ps_uh),
+            ("clamp_peak_a", c.clamp_peak_a),
+            ("clamp_loss_w", c.clamp_loss_w),
+            ("duty_lost_to_leakage", c.duty_lost_to_leakage),
         ] {
             if let Some(v) = v {
                 conv[key] = json!(v);
@@ -167,6 +174,9 @@ pub fn report(build: &Build, eval: &Evaluation) -> Value {
             "rise_limit_c": l.rise_limit_c,
             "surface_estimated": l.surface_estimated,
             "windings_without_current": l.windings_without_current,
+            "ambient_c": l.ambient_c,
+            "class_limit_c": l.class_limit_c,
+            "class_binding": l.class_binding.key(),
         });
         for (key, x) in [
             ("core_loss_w", l.core_loss_w),
@@ -177,6 +187,7 @@ pub fn report(build: &Build, eval: &Evaluation) -> Value {
             ("core_reset_fraction", l.core_reset_fraction),
             ("surface_area_cm2", l.surface_area_cm2),
             ("temperature_rise_c", l.temperature_rise_c),
+            ("hot_spot_c", l.hot_spot_c),
         ] {
             if let Some(x) = x {
                 v[key] = json!(x);
@@ -193,5 +204,6 @@ pub fn report(build: &Build, eval: &Evaluation) -> Value {
             }))
             .collect::<Vec<_>>()
     );
+    out["failures"] = json!(eval.failures().iter().map(|c| c.key()).collect::<Vec<_>>());
     out
 }

@@ -3,7 +3,8 @@
 
 use super::wrap;
 use crate::engine::{
-    AlSource, ConverterEval, CurrentSource, Evaluation, Limit, LossEval, SectionKind, WarningAt,
+    AlSource, ConverterEval, CurrentSource, Evaluation, Limit, LossEval, SectionKind,
+    TemperatureSource, WarningAt,
 };
 use crate::model::{BobbinSource, Build, ResetSide, Tube};
 use std::fmt::Write as _;
@@ -23,6 +24,49 @@ pub fn verdict(eval: &Evaluation) -> String {
             eval.height_with_allowance_mm, eval.window_height_mm, -eval.spare_height_mm
         )
     }
+}
+
+/// A temperature as the report prints it: as given when whole, else to 0.1 C.
+fn temperature_figure(t: f64) -> String {
+    if t.fract() == 0.0 {
+        format!("{t}")
+    } else {
+        format!("{t:.1}")
+    }
+}
+
+/// Where the winding temperature came from, when it was not given.
+fn temperature_how(eval: &Evaluation) -> String {
+    match (eval.temperature_source, &eval.losses) {
+        (TemperatureSource::AmbientPlusRise, Some(l)) => format!(
+            " (ambient {} C + predicted rise)",
+            temperature_figure(l.ambient_c)
+        ),
+        (TemperatureSource::Ambient, _) => " (ambient, no rise predicted)".into(),
+        (TemperatureSource::Default, _) => " (default)".into(),
+        _ => String::new(),
+    }
+}
+
+/// The last line of the report: whether the design passes, and if not what fails.
+pub fn outcome(eval: &Evaluation) -> String {
+    let failures = eval.failures();
+    if failures.is_empty() {
+        return "PASSES: the build fits and every limit holds".into();
+    }
+    let what: Vec<String> = failures
+        .iter()
+        .map(|c| match eval.limits.iter().find(|l| l.constraint == *c) {
+            Some(l) => format!(
+                "{} ({} against {})",
+                c.key(),
+                limit_figure(l, l.used),
+                limit_figure(l, l.allowed)
+            ),
+            None => c.key().to_string(),
+        })
+        .collect();
+    format!("FAILS: {}", what.join(", "))
 }
 
 pub fn bobbin_line(build: &Build) -> String {
@@ -70,8 +114,12 @@ pub fn render(build: &Build, eval: &Evaluation) -> String {
         .frequency_khz
         .map_or("no frequency".to_string(), |f| format!("{f} kHz"));
     let setup = format!(
-        "setup: {} C, allowance x{:.2}, margins {:.2} mm, tape {:.3} mm/wrap, {freq}",
-        s.temperature_c, s.bulge, s.margin_mm, s.tape_mm
+        "setup: {} C{}, allowance x{:.2}, margins {:.2} mm, tape {:.3} mm/wrap, {freq}",
+        temperature_figure(eval.temperature_c),
+        temperature_how(eval),
+        s.bulge,
+        s.margin_mm,
+        s.tape_mm
     );
     for l in wrap(&setup, WIDTH, "  ") {
         let _ = writeln!(o, "{l}");
@@ -154,7 +202,11 @@ pub fn render(build: &Build, eval: &Evaluation) -> String {
         }
     }
 
-    let _ = writeln!(o, "\nWindings, resistance at {} C", s.temperature_c);
+    let _ = writeln!(
+        o,
+        "\nWindings, resistance at {} C",
+        temperature_figure(eval.temperature_c)
+    );
     let _ = writeln!(
         o,
         "  name   role       turns  wire             length m  MLT mm   DCR ohm  A/mm2"
@@ -251,6 +303,10 @@ pub fn render(build: &Build, eval: &Evaluation) -> String {
         for l in wrap(&format!("note: {n}"), WIDTH - 2, "    ") {
             let _ = writeln!(o, "  {l}");
         }
+    }
+    let _ = writeln!(o);
+    for l in wrap(&outcome(eval), WIDTH, "  ") {
+        let _ = writeln!(o, "{l}");
     }
     o
 }
@@ -379,10 +435,32 @@ fn converter_block(o: &mut String, c: &ConverterEval) {
     );
     let _ = writeln!(
         o,
-        "  duty needed at vin min {:>7.1} %   margin {:+.1} points",
-        pct(c.duty_needed_at_vin_min),
+        "  duty needed at vin min {:>7.1} %   ideal switch",
+        pct(c.duty_needed_at_vin_min)
+    );
+    let drop = c.duty_needed_total_at_vin_min
+        - c.duty_lost_to_leakage.unwrap_or(0.0)
+        - c.duty_needed_at_vin_min;
+    let mut extra = Vec::new();
+    if drop > 0.0 {
+        extra.push(format!("+ switch drop {:.2} %", pct(drop)));
+    }
+    if let Some(lost) = c.duty_lost_to_leakage {
+        extra.push(format!("+ leakage {:.2} %", pct(lost)));
+    }
+    let with = if extra.is_empty() {
+        String::new()
+    } else {
+        format!("{} = ", extra.join(", "))
+    };
+    let line = format!(
+        "{with}{:.1} %, margin {:+.1} points",
+        pct(c.duty_needed_total_at_vin_min),
         pct(c.duty_margin)
     );
+    for l in wrap(&line, WIDTH - 4, "  ") {
+        let _ = writeln!(o, "    {l}");
+    }
     let _ = writeln!(
         o,
         "  duty needed at vin max {:>7.1} %",
@@ -393,11 +471,21 @@ fn converter_block(o: &mut String, c: &ConverterEval) {
         "  reset time             {:>7.2} us steady at vin min, {:.2} us worst case",
         c.reset_time_us, c.reset_time_worst_us
     );
+    let rating = c
+        .switch_rating_v
+        .map_or(String::new(), |r| format!(", rated {r:.0} V"));
     let _ = writeln!(
         o,
-        "  switch off-state       {:>7.1} V (plus the leakage spike)",
+        "  switch off-state       {:>7.1} V plus a spike set by the clamp{rating}",
         c.switch_voltage_v
     );
+    if let (Some(loss), Some(pk), Some(l)) = (c.clamp_loss_w, c.clamp_peak_a, c.leakage_ps_uh) {
+        let _ = writeln!(
+            o,
+            "  clamp or snubber       {:>7.3} W: 1/2 x {l:.2} uH (P-S) x ({pk:.3} A)^2 x f",
+            loss
+        );
+    }
     match c.flux_swing_worst_mt {
         Some(b) => {
             let head = c
@@ -521,6 +609,17 @@ fn losses_block(o: &mut String, l: &LossEval) {
                 "  temperature rise       {t:>7.1} C (McLyman) against a {:.0} C limit",
                 l.rise_limit_c
             );
+            if let Some(hot) = l.hot_spot_c {
+                let class = crate::engine::thermal::class_letter(l.class_limit_c)
+                    .map_or(String::new(), |c| format!("class {c} "));
+                let _ = writeln!(
+                    o,
+                    "  hot spot               {hot:>7.1} C in {:.0} C air, against {class}{:.0} C ({})",
+                    l.ambient_c,
+                    l.class_limit_c,
+                    l.class_binding.key()
+                );
+            }
         }
         _ => {
             let _ = writeln!(

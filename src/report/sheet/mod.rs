@@ -488,7 +488,7 @@ fn crossing_leads(build: &Build, eval: &Evaluation) -> Vec<String> {
 
 fn checks(build: &Build, eval: &Evaluation, measure_at_c: f64) -> Vec<Check> {
     let mut out = Vec::new();
-    let ratio = temperature_ratio(build.setup.temperature_c, measure_at_c);
+    let ratio = temperature_ratio(eval.temperature_c, measure_at_c);
     for (w, e) in build.windings.iter().zip(&eval.windings) {
         let r = e.dcr_ohm * ratio;
         let pins = match (&w.start_pin, &w.finish_pin) {

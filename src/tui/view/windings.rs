@@ -21,7 +21,7 @@ fn grade_short(g: Insulation) -> &'static str {
 
 pub fn draw(app: &App, frame: &mut Frame, area: Rect) {
     let t = &app.theme;
-    let temp = app.build.setup.temperature_c;
+    let temp = app.eval.temperature_c;
     let block = panel(
         app,
         // The fill factor rides here: at 80x24 the check panel has no row left for it.
