@@ -9,6 +9,7 @@ mod cli;
 mod converter_examples;
 mod converter_forward;
 mod core_relations;
+mod fidelity;
 mod fit_ranking;
 mod golden_outputs;
 mod layout_cases;
