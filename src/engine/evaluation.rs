@@ -11,6 +11,7 @@ use super::losses::{self, LossEval};
 use super::memo::Memo;
 use super::remarks::{Note, Warning, WarningAt, WarningKind};
 use super::resistance::{area_mm2, ohm_per_m, rho_ohm_m};
+use super::stress::{self, StressEval};
 use super::thermal;
 use super::validate::validate_resolved;
 use super::warnings;
@@ -36,6 +37,8 @@ pub struct Evaluation {
     pub windings: Vec<WindingEval>,
     pub leakage: Vec<LeakageEval>,
     pub converter: Option<ConverterEval>,
+    /// Voltage between adjacent layers, bifilar pairs and sections (with an operating point).
+    pub stress: Option<StressEval>,
     /// Copper, core, total loss and temperature rise (with an operating point).
     pub losses: Option<LossEval>,
     /// What limits the design, the binding constraint first.
@@ -122,6 +125,9 @@ pub struct WindingEval {
     /// `I_rms^2 x` the waveform AC resistance (or the sinusoidal one, or DC, when that is
     /// all there is; see the format document).
     pub copper_loss_w: Option<f64>,
+    /// The highest voltage between two adjacent layers of this winding's sections (with an
+    /// operating point; see `engine::stress`).
+    pub layer_voltage_v: Option<f64>,
 }
 
 #[derive(Debug, Clone, PartialEq)]
@@ -186,6 +192,15 @@ pub(super) fn evaluate(build: &Build, memo: &mut Memo) -> Evaluation {
         0.0
     };
 
+    let stress = converter
+        .as_ref()
+        .and_then(|c| stress::evaluate(build, &laid, c));
+    let mut windings = windings;
+    if let Some(st) = &stress {
+        for (w, v) in windings.iter_mut().zip(&st.layer_voltage_v) {
+            w.layer_voltage_v = *v;
+        }
+    }
     // Last, since the layers move into the sections.
     let sections = laid
         .into_iter()
@@ -208,6 +223,7 @@ pub(super) fn evaluate(build: &Build, memo: &mut Memo) -> Evaluation {
         leakage,
         limits: Vec::new(),
         converter,
+        stress,
         losses,
         warnings: Vec::new(),
         notes: Vec::new(),
@@ -355,6 +371,7 @@ fn electrical(
                 current_source: None,
                 current_model_rms_a: None,
                 copper_loss_w: None,
+                layer_voltage_v: None,
             }
         })
         .collect();

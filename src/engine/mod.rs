@@ -20,6 +20,7 @@ pub mod memo;
 mod remarks;
 pub mod resistance;
 pub mod search;
+pub mod stress;
 pub mod thermal;
 pub mod validate;
 mod warnings;

@@ -70,6 +70,9 @@ pub fn report(build: &Build, eval: &Evaluation) -> Value {
             if let Some(i) = w.current_model_rms_a {
                 v["current_model_rms_a"] = json!(i);
             }
+            if let Some(p) = w.layer_voltage_v {
+                v["layer_voltage_v"] = json!(p);
+            }
             if let Some(p) = w.copper_loss_w {
                 v["copper_loss_w"] = json!(p);
             }
@@ -204,6 +207,24 @@ pub fn report(build: &Build, eval: &Evaluation) -> Value {
             }))
             .collect::<Vec<_>>()
     );
+    if let Some(st) = &eval.stress {
+        let pair = |p: &crate::engine::stress::PairStress| {
+            json!({
+                "inner_section": p.inner_section, "outer_section": p.outer_section,
+                "inner": p.inner, "outer": p.outer, "voltage_v": p.voltage_v,
+                "limit_v": p.limit_v, "wraps": p.wraps,
+            })
+        };
+        out["voltage_stress"] = json!({
+            "volts_per_turn_v": st.volts_per_turn_v,
+            "layers": st.layers.iter().map(|l| json!({
+                "section": l.section, "winding": l.winding, "voltage_v": l.voltage_v,
+                "limit_v": l.limit_v, "layer_tape": l.layer_tape,
+            })).collect::<Vec<_>>(),
+            "bifilar": st.bifilar.iter().map(pair).collect::<Vec<_>>(),
+            "between_sections": st.between_sections.iter().map(pair).collect::<Vec<_>>(),
+        });
+    }
     out["failures"] = json!(eval.failures().iter().map(|c| c.key()).collect::<Vec<_>>());
     out
 }

@@ -274,6 +274,9 @@ pub fn render(build: &Build, eval: &Evaluation) -> String {
     if let Some(c) = &eval.converter {
         converter_block(&mut o, c);
     }
+    if let Some(st) = &eval.stress {
+        stress_block(&mut o, st);
+    }
     if let Some(l) = &eval.losses {
         losses_block(&mut o, l);
     }
@@ -543,6 +546,57 @@ fn converter_block(o: &mut String, c: &ConverterEval) {
             };
             let _ = writeln!(o, "    {j:.2} A/mm2 in the reset wire, {why}");
         }
+    }
+}
+
+fn stress_block(o: &mut String, st: &crate::engine::stress::StressEval) {
+    let _ = writeln!(
+        o,
+        "\nVoltage stress ({:.2} V a turn at most; usual working figures, from memory)",
+        st.volts_per_turn_v
+    );
+    let mark = |v: f64, lim: f64| if v > lim { "  OVER" } else { "" };
+    for l in &st.layers {
+        let _ = writeln!(
+            o,
+            "  stack #{:<2} {:<8} layer to layer   {:>7.0} V of {:>5.0} V{}",
+            l.section + 1,
+            truncate(&l.winding, 8),
+            l.voltage_v,
+            l.limit_v,
+            mark(l.voltage_v, l.limit_v)
+        );
+    }
+    for b in &st.bifilar {
+        let pair = format!("{}+{}", b.inner, b.outer);
+        let _ = writeln!(
+            o,
+            "  stack #{:<2} {:<8} bifilar pair     {:>7.0} V of {:>5.0} V{}",
+            b.inner_section + 1,
+            truncate(&pair, 8),
+            b.voltage_v,
+            b.limit_v,
+            mark(b.voltage_v, b.limit_v)
+        );
+    }
+    for p in &st.between_sections {
+        let pair = format!("{}/{}", p.inner, p.outer);
+        let _ = writeln!(
+            o,
+            "  stack #{}/#{:<2} {:<6} between sections {:>7.0} V of {:>5.0} V{}",
+            p.inner_section + 1,
+            p.outer_section + 1,
+            truncate(&pair, 6),
+            p.voltage_v,
+            p.limit_v,
+            mark(p.voltage_v, p.limit_v)
+        );
+    }
+    if st.layers.is_empty() && st.bifilar.is_empty() && st.between_sections.is_empty() {
+        let _ = writeln!(
+            o,
+            "  single-layer sections, no bifilar pairs: nothing to check"
+        );
     }
 }
 

@@ -171,3 +171,59 @@ fn switch_rating_below_the_off_state_voltage_fails_the_check() {
     let (_, ok) = eval(&spike_build("temperature_c = 100", op));
     assert!(!ok.failures().contains(&Constraint::SwitchVoltage));
 }
+
+/// Layer-to-layer voltage with the usual return at each flange: (2 min(a, b) - 1) V_turn
+/// (common practice). The isolated example's primary: 80 turns as 32, 32, 16 at
+/// 375 V / 80 = 4.6875 V a turn: (2 x 32 - 1) x 4.6875 = 295.3 V; its reset, 61 and 19 turns:
+/// 37 x 4.6875 = 173.4 V; R next to P, no shared reference: (80 + 80) x 4.6875 = 750 V.
+#[test]
+fn layer_and_section_voltages_of_the_isolated_example() {
+    let (_, e) = crate::common::example("mains-isolated");
+    let st = e.stress.as_ref().expect("stress figures");
+    assert_rel(st.volts_per_turn_v, 375.0 / 80.0, 1e-12, "V a turn");
+    let by = |n: &str| e.windings.iter().find(|w| w.name.as_str() == n).unwrap();
+    assert_rel(
+        by("P").layer_voltage_v.unwrap(),
+        63.0 * 4.6875,
+        1e-12,
+        "P layers",
+    );
+    assert_rel(
+        by("R").layer_voltage_v.unwrap(),
+        37.0 * 4.6875,
+        1e-12,
+        "R layers",
+    );
+    let rp = &st.between_sections[0];
+    assert_eq!((rp.inner.as_str(), rp.outer.as_str()), ("R", "P"));
+    assert_rel(rp.voltage_v, 750.0, 1e-12, "R next to P");
+    // P and S face each other across the barrier: left to the isolation checks.
+    assert!(st.between_sections.iter().all(|p| p.outer.as_str() != "S"));
+}
+
+/// The isolated example with the reset wound bifilar with the primary: neighbouring turns hold
+/// off the switch's off-state voltage, 375 x (1 + 80/80) = 750 V (Erickson & Maksimovic sec.
+/// 6.3.2), far above two grade-2 films; the warning says so and names the cure.
+#[test]
+fn bifilar_reset_on_a_mains_primary_is_warned() {
+    let path =
+        std::path::Path::new(env!("CARGO_MANIFEST_DIR")).join("examples/mains-isolated.toml");
+    let text = std::fs::read_to_string(path).unwrap();
+    let text = text
+        .replace(
+            "[[stack]]\nwinding = \"R\"\nlayer_tape = 1\n\n[[stack]]\ntape = 1\n\n[[stack]]\nwinding = \"P\"\nlayer_tape = 1\n",
+            "[[stack]]\nwinding = \"P\"\nwith = \"R\"\nlayer_tape = 1\n",
+        )
+        .replace("wire = \"awg32\"", "wire = \"0.40mm\"");
+    let (_, e) = eval(&text);
+    let st = e.stress.as_ref().unwrap();
+    assert_eq!(st.bifilar.len(), 1, "{:?}", st.bifilar);
+    assert_rel(st.bifilar[0].voltage_v, 750.0, 1e-12, "bifilar P+R");
+    let w = e
+        .warnings
+        .iter()
+        .find(|w| w.code() == "bifilar-voltage")
+        .expect("bifilar-voltage warning");
+    assert!(w.message().contains("750 V"), "{}", w.message());
+    assert!(w.message().contains("no bifilar primary and reset"));
+}
