@@ -135,7 +135,10 @@ pub struct LeakageEval {
     pub from: Name,
     pub to: Name,
     pub referred_to: Name,
+    /// The 1-D field across the build plus `bifilar_uh`.
     pub uh: f64,
+    /// The share from the field between neighbouring wires of sections the two wind bifilar.
+    pub bifilar_uh: f64,
 }
 
 impl Evaluation {
@@ -167,7 +170,7 @@ pub(super) fn evaluate(build: &Build, memo: &mut Memo) -> Evaluation {
     let height_with_allowance_mm = build_height_mm * build.setup.bulge;
     let fits = height_with_allowance_mm <= window.height_mm + FIT_TOLERANCE_MM;
 
-    let leakage = leakage_pairs(build, &laid);
+    let leakage = leakage_pairs(build, &laid, wires);
     let problems = validate_resolved(build, &resolved);
     let (
         temperature_c,
@@ -528,7 +531,11 @@ fn first_ps_leakage(build: &Build, leakage: &[LeakageEval]) -> Option<f64> {
 }
 
 /// Every primary-secondary and primary-reset pair, referred to the primary.
-fn leakage_pairs(build: &Build, laid: &[Laid]) -> Vec<LeakageEval> {
+fn leakage_pairs(
+    build: &Build,
+    laid: &[Laid],
+    wires: &[crate::library::wires::ResolvedWire],
+) -> Vec<LeakageEval> {
     let count = |role: Role| build.windings.iter().filter(|w| w.role == role).count();
     let mut out =
         Vec::with_capacity(count(Role::Primary) * (count(Role::Secondary) + count(Role::Reset)));
@@ -553,11 +560,22 @@ fn leakage_pairs(build: &Build, laid: &[Laid]) -> Vec<LeakageEval> {
                     (pi, p.turns),
                     (oi, o.turns),
                 );
+                // Wound bifilar, the two share their layers: the field between neighbouring
+                // wires along the layer is what is left (engine::leakage).
+                let bifilar = leakage::bifilar_leakage_h(laid, pi, oi, |k| {
+                    let w = &build.windings[k];
+                    let strands = f64::from(w.strands.max(1));
+                    (
+                        0.5 * wires[k].bare_mm * strands.sqrt(),
+                        strands * wires[k].od_mm,
+                    )
+                });
                 out.push(LeakageEval {
                     from: p.name.clone(),
                     to: o.name.clone(),
                     referred_to: p.name.clone(),
-                    uh: l_h * 1e6,
+                    uh: (l_h + bifilar) * 1e6,
+                    bifilar_uh: bifilar * 1e6,
                 });
             }
         }

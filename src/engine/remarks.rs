@@ -444,7 +444,8 @@ impl fmt::Display for Note {
                     write!(f, "{a} with {b}")?;
                 }
                 f.write_str(
-                    ") share their layers: the 1-D model sees no leakage between the two windings of a pair",
+                    ") share their layers: the 1-D model across the build sees no leakage between the two windings \
+                     of a pair; what they have comes from the spacing of the wires' centres (small)",
                 )
             }
             Note::NoCoreData => f.write_str(

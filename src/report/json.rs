@@ -82,7 +82,7 @@ pub fn report(build: &Build, eval: &Evaluation) -> Value {
     let leakage: Vec<Value> = eval
         .leakage
         .iter()
-        .map(|l| json!({"from": l.from, "to": l.to, "referred_to": l.referred_to, "uh": l.uh}))
+        .map(|l| json!({"from": l.from, "to": l.to, "referred_to": l.referred_to, "uh": l.uh, "bifilar_uh": l.bifilar_uh}))
         .collect();
     let warnings: Vec<Value> = eval
         .warnings

@@ -260,8 +260,13 @@ pub fn render(build: &Build, eval: &Evaluation) -> String {
     if !eval.leakage.is_empty() {
         let _ = writeln!(o, "\nLeakage inductance (1-D field across the build)");
         for l in &eval.leakage {
+            let bifilar = if l.bifilar_uh > 0.0 {
+                format!(" ({:.3} uH of it between the bifilar wires)", l.bifilar_uh)
+            } else {
+                String::new()
+            };
             let line = format!(
-                "{} - {}: {:.3} uH referred to {}",
+                "{} - {}: {:.3} uH referred to {}{bifilar}",
                 l.from, l.to, l.uh, l.referred_to
             );
             for l in wrap(&line, WIDTH - 2, "    ") {

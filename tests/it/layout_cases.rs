@@ -150,8 +150,11 @@ fn bifilar_with_equal_wire_gives_equal_lengths_and_resistance() {
         assert_rel(w.length_m, want_mm * 1e-3, 1e-12, &w.name);
         assert_rel(w.dcr_ohm, dcr_ohm(want_mm, 0.4, 1, 20.0), 1e-12, &w.name);
     }
-    // The 1-D field gives the pair no leakage between them; the report says so.
-    assert!(e.leakage[0].uh.abs() < 1e-12, "{}", e.leakage[0].uh);
+    // The 1-D field gives the pair no leakage between them (all there is comes from the
+    // spacing of the wires, fidelity.rs holds its figure); the report says so.
+    let l = &e.leakage[0];
+    assert!((l.uh - l.bifilar_uh).abs() < 1e-12, "{}", l.uh);
+    assert!(l.bifilar_uh > 0.0);
     assert!(
         e.notes.iter().any(|n| n.to_string().contains("P with R")),
         "{:?}",
