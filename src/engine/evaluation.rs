@@ -1,6 +1,7 @@
 //! The Evaluation: every figure of a build, computed once, read by every front end.
 
 use super::ac;
+use super::capacitance::{self, CapacitanceEval};
 use super::constants::{FIT_TOLERANCE_MM, MM};
 use super::converter::{self, ConverterEval};
 use super::currents::{self, CurrentSource, WindingCurrent};
@@ -39,6 +40,8 @@ pub struct Evaluation {
     pub converter: Option<ConverterEval>,
     /// Voltage between adjacent layers, bifilar pairs and sections (with an operating point).
     pub stress: Option<StressEval>,
+    /// Primary-secondary and self-capacitance, and the ringing against the leakage.
+    pub capacitance: CapacitanceEval,
     /// Copper, core, total loss and temperature rise (with an operating point).
     pub losses: Option<LossEval>,
     /// What limits the design, the binding constraint first.
@@ -204,6 +207,13 @@ pub(super) fn evaluate(build: &Build, memo: &mut Memo) -> Evaluation {
             w.layer_voltage_v = *v;
         }
     }
+    let capacitance = capacitance::evaluate(
+        build,
+        &laid,
+        wires,
+        layout::usable_width_mm(build),
+        first_ps_leakage(build, &leakage),
+    );
     // Last, since the layers move into the sections.
     let sections = laid
         .into_iter()
@@ -227,6 +237,7 @@ pub(super) fn evaluate(build: &Build, memo: &mut Memo) -> Evaluation {
         limits: Vec::new(),
         converter,
         stress,
+        capacitance,
         losses,
         warnings: Vec::new(),
         notes: Vec::new(),

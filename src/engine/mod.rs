@@ -2,6 +2,7 @@
 //! Every figure has its one definition here (see shared/spec/build-format.md and FORMAT.md).
 
 pub mod ac;
+pub mod capacitance;
 pub mod constants;
 pub mod converter;
 pub mod core_loss;

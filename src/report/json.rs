@@ -207,6 +207,14 @@ pub fn report(build: &Build, eval: &Evaluation) -> Value {
             }))
             .collect::<Vec<_>>()
     );
+    let cap = &eval.capacitance;
+    out["capacitance"] = json!({
+        "primary_secondary_pf": cap.primary_secondary_pf,
+        "ringing_khz": cap.ringing_khz,
+        "self_pf": eval.windings.iter().zip(&cap.self_pf)
+            .map(|(w, c)| json!({"winding": w.name, "pf": c}))
+            .collect::<Vec<_>>(),
+    });
     if let Some(st) = &eval.stress {
         let pair = |p: &crate::engine::stress::PairStress| {
             json!({

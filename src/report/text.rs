@@ -275,6 +275,7 @@ pub fn render(build: &Build, eval: &Evaluation) -> String {
         }
     }
 
+    capacitance_block(&mut o, eval);
     currents_block(&mut o, eval);
     if let Some(c) = &eval.converter {
         converter_block(&mut o, c);
@@ -551,6 +552,35 @@ fn converter_block(o: &mut String, c: &ConverterEval) {
             };
             let _ = writeln!(o, "    {j:.2} A/mm2 in the reset wire, {why}");
         }
+    }
+}
+
+fn capacitance_block(o: &mut String, eval: &Evaluation) {
+    let c = &eval.capacitance;
+    let _ = writeln!(
+        o,
+        "\nCapacitance (plates across tape and enamel, eps_r 3.2 and 3.5, from memory)"
+    );
+    let _ = writeln!(
+        o,
+        "  primary - secondary    {:>8.1} pF",
+        c.primary_secondary_pf
+    );
+    for (w, cs) in eval.windings.iter().zip(&c.self_pf) {
+        if let Some(cs) = cs {
+            let _ = writeln!(
+                o,
+                "  {:<8} self          {cs:>8.1} pF (layer energy method)",
+                truncate(&w.name, 8)
+            );
+        }
+    }
+    if let Some(f) = c.ringing_khz {
+        let _ = writeln!(
+            o,
+            "  ringing, P-S leakage against the primary's own: {:.2} MHz",
+            f / 1e3
+        );
     }
 }
 

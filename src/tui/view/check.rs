@@ -31,6 +31,7 @@ fn figures(e: &Evaluation) -> Vec<(String, f64, usize)> {
         v.push(("hot spot C".into(), hot, 1));
     }
     v.push(("winding C".into(), e.temperature_c, 1));
+    v.push(("C P-S pF".into(), e.capacitance.primary_secondary_pf, 1));
     if let Some(worst) = e
         .windings
         .iter()
