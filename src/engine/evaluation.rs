@@ -131,6 +131,9 @@ pub struct WindingEval {
     /// The highest voltage between two adjacent layers of this winding's sections (with an
     /// operating point; see `engine::stress`).
     pub layer_voltage_v: Option<f64>,
+    /// Loss from the primary-secondary field in a winding other than the first primary and
+    /// secondary (its layers' proximity loss), included in `copper_loss_w`.
+    pub proximity_loss_w: Option<f64>,
 }
 
 #[derive(Debug, Clone, PartialEq)]
@@ -386,6 +389,7 @@ fn electrical(
                 current_model_rms_a: None,
                 copper_loss_w: None,
                 layer_voltage_v: None,
+                proximity_loss_w: None,
             }
         })
         .collect();
@@ -433,7 +437,10 @@ fn electrical(
         let r =
             w.ac.as_ref()
                 .map_or(w.dcr_ohm, |a| a.rac_waveform_ohm.unwrap_or(a.rac_ohm));
-        w.copper_loss_w = w.current_rms_a.map(|i| i * i * r);
+        w.copper_loss_w = match (w.current_rms_a, w.proximity_loss_w) {
+            (Some(i), p) => Some(i * i * r + p.unwrap_or(0.0)),
+            (None, p) => p,
+        };
     }
     let losses = converter
         .as_ref()
@@ -609,6 +616,9 @@ struct AcSums {
     sine: f64,
     /// Sum of the layers' waveform AC power shares weighted by length.
     wave: f64,
+    /// Proximity loss from the primary-secondary field, per ohm per metre of this winding:
+    /// sum over its layers of `length x F^2 / n_l^2 x (2 a - 4 b)` (see `ac_figures`).
+    proximity: f64,
 }
 
 impl AcSums {
@@ -691,6 +701,13 @@ fn ac_figures(
         } else {
             sums[p].paired = true;
             sums[s].paired = true;
+            // The primary's current drives the field the other windings sit in: its spectrum
+            // (scaled to the RMS used), or a sinusoid of its RMS.
+            let primary_drive = match (sums[p].spectrum, currents[p].rms_a) {
+                (Some((si, _, rms_sq)), _) if rms_sq > 0.0 => Some((Some(si), rms_sq)),
+                (_, Some(i)) if i > 0.0 => Some((None, i * i)),
+                _ => None,
+            };
             let return_per_turn =
                 -f64::from(build.windings[p].turns) / f64::from(build.windings[s].turns.max(1));
             let weight = leakage::pair_weights(p, s, return_per_turn);
@@ -715,6 +732,34 @@ fn ac_figures(
                 {
                     let length = f64::from(layer.turns) * layer.mlt_mm;
                     sums[k].layer(memo, d_of(k, layer.turns), slab.f_a, slab.f_b, length);
+                }
+                // Any other winding here sits in the field of P and S: Dowell's layer with
+                // the same field on both faces loses `R_layer (F/n_l)^2 D (2 G1 - 4 G2)` per
+                // ampere squared of the primary's, summed over its harmonics. A bifilar
+                // partner sees a field that runs from F_a to F_b across the layer: its mean
+                // square is taken.
+                for k in [*winding, *with]
+                    .into_iter()
+                    .flatten()
+                    .filter(|&k| k != p && k != s)
+                {
+                    let (fa, fb) = (slab.f_a, slab.f_b);
+                    let f2 = (fa * fa + fa * fb + fb * fb) / 3.0;
+                    if f2 <= 0.0 || layer.turns == 0 {
+                        continue;
+                    }
+                    let d = d_of(k, layer.turns);
+                    let (a, b) = match primary_drive {
+                        Some((Some(si), _)) => memo.summed_terms(si, d),
+                        Some((None, rms_sq)) => {
+                            let t = ac::d_terms(d);
+                            (t.0 * rms_sq, t.1 * rms_sq)
+                        }
+                        None => continue,
+                    };
+                    let n_l = f64::from(layer.turns);
+                    let length = f64::from(layer.turns) * layer.mlt_mm;
+                    sums[k].proximity += length * f2 / (n_l * n_l) * (2.0 * a - 4.0 * b).max(0.0);
                 }
             });
         }
@@ -756,6 +801,8 @@ fn ac_figures(
                 (dc * dc * total + sum.wave) / (rms_sq * total)
             }
         });
+        // Per ohm of the winding's DC resistance: its layers' share by length.
+        w.proximity_loss_w = (sum.proximity > 0.0).then(|| w.dcr_ohm / total * sum.proximity);
         w.ac = Some(AcFigures {
             skin_depth_mm: delta_mm,
             ac_factor,

@@ -70,6 +70,9 @@ pub fn report(build: &Build, eval: &Evaluation) -> Value {
             if let Some(i) = w.current_model_rms_a {
                 v["current_model_rms_a"] = json!(i);
             }
+            if let Some(p) = w.proximity_loss_w {
+                v["proximity_loss_w"] = json!(p);
+            }
             if let Some(p) = w.layer_voltage_v {
                 v["layer_voltage_v"] = json!(p);
             }

@@ -402,6 +402,17 @@ fn currents_block(o: &mut String, eval: &Evaluation) {
         );
     }
     let band = crate::engine::limits::CURRENT_DENSITY_BAND_A_MM2;
+    for w in &eval.windings {
+        if let Some(p) = w.proximity_loss_w {
+            let line = format!(
+                "{}: {p:.3} W of its loss from the field of the others (proximity)",
+                w.name
+            );
+            for l in wrap(&line, WIDTH - 2, "    ") {
+                let _ = writeln!(o, "  {l}");
+            }
+        }
+    }
     let _ = writeln!(
         o,
         "  current density band {:.0}-{:.0} A/mm2 RMS (common practice, natural convection)",

@@ -305,3 +305,48 @@ fn capacitance_follows_the_plate_and_the_layer_energy_method() {
     }
     assert!(cap(3).capacitance.primary_secondary_pf < cap(1).capacitance.primary_secondary_pf);
 }
+
+/// A winding that carries no current of its own still loses power in the field of the others
+/// (Dowell 1966, a layer with the same MMF F on both faces: P = R_layer (F / n_l)^2
+/// D (2 G1 - 4 G2), G1 = (sinh 2D + sin 2D)/(cosh 2D - cos 2D),
+/// G2 = (sinh D cos D + cosh D sin D)/(cosh 2D - cos 2D)). Here an auxiliary winding of one
+/// layer (20 turns of 0.5 mm in a 12 mm breadth) lies between a 20-turn primary carrying
+/// 2 A RMS (a sinusoid: no operating point) and the secondary, so F = 20 x 2 A.
+#[test]
+fn a_winding_without_current_has_proximity_loss_in_the_primary_field() {
+    let w = |n: &str, role: &str, extra: &str| {
+        format!(
+            "[[winding]]\nname = \"{n}\"\nrole = \"{role}\"\nturns = 20\n\
+             wire = {{ bare_mm = 0.5, od_mm = 0.6 }}\n{extra}"
+        )
+    };
+    let text = format!(
+        "format = 1\ntitle = \"prox\"\n{}[setup]\ntemperature_c = 100\nfrequency_khz = 100\n\n{}{}{}\
+         [[stack]]\nwinding = \"P\"\n[[stack]]\nwinding = \"A\"\n[[stack]]\nwinding = \"S\"\n",
+        round_bobbin(12.0, 3.0, 10.0),
+        w("P", "primary", "current_rms_a = 2.0\n"),
+        w("A", "auxiliary", ""),
+        w("S", "secondary", "current_rms_a = 2.0\n"),
+    );
+    let (_, e) = eval(&text);
+    let a = e.windings.iter().find(|w| w.name.as_str() == "A").unwrap();
+    let rho = 1.7241e-8 * (1.0 + 0.00393 * 80.0);
+    let delta_mm = (rho / (PI * 100e3 * 4.0e-7 * PI)).sqrt() * 1e3;
+    let h = 0.5 * PI.sqrt() / 2.0;
+    let d = (20.0 * h / 12.0f64).sqrt() * h / delta_mm;
+    let g1 = ((2.0 * d).sinh() + (2.0 * d).sin()) / ((2.0 * d).cosh() - (2.0 * d).cos());
+    let g2 = (d.sinh() * d.cos() + d.cosh() * d.sin()) / ((2.0 * d).cosh() - (2.0 * d).cos());
+    let want = a.dcr_ohm * (20.0f64 * 2.0 / 20.0).powi(2) * d * (2.0 * g1 - 4.0 * g2);
+    assert_rel(
+        a.proximity_loss_w.unwrap(),
+        want,
+        1e-9,
+        "proximity loss of A",
+    );
+    assert_rel(
+        a.copper_loss_w.unwrap(),
+        want,
+        1e-9,
+        "counted as its copper loss",
+    );
+}
