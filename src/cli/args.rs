@@ -8,7 +8,7 @@ use std::path::PathBuf;
 #[derive(Debug, Parser)]
 #[command(name = "turnstack", version, about, long_about = None, max_term_width = 80)]
 #[command(
-    after_help = "Exit codes: 0 the build fits, 1 it is valid but does not fit, 2 the input is wrong.\n\
+    after_help = "Exit codes of check: 0 the build fits and every limit holds, 1 it is valid but does not fit or breaks a limit (temperature rise, hot spot, saturation, reset duty, current density, switch rating), 2 the input is wrong.\n\
 User bobbins: $TURNSTACK_BOBBINS, else the data directory's turnstack/bobbins (~/.local/share/turnstack/bobbins on Linux)."
 )]
 pub struct Cli {

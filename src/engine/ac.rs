@@ -102,9 +102,15 @@ pub fn dowell_fr(d: f64, m: u32) -> f64 {
     d * (g1(d) + 2.0 * (m * m - 1.0) / 3.0 * dd)
 }
 
-/// D of a layer: `sqrt(eta) h / delta` with porosity `eta = conductors x h / b_w`.
-pub fn layer_d(conductors_in_layer: f64, bare_mm: f64, window_width_mm: f64, delta_mm: f64) -> f64 {
+/// D of a layer: `sqrt(eta) h / delta` with porosity `eta = conductors x h / b_w`, `b_w` the
+/// wound breadth (the window width less both margins).
+pub fn layer_d(
+    conductors_in_layer: f64,
+    bare_mm: f64,
+    wound_breadth_mm: f64,
+    delta_mm: f64,
+) -> f64 {
     let h = equivalent_square_mm(bare_mm);
-    let eta = (conductors_in_layer * h / window_width_mm).clamp(0.0, 1.0);
+    let eta = (conductors_in_layer * h / wound_breadth_mm).clamp(0.0, 1.0);
     eta.sqrt() * h / delta_mm
 }

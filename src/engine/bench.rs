@@ -100,8 +100,8 @@ pub fn cuts(build: &Build, eval: &Evaluation) -> Vec<Cut> {
 /// Each winding's DC resistance (ohm) at the bench temperature `measure_at_c`, from the
 /// evaluation's at the build's temperature (IEC 60028's temperature coefficient), with
 /// [`DCR_TOLERANCE`] either way; in the build's order.
-pub fn dcr_at_bench(build: &Build, eval: &Evaluation, measure_at_c: f64) -> Vec<Spread> {
-    let ratio = temperature_ratio(build.setup.temperature_c, measure_at_c);
+pub fn dcr_at_bench(eval: &Evaluation, measure_at_c: f64) -> Vec<Spread> {
+    let ratio = temperature_ratio(eval.temperature_c, measure_at_c);
     eval.windings
         .iter()
         .map(|e| Spread::around(e.dcr_ohm * ratio, DCR_TOLERANCE))

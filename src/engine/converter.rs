@@ -21,12 +21,27 @@ pub struct ConverterEval {
     pub duty_available: f64,
     /// Switch off-state voltage at `vin_max_v` (no leakage spike).
     pub switch_voltage_v: f64,
+    /// `[operating] switch_rating_v`, when given.
+    pub switch_rating_v: Option<f64>,
     /// Duty needed at `vin_min_v`, continuous conduction, ideal switch.
     pub duty_needed_at_vin_min: f64,
     /// Duty needed at `vin_max_v`, the same way.
     pub duty_needed_at_vin_max: f64,
-    /// `duty_available - duty_needed_at_vin_min`; negative when the output is out of reach.
+    /// `duty_available - duty_needed_total_at_vin_min`; negative when the output is out of
+    /// reach.
     pub duty_margin: f64,
+    /// The duty needed at `vin_min_v` with the switch's drop taken off the input, plus the
+    /// duty lost to the leakage: what `duty_margin` and the reset-duty limit use.
+    pub duty_needed_total_at_vin_min: f64,
+    /// Primary-secondary leakage referred to the primary (uH), set by the evaluation.
+    pub leakage_ps_uh: Option<f64>,
+    /// Primary current at turn-off: `iout Ns/Np + magnetising_peak_a`.
+    pub clamp_peak_a: Option<f64>,
+    /// `1/2 L_lk I_pk^2 f`: the power the clamp or snubber must take at turn-off.
+    pub clamp_loss_w: Option<f64>,
+    /// `L_lk (iout Ns/Np) f / (vin_min_v - switch_drop_v)`: the share of the period the
+    /// primary current spends rising through the leakage before the secondary takes the load.
+    pub duty_lost_to_leakage: Option<f64>,
     /// Secondary-side reset only: the steady-state duty must stay below `1 - Nr/Ns`.
     pub steady_duty_ceiling: Option<f64>,
     /// Reset time in steady state at `vin_min_v` (the longest on-time there is).
@@ -86,6 +101,8 @@ pub fn evaluate(build: &Build) -> Option<ConverterEval> {
         .map_or(reset_duty_limit, |d| d.min(reset_duty_limit));
     let duty_available = steady_duty_ceiling.map_or(duty_max, |c| duty_max.min(c.max(0.0)));
     let duty_needed_at_vin_min = vo * npf / (nsf * op.vin_min_v);
+    let vin_on = (op.vin_min_v - op.switch_drop_v).max(f64::MIN_POSITIVE);
+    let duty_needed_switch = vo * npf / (nsf * vin_on);
     let duty_needed_at_vin_max = vo * npf / (nsf * op.vin_max_v);
     let duty_used = duty_needed_at_vin_min.min(duty_available).max(0.0);
     // Volt-second balance: the reset voltage on the primary is Vin Np/Nr (clamped to the
@@ -113,9 +130,15 @@ pub fn evaluate(build: &Build) -> Option<ConverterEval> {
         duty_max,
         duty_available,
         switch_voltage_v,
+        switch_rating_v: op.switch_rating_v,
         duty_needed_at_vin_min,
         duty_needed_at_vin_max,
-        duty_margin: duty_available - duty_needed_at_vin_min,
+        duty_margin: duty_available - duty_needed_switch,
+        duty_needed_total_at_vin_min: duty_needed_switch,
+        leakage_ps_uh: None,
+        clamp_peak_a: None,
+        clamp_loss_w: None,
+        duty_lost_to_leakage: None,
         steady_duty_ceiling,
         reset_time_us: reset_used * period_s * 1e6,
         reset_time_worst_us: reset_fraction(op.vin_max_v, duty_max) * period_s * 1e6,
@@ -134,4 +157,25 @@ pub fn evaluate(build: &Build) -> Option<ConverterEval> {
         reset_current_density_a_mm2: None,
         duty_used_at_vin_min: duty_used,
     })
+}
+
+/// The turn-off figures from the primary-secondary leakage `leakage_uh` (referred to the
+/// primary): the peak the switch turns off, the clamp's loss, the duty lost while the primary
+/// current rises through the leakage, and the duty margin less that duty.
+pub fn apply_leakage(c: &mut ConverterEval, build: &Build, leakage_uh: f64) {
+    let (Some(op), Some(f_khz)) = (build.operating.as_ref(), build.setup.frequency_khz) else {
+        return;
+    };
+    let f_hz = f_khz * 1e3;
+    let l_h = leakage_uh.max(0.0) * 1e-6;
+    let reflected = op.iout_a * f64::from(c.ns) / f64::from(c.np);
+    let peak = reflected + c.magnetising_peak_a.unwrap_or(0.0);
+    let vin_on = (op.vin_min_v - op.switch_drop_v).max(f64::MIN_POSITIVE);
+    let lost = l_h * reflected * f_hz / vin_on;
+    c.leakage_ps_uh = Some(leakage_uh);
+    c.clamp_peak_a = Some(peak);
+    c.clamp_loss_w = Some(0.5 * l_h * peak * peak * f_hz);
+    c.duty_lost_to_leakage = Some(lost);
+    c.duty_needed_total_at_vin_min += lost;
+    c.duty_margin = c.duty_available - c.duty_needed_total_at_vin_min;
 }

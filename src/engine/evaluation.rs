@@ -1,6 +1,7 @@
 //! The Evaluation: every figure of a build, computed once, read by every front end.
 
 use super::ac;
+use super::capacitance::{self, CapacitanceEval};
 use super::constants::{FIT_TOLERANCE_MM, MM};
 use super::converter::{self, ConverterEval};
 use super::currents::{self, CurrentSource, WindingCurrent};
@@ -11,6 +12,8 @@ use super::losses::{self, LossEval};
 use super::memo::Memo;
 use super::remarks::{Note, Warning, WarningAt, WarningKind};
 use super::resistance::{area_mm2, ohm_per_m, rho_ohm_m};
+use super::stress::{self, StressEval};
+use super::thermal;
 use super::validate::validate_resolved;
 use super::warnings;
 use crate::model::{Build, Name, Role};
@@ -28,10 +31,17 @@ pub struct Evaluation {
     /// `window_height_mm - height_with_allowance_mm`; negative when it does not fit.
     pub spare_height_mm: f64,
     pub fill_factor: f64,
+    /// The winding temperature the resistances are taken at, and where it came from.
+    pub temperature_c: f64,
+    pub temperature_source: TemperatureSource,
     pub sections: Vec<SectionEval>,
     pub windings: Vec<WindingEval>,
     pub leakage: Vec<LeakageEval>,
     pub converter: Option<ConverterEval>,
+    /// Voltage between adjacent layers, bifilar pairs and sections (with an operating point).
+    pub stress: Option<StressEval>,
+    /// Primary-secondary and self-capacitance, and the ringing against the leakage.
+    pub capacitance: CapacitanceEval,
     /// Copper, core, total loss and temperature rise (with an operating point).
     pub losses: Option<LossEval>,
     /// What limits the design, the binding constraint first.
@@ -118,6 +128,12 @@ pub struct WindingEval {
     /// `I_rms^2 x` the waveform AC resistance (or the sinusoidal one, or DC, when that is
     /// all there is; see the format document).
     pub copper_loss_w: Option<f64>,
+    /// The highest voltage between two adjacent layers of this winding's sections (with an
+    /// operating point; see `engine::stress`).
+    pub layer_voltage_v: Option<f64>,
+    /// Loss from the primary-secondary field in a winding other than the first primary and
+    /// secondary (its layers' proximity loss), included in `copper_loss_w`.
+    pub proximity_loss_w: Option<f64>,
 }
 
 #[derive(Debug, Clone, PartialEq)]
@@ -125,7 +141,28 @@ pub struct LeakageEval {
     pub from: Name,
     pub to: Name,
     pub referred_to: Name,
+    /// The 1-D field across the build plus `bifilar_uh`.
     pub uh: f64,
+    /// The share from the field between neighbouring wires of sections the two wind bifilar.
+    pub bifilar_uh: f64,
+}
+
+impl Evaluation {
+    /// What makes the build fail a check: not fitting, and every other broken limit, in the
+    /// order of the limits table (the worst first). Empty when the design passes.
+    pub fn failures(&self) -> Vec<Constraint> {
+        let mut out = Vec::new();
+        if !self.fits {
+            out.push(Constraint::Fit);
+        }
+        out.extend(
+            self.limits
+                .iter()
+                .filter(|l| l.broken() && l.constraint != Constraint::Fit)
+                .map(|l| l.constraint),
+        );
+        out
+    }
 }
 
 pub(super) fn evaluate(build: &Build, memo: &mut Memo) -> Evaluation {
@@ -139,13 +176,196 @@ pub(super) fn evaluate(build: &Build, memo: &mut Memo) -> Evaluation {
     let height_with_allowance_mm = build_height_mm * build.setup.bulge;
     let fits = height_with_allowance_mm <= window.height_mm + FIT_TOLERANCE_MM;
 
+    let leakage = leakage_pairs(build, &laid, wires);
+    let problems = validate_resolved(build, &resolved);
+    let (
+        temperature_c,
+        temperature_source,
+        Electrical {
+            windings,
+            converter,
+            losses,
+            ac_warnings,
+        },
+    ) = solve_temperature(build, &laid, wires, problems.is_empty(), &leakage, memo);
+    let window_area = window.width_mm * window.height_mm;
+    let fill_factor = if window_area > 0.0 {
+        build
+            .windings
+            .iter()
+            .zip(&windings)
+            .map(|(w, e)| f64::from(w.turns) * e.copper_area_mm2)
+            .sum::<f64>()
+            / window_area
+    } else {
+        0.0
+    };
+
+    let stress = converter
+        .as_ref()
+        .and_then(|c| stress::evaluate(build, &laid, c));
+    let mut windings = windings;
+    if let Some(st) = &stress {
+        for (w, v) in windings.iter_mut().zip(&st.layer_voltage_v) {
+            w.layer_voltage_v = *v;
+        }
+    }
+    let capacitance = capacitance::evaluate(
+        build,
+        &laid,
+        wires,
+        layout::usable_width_mm(build),
+        first_ps_leakage(build, &leakage),
+    );
+    // Last, since the layers move into the sections.
+    let sections = laid
+        .into_iter()
+        .map(|l| section_eval(build, l, window.height_mm))
+        .collect();
+
+    let mut eval = Evaluation {
+        usable_width_mm: layout::usable_width_mm(build),
+        window_width_mm: window.width_mm,
+        window_height_mm: window.height_mm,
+        build_height_mm,
+        height_with_allowance_mm,
+        fits,
+        spare_height_mm: window.height_mm - height_with_allowance_mm,
+        fill_factor,
+        temperature_c,
+        temperature_source,
+        sections,
+        windings,
+        leakage,
+        limits: Vec::new(),
+        converter,
+        stress,
+        capacitance,
+        losses,
+        warnings: Vec::new(),
+        notes: Vec::new(),
+    };
+    eval.limits = design_limits(&eval);
+    warnings::collect(build, &problems, &mut eval);
+    eval.warnings.extend(ac_warnings);
+    eval
+}
+
+/// What depends on the winding temperature: resistances, AC figures, currents, losses.
+struct Electrical {
+    windings: Vec<WindingEval>,
+    converter: Option<ConverterEval>,
+    losses: Option<LossEval>,
+    ac_warnings: Vec<Warning>,
+}
+
+/// Where the temperature the resistances are taken at came from.
+#[derive(Debug, Clone, Copy, PartialEq, Eq)]
+pub enum TemperatureSource {
+    /// `[setup] temperature_c`.
+    Given,
+    /// Ambient plus the predicted rise, solved to a fixed point.
+    AmbientPlusRise,
+    /// `[operating] ambient_c`, with no rise to add (no surface area to predict it from).
+    Ambient,
+    /// The format's default (20 C): neither a temperature nor an operating point to find one.
+    Default,
+}
+
+impl TemperatureSource {
+    pub fn key(self) -> &'static str {
+        match self {
+            TemperatureSource::Given => "given",
+            TemperatureSource::AmbientPlusRise => "ambient + rise",
+            TemperatureSource::Ambient => "ambient",
+            TemperatureSource::Default => "default",
+        }
+    }
+}
+
+/// Stop the fixed point when the temperature moves less than this (C) ...
+const TEMPERATURE_TOLERANCE_C: f64 = 0.01;
+/// ... or after this many rounds (it converges in a handful: the rise grows with the
+/// resistance as `(1 + alpha dT)^0.826`, a contraction for any rise a winding survives).
+const TEMPERATURE_ROUNDS: usize = 30;
+/// Above this the copper law and the winding are both past their use; the loop stops there.
+const TEMPERATURE_CEILING_C: f64 = 250.0;
+
+/// The temperature the resistances are taken at, where it came from, and every figure that
+/// depends on it. A given `temperature_c` wins; else ambient + the predicted rise, found by
+/// iterating `T = ambient + rise(losses at T)`.
+fn solve_temperature(
+    build: &Build,
+    laid: &[Laid],
+    wires: &[crate::library::wires::ResolvedWire],
+    valid: bool,
+    leakage: &[LeakageEval],
+    memo: &mut Memo,
+) -> (f64, TemperatureSource, Electrical) {
+    let at = |t: f64, memo: &mut Memo| electrical(build, laid, wires, valid, leakage, t, memo);
+    if build.setup.temperature_given || build.operating.is_none() {
+        let source = if build.setup.temperature_given {
+            TemperatureSource::Given
+        } else {
+            TemperatureSource::Default
+        };
+        let t = build.setup.temperature_c;
+        return (t, source, at(t, memo));
+    }
+    let ambient = build
+        .operating
+        .as_ref()
+        .and_then(|o| o.ambient_c)
+        .unwrap_or(thermal::DEFAULT_AMBIENT_C);
+    let mut t = ambient;
+    let mut e = at(t, memo);
+    if e.losses
+        .as_ref()
+        .and_then(|l| l.temperature_rise_c)
+        .is_none()
+    {
+        let given_ambient = build.operating.as_ref().and_then(|o| o.ambient_c);
+        return match given_ambient {
+            Some(a) => (a, TemperatureSource::Ambient, e),
+            None => {
+                let t = build.setup.temperature_c;
+                (t, TemperatureSource::Default, at(t, memo))
+            }
+        };
+    }
+    for _ in 0..TEMPERATURE_ROUNDS {
+        let rise = e
+            .losses
+            .as_ref()
+            .and_then(|l| l.temperature_rise_c)
+            .unwrap_or(0.0);
+        let next = (ambient + rise).min(TEMPERATURE_CEILING_C);
+        if (next - t).abs() < TEMPERATURE_TOLERANCE_C {
+            break;
+        }
+        t = next;
+        e = at(t, memo);
+    }
+    (t, TemperatureSource::AmbientPlusRise, e)
+}
+
+/// The figures of [`Electrical`] with the windings at `temperature_c`.
+fn electrical(
+    build: &Build,
+    laid: &[Laid],
+    wires: &[crate::library::wires::ResolvedWire],
+    valid: bool,
+    leakage: &[LeakageEval],
+    temperature_c: f64,
+    memo: &mut Memo,
+) -> Electrical {
     let mut windings: Vec<WindingEval> = build
         .windings
         .iter()
         .enumerate()
         .map(|(i, w)| {
             let copper_area_mm2 = f64::from(w.strands) * area_mm2(wires[i].bare_mm);
-            let length_mm = winding_length_mm(&laid, i);
+            let length_mm = winding_length_mm(laid, i);
             let length_m = length_mm * MM;
             WindingEval {
                 name: w.name.clone(),
@@ -161,38 +381,29 @@ pub(super) fn evaluate(build: &Build, memo: &mut Memo) -> Evaluation {
                 } else {
                     0.0
                 },
-                dcr_ohm: ohm_per_m(wires[i].bare_mm, w.strands, build.setup.temperature_c)
-                    * length_m,
+                dcr_ohm: ohm_per_m(wires[i].bare_mm, w.strands, temperature_c) * length_m,
                 ac: None,
                 current_density_a_mm2: None,
                 current_rms_a: None,
                 current_source: None,
                 current_model_rms_a: None,
                 copper_loss_w: None,
+                layer_voltage_v: None,
+                proximity_loss_w: None,
             }
         })
         .collect();
 
-    let window_area = window.width_mm * window.height_mm;
-    let fill_factor = if window_area > 0.0 {
-        build
-            .windings
-            .iter()
-            .zip(&windings)
-            .map(|(w, e)| f64::from(w.turns) * e.copper_area_mm2)
-            .sum::<f64>()
-            / window_area
-    } else {
-        0.0
-    };
-
-    let leakage = leakage_pairs(build, &laid);
-    let problems = validate_resolved(build, &resolved);
-    let mut converter = if problems.is_empty() {
+    let mut converter = if valid {
         converter::evaluate(build)
     } else {
         None
     };
+    if let Some(c) = converter.as_mut()
+        && let Some(l) = first_ps_leakage(build, leakage)
+    {
+        converter::apply_leakage(c, build, l);
+    }
     if let Some(c) = converter.as_mut()
         && let Some(r) = windings.iter().find(|w| w.role == Role::Reset)
         && r.copper_area_mm2 > 0.0
@@ -213,7 +424,8 @@ pub(super) fn evaluate(build: &Build, memo: &mut Memo) -> Evaluation {
     if build.setup.frequency_khz.is_some() {
         ac_figures(
             build,
-            &laid,
+            laid,
+            temperature_c,
             wires,
             &currents,
             &mut windings,
@@ -225,39 +437,20 @@ pub(super) fn evaluate(build: &Build, memo: &mut Memo) -> Evaluation {
         let r =
             w.ac.as_ref()
                 .map_or(w.dcr_ohm, |a| a.rac_waveform_ohm.unwrap_or(a.rac_ohm));
-        w.copper_loss_w = w.current_rms_a.map(|i| i * i * r);
+        w.copper_loss_w = match (w.current_rms_a, w.proximity_loss_w) {
+            (Some(i), p) => Some(i * i * r + p.unwrap_or(0.0)),
+            (None, p) => p,
+        };
     }
     let losses = converter
         .as_ref()
         .map(|c| losses::evaluate(build, c, &windings, memo));
-    // Last, since the layers move into the sections.
-    let sections = laid
-        .into_iter()
-        .map(|l| section_eval(build, l, window.height_mm))
-        .collect();
-
-    let mut eval = Evaluation {
-        usable_width_mm: layout::usable_width_mm(build),
-        window_width_mm: window.width_mm,
-        window_height_mm: window.height_mm,
-        build_height_mm,
-        height_with_allowance_mm,
-        fits,
-        spare_height_mm: window.height_mm - height_with_allowance_mm,
-        fill_factor,
-        sections,
+    Electrical {
         windings,
-        leakage,
-        limits: Vec::new(),
         converter,
         losses,
-        warnings: Vec::new(),
-        notes: Vec::new(),
-    };
-    eval.limits = design_limits(&eval);
-    warnings::collect(build, &problems, &mut eval);
-    eval.warnings.extend(ac_warnings);
-    eval
+        ac_warnings,
+    }
 }
 
 /// A winding's length: every layer it appears in, as `winding` or as bifilar `with`.
@@ -345,8 +538,22 @@ fn section_eval(build: &Build, l: Laid, window_height_mm: f64) -> SectionEval {
     }
 }
 
+/// The leakage between the first primary and the first secondary (uH, referred to the primary).
+fn first_ps_leakage(build: &Build, leakage: &[LeakageEval]) -> Option<f64> {
+    let p = build.first_of(Role::Primary)?;
+    let s = build.first_of(Role::Secondary)?;
+    leakage
+        .iter()
+        .find(|l| l.from == p.name && l.to == s.name)
+        .map(|l| l.uh)
+}
+
 /// Every primary-secondary and primary-reset pair, referred to the primary.
-fn leakage_pairs(build: &Build, laid: &[Laid]) -> Vec<LeakageEval> {
+fn leakage_pairs(
+    build: &Build,
+    laid: &[Laid],
+    wires: &[crate::library::wires::ResolvedWire],
+) -> Vec<LeakageEval> {
     let count = |role: Role| build.windings.iter().filter(|w| w.role == role).count();
     let mut out =
         Vec::with_capacity(count(Role::Primary) * (count(Role::Secondary) + count(Role::Reset)));
@@ -366,16 +573,27 @@ fn leakage_pairs(build: &Build, laid: &[Laid]) -> Vec<LeakageEval> {
                 let l_h = leakage::leakage_h(
                     laid,
                     &build.bobbin.tube,
-                    build.bobbin.window.width_mm,
+                    layout::usable_width_mm(build),
                     build.windings.len(),
                     (pi, p.turns),
                     (oi, o.turns),
                 );
+                // Wound bifilar, the two share their layers: the field between neighbouring
+                // wires along the layer is what is left (engine::leakage).
+                let bifilar = leakage::bifilar_leakage_h(laid, pi, oi, |k| {
+                    let w = &build.windings[k];
+                    let strands = f64::from(w.strands.max(1));
+                    (
+                        0.5 * wires[k].bare_mm * strands.sqrt(),
+                        strands * wires[k].od_mm,
+                    )
+                });
                 out.push(LeakageEval {
                     from: p.name.clone(),
                     to: o.name.clone(),
                     referred_to: p.name.clone(),
-                    uh: l_h * 1e6,
+                    uh: (l_h + bifilar) * 1e6,
+                    bifilar_uh: bifilar * 1e6,
                 });
             }
         }
@@ -398,6 +616,9 @@ struct AcSums {
     sine: f64,
     /// Sum of the layers' waveform AC power shares weighted by length.
     wave: f64,
+    /// Proximity loss from the primary-secondary field, per ohm per metre of this winding:
+    /// sum over its layers of `length x F^2 / n_l^2 x (2 a - 4 b)` (see `ac_figures`).
+    proximity: f64,
 }
 
 impl AcSums {
@@ -422,9 +643,11 @@ impl AcSums {
 
 /// AC factors per the spec: the first primary and first secondary under their leakage
 /// excitation, every other winding section by section from zero MMF.
+#[allow(clippy::too_many_arguments)]
 fn ac_figures(
     build: &Build,
     laid: &[Laid],
+    temperature_c: f64,
     wires: &[crate::library::wires::ResolvedWire],
     currents: &[WindingCurrent],
     windings: &mut [WindingEval],
@@ -434,8 +657,9 @@ fn ac_figures(
     let Some(f_khz) = build.setup.frequency_khz else {
         return;
     };
-    let delta_mm = ac::skin_depth_m(rho_ohm_m(build.setup.temperature_c), f_khz * 1e3) / MM;
-    let b_w = build.bobbin.window.width_mm;
+    let delta_mm = ac::skin_depth_m(rho_ohm_m(temperature_c), f_khz * 1e3) / MM;
+    // The wound breadth: the turns lie between the margins, and so does the field.
+    let b_w = layout::usable_width_mm(build);
     let p = build.windings.iter().position(|w| w.role == Role::Primary);
     let s = build
         .windings
@@ -477,6 +701,13 @@ fn ac_figures(
         } else {
             sums[p].paired = true;
             sums[s].paired = true;
+            // The primary's current drives the field the other windings sit in: its spectrum
+            // (scaled to the RMS used), or a sinusoid of its RMS.
+            let primary_drive = match (sums[p].spectrum, currents[p].rms_a) {
+                (Some((si, _, rms_sq)), _) if rms_sq > 0.0 => Some((Some(si), rms_sq)),
+                (_, Some(i)) if i > 0.0 => Some((None, i * i)),
+                _ => None,
+            };
             let return_per_turn =
                 -f64::from(build.windings[p].turns) / f64::from(build.windings[s].turns.max(1));
             let weight = leakage::pair_weights(p, s, return_per_turn);
@@ -501,6 +732,34 @@ fn ac_figures(
                 {
                     let length = f64::from(layer.turns) * layer.mlt_mm;
                     sums[k].layer(memo, d_of(k, layer.turns), slab.f_a, slab.f_b, length);
+                }
+                // Any other winding here sits in the field of P and S: Dowell's layer with
+                // the same field on both faces loses `R_layer (F/n_l)^2 D (2 G1 - 4 G2)` per
+                // ampere squared of the primary's, summed over its harmonics. A bifilar
+                // partner sees a field that runs from F_a to F_b across the layer: its mean
+                // square is taken.
+                for k in [*winding, *with]
+                    .into_iter()
+                    .flatten()
+                    .filter(|&k| k != p && k != s)
+                {
+                    let (fa, fb) = (slab.f_a, slab.f_b);
+                    let f2 = (fa * fa + fa * fb + fb * fb) / 3.0;
+                    if f2 <= 0.0 || layer.turns == 0 {
+                        continue;
+                    }
+                    let d = d_of(k, layer.turns);
+                    let (a, b) = match primary_drive {
+                        Some((Some(si), _)) => memo.summed_terms(si, d),
+                        Some((None, rms_sq)) => {
+                            let t = ac::d_terms(d);
+                            (t.0 * rms_sq, t.1 * rms_sq)
+                        }
+                        None => continue,
+                    };
+                    let n_l = f64::from(layer.turns);
+                    let length = f64::from(layer.turns) * layer.mlt_mm;
+                    sums[k].proximity += length * f2 / (n_l * n_l) * (2.0 * a - 4.0 * b).max(0.0);
                 }
             });
         }
@@ -542,6 +801,8 @@ fn ac_figures(
                 (dc * dc * total + sum.wave) / (rms_sq * total)
             }
         });
+        // Per ohm of the winding's DC resistance: its layers' share by length.
+        w.proximity_loss_w = (sum.proximity > 0.0).then(|| w.dcr_ohm / total * sum.proximity);
         w.ac = Some(AcFigures {
             skin_depth_mm: delta_mm,
             ac_factor,
@@ -565,7 +826,7 @@ fn design_limits(eval: &Evaluation) -> Vec<Limit> {
     if let Some(c) = &eval.converter {
         out.push(Limit::new(
             Constraint::ResetDuty,
-            c.duty_needed_at_vin_min,
+            c.duty_needed_total_at_vin_min,
             c.duty_available,
             "duty",
             None,
@@ -584,6 +845,28 @@ fn design_limits(eval: &Evaluation) -> Vec<Limit> {
             rise.0,
             rise.1,
             "C",
+            None,
+        ));
+    }
+    if let Some(l) = &eval.losses
+        && let Some(hot) = l.hot_spot_c
+    {
+        out.push(Limit::new(
+            Constraint::HotSpot,
+            hot,
+            l.class_limit_c,
+            "C",
+            None,
+        ));
+    }
+    if let Some(c) = &eval.converter
+        && let Some(rating) = c.switch_rating_v
+    {
+        out.push(Limit::new(
+            Constraint::SwitchVoltage,
+            c.switch_voltage_v,
+            rating,
+            "V",
             None,
         ));
     }

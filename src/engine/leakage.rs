@@ -115,22 +115,69 @@ pub fn pair_weights(x: usize, y: usize, y_per_turn: f64) -> impl Fn(usize) -> f6
 }
 
 /// Leakage inductance (H) between windings `x` and `y` (index, turns), referred to `x`.
-/// `winding_count` is the number of windings the indices count.
+/// `wound_breadth_mm` is `b_w`, the breadth the turns occupy (the window width less both
+/// margins); `winding_count` is the number of windings the indices count.
 pub fn leakage_h(
     laid: &[Laid],
     tube: &Tube,
-    window_width_mm: f64,
+    wound_breadth_mm: f64,
     winding_count: usize,
     x: (usize, u32),
     y: (usize, u32),
 ) -> f64 {
     let (xi, nx) = x;
     let (yi, ny) = y;
-    if ny == 0 || window_width_mm <= 0.0 || xi >= winding_count || yi >= winding_count {
+    if ny == 0 || wound_breadth_mm <= 0.0 || xi >= winding_count || yi >= winding_count {
         return 0.0;
     }
     let weight = pair_weights(xi, yi, -f64::from(nx) / f64::from(ny));
     let mut energy = 0.0;
     for_each_slab_by(laid, weight, |s| energy += slab_energy_m2(&s, tube));
-    MU0_H_PER_M / (window_width_mm * MM) * energy
+    MU0_H_PER_M / (wound_breadth_mm * MM) * energy
+}
+
+/// Leakage (H, referred to `x`) between two windings wound bifilar in the same layers, which
+/// the 1-D field across the build cannot see: the field between neighbouring wires along each
+/// layer. A bifilar layer is a row of conductors carrying +I (x) and -I (y) alternately at the
+/// spacing `s` of their centres; the vector potential of an infinite row of alternating line
+/// currents is `A = (mu0 I / 2 pi) ln|tan(pi z / 2 s)|` (2-D magnetostatics, by conformal
+/// mapping), so the flux per unit length between a wire of radius r1 and its neighbour of
+/// radius r2 is `(mu0 I / 2 pi) ln(4 s^2 / (pi^2 r1 r2))`, and each pair of turns adds that
+/// times its MLT. Strands side by side count as one conductor of their summed copper area.
+/// `conductor(k)` gives winding k's (equivalent radius, pitch) in mm.
+pub fn bifilar_leakage_h(
+    laid: &[Laid],
+    x: usize,
+    y: usize,
+    conductor: impl Fn(usize) -> (f64, f64),
+) -> f64 {
+    let mut l = 0.0;
+    for section in laid {
+        let LaidKind::Winding {
+            winding: Some(a),
+            with: Some(b),
+            layers,
+            ..
+        } = &section.kind
+        else {
+            continue;
+        };
+        if !((*a == x && *b == y) || (*a == y && *b == x)) {
+            continue;
+        }
+        let ((r1, p1), (r2, p2)) = (conductor(*a), conductor(*b));
+        let s = 0.5 * (p1 + p2);
+        if r1 <= 0.0 || r2 <= 0.0 || s <= 0.0 {
+            continue;
+        }
+        // s >= r1 + r2 >= 2 sqrt(r1 r2), so the ratio is at least 16 / pi^2: never negative.
+        let per_m = MU0_H_PER_M / (2.0 * std::f64::consts::PI)
+            * (4.0 * s * s / (std::f64::consts::PI.powi(2) * r1 * r2))
+                .ln()
+                .max(0.0);
+        for layer in layers {
+            l += per_m * f64::from(layer.turns) * layer.mlt_mm * MM;
+        }
+    }
+    l
 }

@@ -19,15 +19,21 @@ pub enum Constraint {
     TemperatureRise,
     /// The highest winding current density against the band's upper end.
     CurrentDensity,
+    /// Switch off-state voltage (no spike) against `switch_rating_v`, when given.
+    SwitchVoltage,
+    /// Hot spot (ambient + rise) against the lowest thermal class of wire, tape and bobbin.
+    HotSpot,
 }
 
 impl Constraint {
-    pub const ALL: [Constraint; 5] = [
+    pub const ALL: [Constraint; 7] = [
         Constraint::Fit,
         Constraint::ResetDuty,
         Constraint::Saturation,
         Constraint::TemperatureRise,
         Constraint::CurrentDensity,
+        Constraint::SwitchVoltage,
+        Constraint::HotSpot,
     ];
 
     pub fn key(self) -> &'static str {
@@ -37,6 +43,8 @@ impl Constraint {
             Constraint::Saturation => "saturation",
             Constraint::TemperatureRise => "temperature-rise",
             Constraint::CurrentDensity => "current-density",
+            Constraint::SwitchVoltage => "switch-voltage",
+            Constraint::HotSpot => "hot-spot",
         }
     }
 }

@@ -5,7 +5,7 @@ use super::core_loss;
 use super::evaluation::WindingEval;
 use super::magnetics;
 use super::memo::Memo;
-use super::thermal::{self, DEFAULT_RISE_LIMIT_C};
+use super::thermal::{self, DEFAULT_AMBIENT_C, DEFAULT_RISE_LIMIT_C, InsulationPart};
 use crate::model::{Build, Name, ResetSide};
 
 #[derive(Debug, Clone, PartialEq)]
@@ -29,6 +29,13 @@ pub struct LossEval {
     pub surface_estimated: bool,
     pub temperature_rise_c: Option<f64>,
     pub rise_limit_c: f64,
+    /// `[operating] ambient_c`, or the default.
+    pub ambient_c: f64,
+    /// `ambient_c + temperature_rise_c`.
+    pub hot_spot_c: Option<f64>,
+    /// The lowest thermal class of wire, tape and bobbin (IEC 60085 index, C), and whose.
+    pub class_limit_c: f64,
+    pub class_binding: InsulationPart,
 }
 
 /// `windings` carry their copper loss already.
@@ -89,7 +96,16 @@ pub fn evaluate(
         )
     });
     let surface_area_cm2 = given.or(estimated);
+    let temperature_rise_c = surface_area_cm2.map(|a| thermal::rise_c(total_loss_w, a));
+    let ambient_c = op.and_then(|o| o.ambient_c).unwrap_or(DEFAULT_AMBIENT_C);
+    let st = &build.setup;
+    let (class_limit_c, class_binding) =
+        thermal::binding_class(st.wire_class_c, st.tape_class_c, st.bobbin_class_c);
     LossEval {
+        ambient_c,
+        hot_spot_c: temperature_rise_c.map(|r| ambient_c + r),
+        class_limit_c,
+        class_binding,
         copper_loss_w,
         windings_without_current,
         core_loss_kw_m3,
@@ -101,7 +117,7 @@ pub fn evaluate(
         total_loss_w,
         surface_area_cm2,
         surface_estimated: given.is_none() && estimated.is_some(),
-        temperature_rise_c: surface_area_cm2.map(|a| thermal::rise_c(total_loss_w, a)),
+        temperature_rise_c,
         rise_limit_c: op
             .and_then(|o| o.rise_limit_c)
             .unwrap_or(DEFAULT_RISE_LIMIT_C),

@@ -4,6 +4,7 @@
 
 pub mod ac;
 pub mod bench;
+pub mod capacitance;
 pub mod constants;
 pub mod converter;
 pub mod core_loss;
@@ -22,6 +23,7 @@ pub mod memo;
 mod remarks;
 pub mod resistance;
 pub mod search;
+pub mod stress;
 pub mod thermal;
 pub mod validate;
 pub mod verify;
@@ -31,12 +33,14 @@ pub use bench::primary_secondary_leakage;
 pub use converter::ConverterEval;
 pub use currents::CurrentSource;
 pub use evaluation::{
-    AcFigures, Evaluation, LayerEval, LeakageEval, SectionEval, SectionKind, WindingEval,
+    AcFigures, Evaluation, LayerEval, LeakageEval, SectionEval, SectionKind, TemperatureSource,
+    WindingEval,
 };
 pub use limits::{Constraint, Limit};
 pub use losses::LossEval;
 pub use magnetics::AlSource;
 pub use remarks::{Note, Warning, WarningAt, WarningKind};
+pub use thermal::InsulationPart;
 pub use validate::{Invalid, Place, validate, validate_bobbin};
 
 use crate::model::Build;

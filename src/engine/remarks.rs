@@ -128,6 +128,33 @@ pub enum WarningKind {
     IsolationCreepageUnset {
         class: IsolationClass,
     },
+    HotSpot {
+        hot_c: f64,
+        ambient_c: f64,
+        class_c: f64,
+        part: &'static str,
+    },
+    LayerVoltage {
+        section: usize,
+        winding: Name,
+        volts: f64,
+        limit_v: f64,
+        layer_tape: u32,
+    },
+    BifilarVoltage {
+        section: usize,
+        a: Name,
+        b: Name,
+        volts: f64,
+        limit_v: f64,
+    },
+    SectionVoltage {
+        inner: (usize, Name),
+        outer: (usize, Name),
+        volts: f64,
+        limit_v: f64,
+        wraps: u32,
+    },
 }
 
 impl WarningKind {
@@ -148,6 +175,10 @@ impl WarningKind {
             WarningKind::Saturation { .. } => "saturation",
             WarningKind::CurrentDensity { .. } => "current-density",
             WarningKind::TemperatureRise { .. } => "temperature-rise",
+            WarningKind::HotSpot { .. } => "hot-spot",
+            WarningKind::LayerVoltage { .. } => "layer-voltage",
+            WarningKind::BifilarVoltage { .. } => "bifilar-voltage",
+            WarningKind::SectionVoltage { .. } => "section-voltage",
             WarningKind::AcBifilarPs { .. } => "ac-bifilar-ps",
             WarningKind::IsolationBifilar { .. } => "isolation-bifilar",
             WarningKind::IsolationWraps { .. } => "isolation-wraps",
@@ -281,6 +312,58 @@ impl fmt::Display for WarningKind {
                 "estimated temperature rise {rise_c:.0} C is above the {limit_c:.0} C limit ({loss_w:.2} W over \
                  {surface_cm2:.1} cm2): less loss (thinner strands, interleaving, more copper) or a larger core"
             ),
+            WarningKind::HotSpot {
+                hot_c,
+                ambient_c,
+                class_c,
+                part,
+            } => write!(
+                f,
+                "hot spot about {hot_c:.0} C ({ambient_c:.0} C air + the rise) is above the {class_c:.0} C \
+                 thermal class of the {part} (IEC 60085): less loss, a larger core, or parts of a higher class"
+            ),
+            WarningKind::LayerVoltage {
+                section,
+                winding,
+                volts,
+                limit_v,
+                layer_tape,
+            } => write!(
+                f,
+                "section {} ({winding}): up to {volts:.0} V between adjacent layers, above the {limit_v:.0} V \
+                 that two enamel films and {layer_tape} wrap(s) of tape are usually good for (from memory): \
+                 tape between the layers (layer_tape), or fewer turns a layer",
+                section + 1
+            ),
+            WarningKind::BifilarVoltage {
+                section,
+                a,
+                b,
+                volts,
+                limit_v,
+            } => write!(
+                f,
+                "section {} winds {a} bifilar with {b}: neighbouring turns hold off up to {volts:.0} V with \
+                 only their two enamel films between, usually good for {limit_v:.0} V (from memory): wind \
+                 them apart with tape between (no bifilar primary and reset on a mains input)",
+                section + 1
+            ),
+            WarningKind::SectionVoltage {
+                inner,
+                outer,
+                volts,
+                limit_v,
+                wraps,
+            } => write!(
+                f,
+                "up to {volts:.0} V between stack #{} ({}) and stack #{} ({}), above the {limit_v:.0} V that \
+                 the enamel and {wraps} wrap(s) of tape between are usually good for (from memory): more \
+                 tape between them",
+                inner.0 + 1,
+                inner.1,
+                outer.0 + 1,
+                outer.1
+            ),
             WarningKind::AcBifilarPs { primary, secondary } => write!(
                 f,
                 "\"{primary}\" and \"{secondary}\" are wound bifilar together: the layer model cannot give them \
@@ -361,7 +444,8 @@ impl fmt::Display for Note {
                     write!(f, "{a} with {b}")?;
                 }
                 f.write_str(
-                    ") share their layers: the 1-D model sees no leakage between the two windings of a pair",
+                    ") share their layers: the 1-D model across the build sees no leakage between the two windings \
+                     of a pair; what they have comes from the spacing of the wires' centres (small)",
                 )
             }
             Note::NoCoreData => f.write_str(
@@ -484,6 +568,33 @@ mod tests {
                 creepage_mm: 6.0,
             },
             WarningKind::IsolationCreepageUnset { class },
+            WarningKind::HotSpot {
+                hot_c: 140.0,
+                ambient_c: 60.0,
+                class_c: 130.0,
+                part: "tape",
+            },
+            WarningKind::LayerVoltage {
+                section: 0,
+                winding: n(),
+                volts: 400.0,
+                limit_v: 300.0,
+                layer_tape: 0,
+            },
+            WarningKind::BifilarVoltage {
+                section: 0,
+                a: n(),
+                b: Name::from("R"),
+                volts: 750.0,
+                limit_v: 300.0,
+            },
+            WarningKind::SectionVoltage {
+                inner: (0, Name::from("R")),
+                outer: (2, n()),
+                volts: 900.0,
+                limit_v: 800.0,
+                wraps: 1,
+            },
         ]
     }
 
@@ -509,9 +620,13 @@ mod tests {
             WarningKind::IsolationWraps { .. } => 17,
             WarningKind::IsolationMargin { .. } => 18,
             WarningKind::IsolationCreepageUnset { .. } => 19,
+            WarningKind::HotSpot { .. } => 20,
+            WarningKind::LayerVoltage { .. } => 21,
+            WarningKind::BifilarVoltage { .. } => 22,
+            WarningKind::SectionVoltage { .. } => 23,
         }
     }
-    const KINDS: usize = 20;
+    const KINDS: usize = 24;
 
     /// Every kind has a sample, a code of its own, a sentence, and a row in FORMAT.md's
     /// table of warning codes (the codes are a stable interface, documented there).

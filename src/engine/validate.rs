@@ -199,6 +199,20 @@ fn check_setup(build: &Build, _resolved: &Resolved, bad: &mut dyn FnMut(Place, S
             format!("must be a positive thickness in mm, got {}", s.tape_mm),
         );
     }
+    for (key, v) in [
+        ("wire_class_c", s.wire_class_c),
+        ("tape_class_c", s.tape_class_c),
+        ("bobbin_class_c", s.bobbin_class_c),
+    ] {
+        if let Some(v) = v
+            && !(v.is_finite() && (60.0..=300.0).contains(&v))
+        {
+            bad(
+                Place::Setup(key),
+                format!("expected a thermal class in C (IEC 60085: 130 B, 155 F, 180 H), got {v}"),
+            );
+        }
+    }
     if let Some(f) = s.frequency_khz
         && !positive(f)
     {
@@ -492,9 +506,30 @@ fn check_operating(build: &Build, _resolved: &Resolved, bad: &mut dyn FnMut(Plac
                 format!("expected a fraction between 0 and 1, got {d}"),
             );
         }
+        if !(op.switch_drop_v.is_finite()
+            && op.switch_drop_v >= 0.0
+            && op.switch_drop_v < op.vin_min_v)
+        {
+            bad(
+                Place::Operating("switch_drop_v"),
+                format!(
+                    "expected zero or a drop below vin_min_v, got {}",
+                    op.switch_drop_v
+                ),
+            );
+        }
+        if let Some(t) = op.ambient_c
+            && !(t.is_finite() && (-60.0..=200.0).contains(&t))
+        {
+            bad(
+                Place::Operating("ambient_c"),
+                format!("expected an ambient between -60 and 200 C, got {t}"),
+            );
+        }
         for (key, v) in [
             ("rise_limit_c", op.rise_limit_c),
             ("surface_area_cm2", op.surface_area_cm2),
+            ("switch_rating_v", op.switch_rating_v),
         ] {
             if let Some(v) = v
                 && !positive(v)

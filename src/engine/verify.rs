@@ -197,7 +197,7 @@ impl Verification {
 /// first secondary, and each other winding's ratio to the first primary.
 pub fn predictions(build: &Build, eval: &Evaluation, at_c: f64) -> Vec<Prediction> {
     let mut out = Vec::new();
-    let t_ratio = temperature_ratio(build.setup.temperature_c, at_c);
+    let t_ratio = temperature_ratio(eval.temperature_c, at_c);
     for e in &eval.windings {
         let r = e.dcr_ohm * t_ratio;
         out.push(Prediction {

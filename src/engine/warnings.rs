@@ -227,6 +227,62 @@ fn operating_warnings(
             },
         );
     }
+    if let Some(l) = &eval.losses
+        && let Some(hot) = l.hot_spot_c
+        && hot > l.class_limit_c
+    {
+        warn(
+            WarningAt::Build,
+            WarningKind::HotSpot {
+                hot_c: hot,
+                ambient_c: l.ambient_c,
+                class_c: l.class_limit_c,
+                part: l.class_binding.key(),
+            },
+        );
+    }
+    if let Some(st) = &eval.stress {
+        for ls in st.layers.iter().filter(|x| x.voltage_v > x.limit_v) {
+            warn(
+                WarningAt::Section(ls.section),
+                WarningKind::LayerVoltage {
+                    section: ls.section,
+                    winding: ls.winding.clone(),
+                    volts: ls.voltage_v,
+                    limit_v: ls.limit_v,
+                    layer_tape: ls.layer_tape,
+                },
+            );
+        }
+        for b in st.bifilar.iter().filter(|x| x.voltage_v > x.limit_v) {
+            warn(
+                WarningAt::Section(b.inner_section),
+                WarningKind::BifilarVoltage {
+                    section: b.inner_section,
+                    a: b.inner.clone(),
+                    b: b.outer.clone(),
+                    volts: b.voltage_v,
+                    limit_v: b.limit_v,
+                },
+            );
+        }
+        for p in st
+            .between_sections
+            .iter()
+            .filter(|x| x.voltage_v > x.limit_v)
+        {
+            warn(
+                WarningAt::Section(p.outer_section),
+                WarningKind::SectionVoltage {
+                    inner: (p.inner_section, p.inner.clone()),
+                    outer: (p.outer_section, p.outer.clone()),
+                    volts: p.voltage_v,
+                    limit_v: p.limit_v,
+                    wraps: p.wraps,
+                },
+            );
+        }
+    }
     let Some(c) = &eval.converter else {
         return;
     };

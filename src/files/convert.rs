@@ -490,10 +490,17 @@ fn setup_of(raw: Option<raw::SetupRaw>, spans: &mut Spans) -> Setup {
             put_opt(&mut spans.setup, "margin_mm", &s.margin_mm);
             put_opt(&mut spans.setup, "tape_mm", &s.tape_mm);
             put_opt(&mut spans.setup, "frequency_khz", &s.frequency_khz);
+            put_opt(&mut spans.setup, "wire_class_c", &s.wire_class_c);
+            put_opt(&mut spans.setup, "tape_class_c", &s.tape_class_c);
+            put_opt(&mut spans.setup, "bobbin_class_c", &s.bobbin_class_c);
             let d = Setup::default();
             let v = |x: Option<Spanned<f64>>, default: f64| x.map_or(default, Spanned::into_inner);
             Setup {
+                temperature_given: s.temperature_c.is_some(),
                 temperature_c: v(s.temperature_c, d.temperature_c),
+                wire_class_c: s.wire_class_c.map(Spanned::into_inner),
+                tape_class_c: s.tape_class_c.map(Spanned::into_inner),
+                bobbin_class_c: s.bobbin_class_c.map(Spanned::into_inner),
                 bulge: v(s.bulge, d.bulge),
                 margin_mm: v(s.margin_mm, d.margin_mm),
                 tape_mm: v(s.tape_mm, d.tape_mm),
@@ -649,6 +656,9 @@ fn operating_of(
             put_opt(sp, "duty_limit", &o.duty_limit);
             put_opt(sp, "rise_limit_c", &o.rise_limit_c);
             put_opt(sp, "surface_area_cm2", &o.surface_area_cm2);
+            put_opt(sp, "switch_drop_v", &o.switch_drop_v);
+            put_opt(sp, "ambient_c", &o.ambient_c);
+            put_opt(sp, "switch_rating_v", &o.switch_rating_v);
             if let Some(c) = &o.converter
                 && c.get_ref() != "forward"
             {
@@ -681,6 +691,9 @@ fn operating_of(
                 duty_limit: o.duty_limit.map(Spanned::into_inner),
                 rise_limit_c: o.rise_limit_c.map(Spanned::into_inner),
                 surface_area_cm2: o.surface_area_cm2.map(Spanned::into_inner),
+                switch_drop_v: o.switch_drop_v.map_or(0.0, Spanned::into_inner),
+                ambient_c: o.ambient_c.map(Spanned::into_inner),
+                switch_rating_v: o.switch_rating_v.map(Spanned::into_inner),
             })
         }
     })

@@ -125,7 +125,6 @@ fn default_of(path: &str, key: &str, generated: &Table) -> Option<Default> {
     let d = crate::model::Setup::default();
     Some(match (path, key) {
         ("", "title") => Str(""),
-        ("setup", "temperature_c") => Num(d.temperature_c),
         ("setup", "bulge") => Num(d.bulge),
         ("setup", "margin_mm") => Num(d.margin_mm),
         ("setup", "tape_mm") => Num(d.tape_mm),
@@ -134,7 +133,7 @@ fn default_of(path: &str, key: &str, generated: &Table) -> Option<Default> {
         ("stack", "layer_tape") => Num(0.0),
         ("operating", "converter") => Str("forward"),
         ("operating", "reset_side") => Str("primary"),
-        ("operating", "rectifier_drop_v") => Num(0.0),
+        ("operating", "rectifier_drop_v" | "switch_drop_v") => Num(0.0),
         ("bobbin", "name" | "origin") => Str(""),
         ("material", k) => {
             let grade = generated

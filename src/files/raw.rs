@@ -115,6 +115,9 @@ pub struct SetupRaw {
     pub margin_mm: Option<Spanned<f64>>,
     pub tape_mm: Option<Spanned<f64>>,
     pub frequency_khz: Option<Spanned<f64>>,
+    pub wire_class_c: Option<Spanned<f64>>,
+    pub tape_class_c: Option<Spanned<f64>>,
+    pub bobbin_class_c: Option<Spanned<f64>>,
 }
 
 #[derive(Debug, Deserialize)]
@@ -216,6 +219,9 @@ pub struct OperatingRaw {
     pub duty_limit: Option<Spanned<f64>>,
     pub rise_limit_c: Option<Spanned<f64>>,
     pub surface_area_cm2: Option<Spanned<f64>>,
+    pub switch_drop_v: Option<Spanned<f64>>,
+    pub ambient_c: Option<Spanned<f64>>,
+    pub switch_rating_v: Option<Spanned<f64>>,
 }
 
 #[derive(Debug, Deserialize)]

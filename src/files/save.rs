@@ -253,12 +253,24 @@ pub fn build_to_toml(build: &Build) -> String {
     }
     let s = &build.setup;
     let _ = writeln!(out, "\n[setup]");
-    let _ = writeln!(out, "temperature_c = {}", num(s.temperature_c));
+    // Left out, the windings are taken at ambient + rise: a save must not fix them at 20 C.
+    if s.temperature_given {
+        let _ = writeln!(out, "temperature_c = {}", num(s.temperature_c));
+    }
     let _ = writeln!(out, "bulge = {}", num(s.bulge));
     let _ = writeln!(out, "margin_mm = {}", num(s.margin_mm));
     let _ = writeln!(out, "tape_mm = {}", num(s.tape_mm));
     if let Some(f) = s.frequency_khz {
         let _ = writeln!(out, "frequency_khz = {}", num(f));
+    }
+    for (key, v) in [
+        ("wire_class_c", s.wire_class_c),
+        ("tape_class_c", s.tape_class_c),
+        ("bobbin_class_c", s.bobbin_class_c),
+    ] {
+        if let Some(v) = v {
+            let _ = writeln!(out, "{key} = {}", num(v));
+        }
     }
     for w in &build.windings {
         let _ = writeln!(out, "\n[[winding]]");
@@ -333,6 +345,17 @@ pub fn build_to_toml(build: &Build) -> String {
         }
         if let Some(v) = o.surface_area_cm2 {
             let _ = writeln!(out, "surface_area_cm2 = {}", num(v));
+        }
+        if o.switch_drop_v != 0.0 {
+            let _ = writeln!(out, "switch_drop_v = {}", num(o.switch_drop_v));
+        }
+        for (key, v) in [
+            ("ambient_c", o.ambient_c),
+            ("switch_rating_v", o.switch_rating_v),
+        ] {
+            if let Some(v) = v {
+                let _ = writeln!(out, "{key} = {}", num(v));
+            }
         }
     }
     if let Some(m) = &build.material {

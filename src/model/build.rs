@@ -38,6 +38,14 @@ pub enum BobbinSource {
 #[derive(Debug, Clone, PartialEq)]
 pub struct Setup {
     pub temperature_c: f64,
+    /// The file (or the user) gave `temperature_c`; without it, and with an operating point
+    /// whose rise can be predicted, the engine takes the windings at ambient + rise.
+    pub temperature_given: bool,
+    /// Thermal class (IEC 60085 temperature index, C) of the wire's enamel, the tape and the
+    /// bobbin; `None` takes the engine's defaults (`engine::thermal`).
+    pub wire_class_c: Option<f64>,
+    pub tape_class_c: Option<f64>,
+    pub bobbin_class_c: Option<f64>,
     pub bulge: f64,
     pub margin_mm: f64,
     pub tape_mm: f64,
@@ -51,6 +59,10 @@ impl Default for Setup {
     fn default() -> Self {
         Setup {
             temperature_c: 20.0,
+            temperature_given: false,
+            wire_class_c: None,
+            tape_class_c: None,
+            bobbin_class_c: None,
             bulge: 1.10,
             margin_mm: 0.0,
             tape_mm: 0.06,

@@ -21,6 +21,12 @@ pub struct Operating {
     pub rise_limit_c: Option<f64>,
     /// Outer surface of the wound transformer; `None` lets the engine estimate it.
     pub surface_area_cm2: Option<f64>,
+    /// On-state drop of the switch (V), taken off the input while it conducts; default 0.
+    pub switch_drop_v: f64,
+    /// Air around the transformer (C); `None` takes the engine's default.
+    pub ambient_c: Option<f64>,
+    /// Rated off-state voltage of the switch (V), checked against the off-state voltage.
+    pub switch_rating_v: Option<f64>,
 }
 
 /// Steinmetz coefficients: P in kW/m^3 with f in kHz and B in T.

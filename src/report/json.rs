@@ -28,7 +28,10 @@ pub struct Report<'a> {
     pub usable_width_mm: f64,
     pub spare_height_mm: f64,
     pub fill_factor: f64,
+    /// The winding temperature the figures use (given, or ambient + rise solved).
     pub temperature_c: f64,
+    /// Where `temperature_c` comes from: `given` or `solved`.
+    pub temperature_source: &'static str,
     pub sections: Vec<SectionJson<'a>>,
     pub windings: Vec<WindingJson<'a>>,
     pub leakage: Vec<LeakageJson<'a>>,
@@ -39,6 +42,13 @@ pub struct Report<'a> {
     #[serde(skip_serializing_if = "Option::is_none")]
     pub losses: Option<LossesJson<'a>>,
     pub limits: Vec<LimitJson<'a>>,
+    /// Primary-secondary and each winding's own capacitance, and the ringing.
+    pub capacitance: CapacitanceJson<'a>,
+    /// Layer, bifilar and section voltages, with an operating point.
+    #[serde(skip_serializing_if = "Option::is_none")]
+    pub voltage_stress: Option<StressJson<'a>>,
+    /// The limits the design breaks (fit included); empty when it passes.
+    pub failures: Vec<&'static str>,
     /// The bench readings as read (`[measured]`), when the build has them.
     #[serde(skip_serializing_if = "Option::is_none")]
     pub measured: Option<serde_json::Value>,
@@ -111,6 +121,10 @@ pub struct WindingJson<'a> {
     pub current_model_rms_a: Option<f64>,
     #[serde(skip_serializing_if = "Option::is_none")]
     pub copper_loss_w: Option<f64>,
+    #[serde(skip_serializing_if = "Option::is_none")]
+    pub proximity_loss_w: Option<f64>,
+    #[serde(skip_serializing_if = "Option::is_none")]
+    pub layer_voltage_v: Option<f64>,
 }
 
 /// The AC figures of a winding, written among its other keys.
@@ -132,6 +146,8 @@ pub struct LeakageJson<'a> {
     pub to: &'a Name,
     pub referred_to: &'a Name,
     pub uh: f64,
+    /// The part of `uh` from the spacing of a bifilar pair's wires.
+    pub bifilar_uh: f64,
 }
 
 /// One entry of `warnings`, with the one key (if any) that says what it is beside.
@@ -162,6 +178,7 @@ pub struct ConverterJson {
     pub duty_needed_at_vin_min: f64,
     pub duty_needed_at_vin_max: f64,
     pub duty_margin: f64,
+    pub duty_needed_total_at_vin_min: f64,
     pub duty_used_at_vin_min: f64,
     pub reset_time_us: f64,
     pub reset_time_worst_us: f64,
@@ -193,6 +210,16 @@ pub struct ConverterJson {
     pub reset_rms_a: Option<f64>,
     #[serde(skip_serializing_if = "Option::is_none")]
     pub reset_current_density_a_mm2: Option<f64>,
+    #[serde(skip_serializing_if = "Option::is_none")]
+    pub switch_rating_v: Option<f64>,
+    #[serde(skip_serializing_if = "Option::is_none")]
+    pub leakage_ps_uh: Option<f64>,
+    #[serde(skip_serializing_if = "Option::is_none")]
+    pub clamp_peak_a: Option<f64>,
+    #[serde(skip_serializing_if = "Option::is_none")]
+    pub clamp_loss_w: Option<f64>,
+    #[serde(skip_serializing_if = "Option::is_none")]
+    pub duty_lost_to_leakage: Option<f64>,
 }
 
 /// The `losses` object, present when some winding has a current.
@@ -203,6 +230,11 @@ pub struct LossesJson<'a> {
     pub rise_limit_c: f64,
     pub surface_estimated: bool,
     pub windings_without_current: &'a [Name],
+    pub ambient_c: f64,
+    pub class_limit_c: f64,
+    pub class_binding: &'static str,
+    #[serde(skip_serializing_if = "Option::is_none")]
+    pub hot_spot_c: Option<f64>,
     #[serde(skip_serializing_if = "Option::is_none")]
     pub core_loss_w: Option<f64>,
     #[serde(skip_serializing_if = "Option::is_none")]
@@ -219,6 +251,52 @@ pub struct LossesJson<'a> {
     pub surface_area_cm2: Option<f64>,
     #[serde(skip_serializing_if = "Option::is_none")]
     pub temperature_rise_c: Option<f64>,
+}
+
+/// The `capacitance` object.
+#[derive(Debug, Serialize)]
+pub struct CapacitanceJson<'a> {
+    pub primary_secondary_pf: f64,
+    pub ringing_khz: Option<f64>,
+    pub self_pf: Vec<SelfCapacitanceJson<'a>>,
+}
+
+/// One winding's own capacitance (`null` where the layer method does not apply).
+#[derive(Debug, Serialize)]
+pub struct SelfCapacitanceJson<'a> {
+    pub winding: &'a Name,
+    pub pf: Option<f64>,
+}
+
+/// The `voltage_stress` object.
+#[derive(Debug, Serialize)]
+pub struct StressJson<'a> {
+    pub volts_per_turn_v: f64,
+    pub layers: Vec<LayerStressJson<'a>>,
+    pub bifilar: Vec<PairStressJson<'a>>,
+    pub between_sections: Vec<PairStressJson<'a>>,
+}
+
+/// The highest voltage between two adjacent layers of a section.
+#[derive(Debug, Serialize)]
+pub struct LayerStressJson<'a> {
+    pub section: usize,
+    pub winding: &'a Name,
+    pub voltage_v: f64,
+    pub limit_v: f64,
+    pub layer_tape: u32,
+}
+
+/// The voltage across a bifilar pair or between two adjacent sections.
+#[derive(Debug, Serialize)]
+pub struct PairStressJson<'a> {
+    pub inner_section: usize,
+    pub outer_section: usize,
+    pub inner: &'a Name,
+    pub outer: &'a Name,
+    pub voltage_v: f64,
+    pub limit_v: f64,
+    pub wraps: u32,
 }
 
 /// One entry of `limits`, binding first.
@@ -260,7 +338,8 @@ pub fn report<'a>(build: &'a Build, eval: &'a Evaluation) -> Report<'a> {
         usable_width_mm: eval.usable_width_mm,
         spare_height_mm: eval.spare_height_mm,
         fill_factor: eval.fill_factor,
-        temperature_c: build.setup.temperature_c,
+        temperature_c: eval.temperature_c,
+        temperature_source: eval.temperature_source.key(),
         sections: eval.sections.iter().map(section).collect(),
         windings: eval.windings.iter().map(winding).collect(),
         leakage: eval.leakage.iter().map(leakage).collect(),
@@ -269,6 +348,9 @@ pub fn report<'a>(build: &'a Build, eval: &'a Evaluation) -> Report<'a> {
         converter: eval.converter.as_ref().map(converter),
         losses: eval.losses.as_ref().map(losses),
         limits: eval.limits.iter().map(limit).collect(),
+        capacitance: capacitance(eval),
+        voltage_stress: eval.stress.as_ref().map(stress),
+        failures: eval.failures().iter().map(|c| c.key()).collect(),
         // Both or neither, as `verify --json` gives them.
         measured: checked
             .as_ref()
@@ -343,6 +425,8 @@ fn winding(w: &WindingEval) -> WindingJson<'_> {
         current_source: w.current_source.map(|s| s.key()),
         current_model_rms_a: w.current_model_rms_a,
         copper_loss_w: w.copper_loss_w,
+        proximity_loss_w: w.proximity_loss_w,
+        layer_voltage_v: w.layer_voltage_v,
     }
 }
 
@@ -356,12 +440,61 @@ fn ac(a: &AcFigures) -> AcJson {
     }
 }
 
+fn capacitance(eval: &Evaluation) -> CapacitanceJson<'_> {
+    let cap = &eval.capacitance;
+    CapacitanceJson {
+        primary_secondary_pf: cap.primary_secondary_pf,
+        ringing_khz: cap.ringing_khz,
+        self_pf: eval
+            .windings
+            .iter()
+            .zip(&cap.self_pf)
+            .map(|(w, pf)| SelfCapacitanceJson {
+                winding: &w.name,
+                pf: *pf,
+            })
+            .collect(),
+    }
+}
+
+fn stress(st: &crate::engine::stress::StressEval) -> StressJson<'_> {
+    StressJson {
+        volts_per_turn_v: st.volts_per_turn_v,
+        layers: st
+            .layers
+            .iter()
+            .map(|l| LayerStressJson {
+                section: l.section,
+                winding: &l.winding,
+                voltage_v: l.voltage_v,
+                limit_v: l.limit_v,
+                layer_tape: l.layer_tape,
+            })
+            .collect(),
+        bifilar: st.bifilar.iter().map(pair).collect(),
+        between_sections: st.between_sections.iter().map(pair).collect(),
+    }
+}
+
+fn pair(p: &crate::engine::stress::PairStress) -> PairStressJson<'_> {
+    PairStressJson {
+        inner_section: p.inner_section,
+        outer_section: p.outer_section,
+        inner: &p.inner,
+        outer: &p.outer,
+        voltage_v: p.voltage_v,
+        limit_v: p.limit_v,
+        wraps: p.wraps,
+    }
+}
+
 fn leakage(l: &LeakageEval) -> LeakageJson<'_> {
     LeakageJson {
         from: &l.from,
         to: &l.to,
         referred_to: &l.referred_to,
         uh: l.uh,
+        bifilar_uh: l.bifilar_uh,
     }
 }
 
@@ -396,6 +529,7 @@ fn converter(c: &ConverterEval) -> ConverterJson {
         duty_needed_at_vin_min: c.duty_needed_at_vin_min,
         duty_needed_at_vin_max: c.duty_needed_at_vin_max,
         duty_margin: c.duty_margin,
+        duty_needed_total_at_vin_min: c.duty_needed_total_at_vin_min,
         duty_used_at_vin_min: c.duty_used_at_vin_min,
         reset_time_us: c.reset_time_us,
         reset_time_worst_us: c.reset_time_worst_us,
@@ -412,6 +546,11 @@ fn converter(c: &ConverterEval) -> ConverterJson {
         reset_peak_worst_a: c.reset_peak_worst_a,
         reset_rms_a: c.reset_rms_a,
         reset_current_density_a_mm2: c.reset_current_density_a_mm2,
+        switch_rating_v: c.switch_rating_v,
+        leakage_ps_uh: c.leakage_ps_uh,
+        clamp_peak_a: c.clamp_peak_a,
+        clamp_loss_w: c.clamp_loss_w,
+        duty_lost_to_leakage: c.duty_lost_to_leakage,
     }
 }
 
@@ -422,6 +561,10 @@ fn losses(l: &LossEval) -> LossesJson<'_> {
         rise_limit_c: l.rise_limit_c,
         surface_estimated: l.surface_estimated,
         windings_without_current: &l.windings_without_current,
+        ambient_c: l.ambient_c,
+        class_limit_c: l.class_limit_c,
+        class_binding: l.class_binding.key(),
+        hot_spot_c: l.hot_spot_c,
         core_loss_w: l.core_loss_w,
         core_loss_kw_m3: l.core_loss_kw_m3,
         core_volume_mm3: l.core_volume_mm3,

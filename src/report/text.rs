@@ -4,7 +4,8 @@
 pub use super::textfmt::{truncate, wire_label};
 use super::wrap;
 use crate::engine::{
-    AlSource, ConverterEval, CurrentSource, Evaluation, Limit, LossEval, SectionKind, WarningAt,
+    AlSource, ConverterEval, CurrentSource, Evaluation, Limit, LossEval, SectionKind,
+    TemperatureSource, WarningAt,
 };
 use crate::model::{BobbinSource, Build, ResetSide, Tube};
 use std::fmt::Write as _;
@@ -24,6 +25,49 @@ pub fn verdict(eval: &Evaluation) -> String {
             eval.height_with_allowance_mm, eval.window_height_mm, -eval.spare_height_mm
         )
     }
+}
+
+/// A temperature as the report prints it: as given when whole, else to 0.1 C.
+fn temperature_figure(t: f64) -> String {
+    if t.fract() == 0.0 {
+        format!("{t}")
+    } else {
+        format!("{t:.1}")
+    }
+}
+
+/// Where the winding temperature came from, when it was not given.
+fn temperature_how(eval: &Evaluation) -> String {
+    match (eval.temperature_source, &eval.losses) {
+        (TemperatureSource::AmbientPlusRise, Some(l)) => format!(
+            " (ambient {} C + predicted rise)",
+            temperature_figure(l.ambient_c)
+        ),
+        (TemperatureSource::Ambient, _) => " (ambient, no rise predicted)".into(),
+        (TemperatureSource::Default, _) => " (default)".into(),
+        _ => String::new(),
+    }
+}
+
+/// The last line of the report: whether the design passes, and if not what fails.
+pub fn outcome(eval: &Evaluation) -> String {
+    let failures = eval.failures();
+    if failures.is_empty() {
+        return "PASSES: the build fits and every limit holds".into();
+    }
+    let what: Vec<String> = failures
+        .iter()
+        .map(|c| match eval.limits.iter().find(|l| l.constraint == *c) {
+            Some(l) => format!(
+                "{} ({} against {})",
+                c.key(),
+                limit_figure(l, l.used),
+                limit_figure(l, l.allowed)
+            ),
+            None => c.key().to_string(),
+        })
+        .collect();
+    format!("FAILS: {}", what.join(", "))
 }
 
 pub fn bobbin_line(build: &Build) -> String {
@@ -53,9 +97,13 @@ pub fn render(build: &Build, eval: &Evaluation) -> String {
     header_block(&mut o, build, eval);
     stack_block(&mut o, eval);
     windings_block(&mut o, build, eval);
+    capacitance_block(&mut o, eval);
     currents_block(&mut o, eval);
     if let Some(c) = &eval.converter {
         converter_block(&mut o, c);
+    }
+    if let Some(st) = &eval.stress {
+        stress_block(&mut o, st);
     }
     if let Some(l) = &eval.losses {
         losses_block(&mut o, l);
@@ -86,8 +134,12 @@ fn header_block(o: &mut String, build: &Build, eval: &Evaluation) {
     let s = &build.setup;
     let freq = frequency_text(build);
     let setup = format!(
-        "setup: {} C, allowance x{:.2}, margins {:.2} mm, tape {:.3} mm/wrap, {freq}",
-        s.temperature_c, s.bulge, s.margin_mm, s.tape_mm
+        "setup: {} C{}, allowance x{:.2}, margins {:.2} mm, tape {:.3} mm/wrap, {freq}",
+        temperature_figure(eval.temperature_c),
+        temperature_how(eval),
+        s.bulge,
+        s.margin_mm,
+        s.tape_mm
     );
     for l in wrap(&setup, WIDTH, "  ") {
         let _ = writeln!(o, "{l}");
@@ -185,8 +237,11 @@ fn frequency_text(build: &Build) -> String {
 /// The windings with their resistance, the AC figures and the leakage.
 fn windings_block(o: &mut String, build: &Build, eval: &Evaluation) {
     let freq = frequency_text(build);
-    let s = &build.setup;
-    let _ = writeln!(o, "\nWindings, resistance at {} C", s.temperature_c);
+    let _ = writeln!(
+        o,
+        "\nWindings, resistance at {} C",
+        temperature_figure(eval.temperature_c)
+    );
     let _ = writeln!(
         o,
         "  name   role       turns  wire             length m  MLT mm   DCR ohm  A/mm2"
@@ -240,8 +295,13 @@ fn windings_block(o: &mut String, build: &Build, eval: &Evaluation) {
     if !eval.leakage.is_empty() {
         let _ = writeln!(o, "\nLeakage inductance (1-D field across the build)");
         for l in &eval.leakage {
+            let bifilar = if l.bifilar_uh > 0.0 {
+                format!(" ({:.3} uH of it between the bifilar wires)", l.bifilar_uh)
+            } else {
+                String::new()
+            };
             let line = format!(
-                "{} - {}: {:.3} uH referred to {}",
+                "{} - {}: {:.3} uH referred to {}{bifilar}",
                 l.from, l.to, l.uh, l.referred_to
             );
             for l in wrap(&line, WIDTH - 2, "    ") {
@@ -277,6 +337,10 @@ fn remarks_block(o: &mut String, build: &Build, eval: &Evaluation) {
         for l in wrap(&format!("note: {n}"), WIDTH - 2, "    ") {
             let _ = writeln!(o, "  {l}");
         }
+    }
+    let _ = writeln!(o);
+    for l in wrap(&outcome(eval), WIDTH, "  ") {
+        let _ = writeln!(o, "{l}");
     }
 }
 
@@ -330,6 +394,17 @@ fn currents_block(o: &mut String, eval: &Evaluation) {
         );
     }
     let band = crate::engine::limits::CURRENT_DENSITY_BAND_A_MM2;
+    for w in &eval.windings {
+        if let Some(p) = w.proximity_loss_w {
+            let line = format!(
+                "{}: {p:.3} W of its loss from the field of the others (proximity)",
+                w.name
+            );
+            for l in wrap(&line, WIDTH - 2, "    ") {
+                let _ = writeln!(o, "  {l}");
+            }
+        }
+    }
     let _ = writeln!(
         o,
         "  current density band {:.0}-{:.0} A/mm2 RMS (common practice, natural convection)",
@@ -372,10 +447,32 @@ fn converter_block(o: &mut String, c: &ConverterEval) {
     );
     let _ = writeln!(
         o,
-        "  duty needed at vin min {:>7.1} %   margin {:+.1} points",
-        pct(c.duty_needed_at_vin_min),
+        "  duty needed at vin min {:>7.1} %   ideal switch",
+        pct(c.duty_needed_at_vin_min)
+    );
+    let drop = c.duty_needed_total_at_vin_min
+        - c.duty_lost_to_leakage.unwrap_or(0.0)
+        - c.duty_needed_at_vin_min;
+    let mut extra = Vec::new();
+    if drop > 0.0 {
+        extra.push(format!("+ switch drop {:.2} %", pct(drop)));
+    }
+    if let Some(lost) = c.duty_lost_to_leakage {
+        extra.push(format!("+ leakage {:.2} %", pct(lost)));
+    }
+    let with = if extra.is_empty() {
+        String::new()
+    } else {
+        format!("{} = ", extra.join(", "))
+    };
+    let line = format!(
+        "{with}{:.1} %, margin {:+.1} points",
+        pct(c.duty_needed_total_at_vin_min),
         pct(c.duty_margin)
     );
+    for l in wrap(&line, WIDTH - 4, "  ") {
+        let _ = writeln!(o, "    {l}");
+    }
     let _ = writeln!(
         o,
         "  duty needed at vin max {:>7.1} %",
@@ -386,11 +483,21 @@ fn converter_block(o: &mut String, c: &ConverterEval) {
         "  reset time             {:>7.2} us steady at vin min, {:.2} us worst case",
         c.reset_time_us, c.reset_time_worst_us
     );
+    let rating = c
+        .switch_rating_v
+        .map_or(String::new(), |r| format!(", rated {r:.0} V"));
     let _ = writeln!(
         o,
-        "  switch off-state       {:>7.1} V (plus the leakage spike)",
+        "  switch off-state       {:>7.1} V plus a spike set by the clamp{rating}",
         c.switch_voltage_v
     );
+    if let (Some(loss), Some(pk), Some(l)) = (c.clamp_loss_w, c.clamp_peak_a, c.leakage_ps_uh) {
+        let _ = writeln!(
+            o,
+            "  clamp or snubber       {:>7.3} W: 1/2 x {l:.2} uH (P-S) x ({pk:.3} A)^2 x f",
+            loss
+        );
+    }
     match c.flux_swing_worst_mt {
         Some(b) => {
             let head = c
@@ -448,6 +555,86 @@ fn converter_block(o: &mut String, c: &ConverterEval) {
             };
             let _ = writeln!(o, "    {j:.2} A/mm2 in the reset wire, {why}");
         }
+    }
+}
+
+fn capacitance_block(o: &mut String, eval: &Evaluation) {
+    let c = &eval.capacitance;
+    let _ = writeln!(
+        o,
+        "\nCapacitance (plates across tape and enamel, eps_r 3.2 and 3.5, from memory)"
+    );
+    let _ = writeln!(
+        o,
+        "  primary - secondary    {:>8.1} pF",
+        c.primary_secondary_pf
+    );
+    for (w, cs) in eval.windings.iter().zip(&c.self_pf) {
+        if let Some(cs) = cs {
+            let _ = writeln!(
+                o,
+                "  {:<8} self          {cs:>8.1} pF (layer energy method)",
+                truncate(&w.name, 8)
+            );
+        }
+    }
+    if let Some(f) = c.ringing_khz {
+        let _ = writeln!(
+            o,
+            "  ringing, P-S leakage against the primary's own: {:.2} MHz",
+            f / 1e3
+        );
+    }
+}
+
+fn stress_block(o: &mut String, st: &crate::engine::stress::StressEval) {
+    let _ = writeln!(
+        o,
+        "\nVoltage stress ({:.2} V a turn at most; usual working figures, from memory)",
+        st.volts_per_turn_v
+    );
+    let mark = |v: f64, lim: f64| if v > lim { "  OVER" } else { "" };
+    for l in &st.layers {
+        let _ = writeln!(
+            o,
+            "  stack #{:<2} {:<8} layer to layer   {:>7.0} V of {:>5.0} V{}",
+            l.section + 1,
+            truncate(&l.winding, 8),
+            l.voltage_v,
+            l.limit_v,
+            mark(l.voltage_v, l.limit_v)
+        );
+    }
+    for b in &st.bifilar {
+        let pair = format!("{}+{}", b.inner, b.outer);
+        let _ = writeln!(
+            o,
+            "  stack #{:<2} {:<8} bifilar pair     {:>7.0} V of {:>5.0} V{}",
+            b.inner_section + 1,
+            truncate(&pair, 8),
+            b.voltage_v,
+            b.limit_v,
+            mark(b.voltage_v, b.limit_v)
+        );
+    }
+    for p in &st.between_sections {
+        let pair = format!("{}/{}", p.inner, p.outer);
+        let _ = writeln!(
+            o,
+            "  stack #{}/#{:<2} {:<6} between sections {:>7.0} V of {:>5.0} V{}",
+            p.inner_section + 1,
+            p.outer_section + 1,
+            truncate(&pair, 6),
+            p.voltage_v,
+            p.limit_v,
+            mark(p.voltage_v, p.limit_v)
+        );
+    }
+    if st.layers.is_empty() && st.bifilar.is_empty() && st.between_sections.is_empty() {
+        let _ = writeln!(
+            o,
+            "  single-layer sections, no bifilar pairs: nothing to check"
+        );
     }
 }
 
@@ -514,6 +701,17 @@ fn losses_block(o: &mut String, l: &LossEval) {
                 "  temperature rise       {t:>7.1} C (McLyman) against a {:.0} C limit",
                 l.rise_limit_c
             );
+            if let Some(hot) = l.hot_spot_c {
+                let class = crate::engine::thermal::class_letter(l.class_limit_c)
+                    .map_or(String::new(), |c| format!("class {c} "));
+                let _ = writeln!(
+                    o,
+                    "  hot spot               {hot:>7.1} C in {:.0} C air, against {class}{:.0} C ({})",
+                    l.ambient_c,
+                    l.class_limit_c,
+                    l.class_binding.key()
+                );
+            }
         }
         _ => {
             let _ = writeln!(

@@ -13,7 +13,7 @@ use turnstack::model::Role;
 fn dcr_at_the_bench_follows_iec_60028() {
     let (b, e) = example("bench-forward");
     assert!((b.setup.temperature_c - 100.0).abs() < 1e-9);
-    let at_bench = bench::dcr_at_bench(&b, &e, 20.0);
+    let at_bench = bench::dcr_at_bench(&e, 20.0);
     assert_eq!(at_bench.len(), e.windings.len());
     for (w, got) in e.windings.iter().zip(&at_bench) {
         let want = w.dcr_ohm / (1.0 + 0.00393 * 80.0);
@@ -26,7 +26,7 @@ fn dcr_at_the_bench_follows_iec_60028() {
         assert!(got.low < got.expected && got.expected < got.high);
     }
     // At the build's own temperature the figure is the evaluation's.
-    for (w, got) in e.windings.iter().zip(bench::dcr_at_bench(&b, &e, 100.0)) {
+    for (w, got) in e.windings.iter().zip(bench::dcr_at_bench(&e, 100.0)) {
         assert!((got.expected - w.dcr_ohm).abs() < 1e-12 * w.dcr_ohm.max(1.0));
     }
 }

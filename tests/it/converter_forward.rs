@@ -148,7 +148,13 @@ fn duty_needed_and_reset_time_follow_volt_second_balance() {
     let d = 5.5 * 24.0 / (8.0 * 36.0);
     assert!(close(c.duty_needed_at_vin_min, d, 1e-12));
     assert!(close(c.reset_time_us, d * 10.0, 1e-12));
-    assert!(close(c.duty_margin, 0.5 - d, 1e-12));
+    // The margin is less the time the primary current takes to rise through the leakage to
+    // the reflected load current: L dI/dt = Vin, so t = L (Iout Ns/Np) / Vin_min (Erickson &
+    // Maksimovic sec. 6.3.2 leave it out; it is the usual first-order correction).
+    let l_h = c.leakage_ps_uh.expect("P-S leakage") * 1e-6;
+    let lost = l_h * (2.0 * 8.0 / 24.0) / 36.0 * 100e3;
+    assert!(close(c.duty_lost_to_leakage.unwrap(), lost, 1e-12));
+    assert!(close(c.duty_margin, 0.5 - d - lost, 1e-12));
     let e = engine::evaluate(&build(24, 4, 24, "", MATERIAL));
     assert!(e.converter.as_ref().unwrap().duty_margin < 0.0);
     assert!(e.warnings.iter().any(|w| w.code() == "duty-short"));
@@ -211,8 +217,11 @@ fn gapped_al_follows_the_magnetic_circuit_iec_60205() {
     let gapped = engine::evaluate(&build(20, 10, 20, "", &format!("{MATERIAL}\ngap_mm = 0.1")));
     let c = gapped.converter.unwrap();
     assert_eq!(c.al_source, Some(engine::AlSource::Gapped));
-    let want = magnetics::al_from_gap_nh(40.0, 50.0, 2300.0, 0.1);
-    assert!(close(c.al_nh.unwrap(), want, 1e-12));
+    // mu0 Ae / (l_g + le / mu_i) with Ae 40 mm^2, le 50 mm, mu_i 2300, l_g 0.1 mm, in nH:
+    // 4 pi 1e-7 x 40e-6 / (0.1e-3 + 50e-3 / 2300) = 412.9 nH.
+    let want = 4.0e-7 * std::f64::consts::PI * 40e-6 / (0.1e-3 + 50e-3 / 2300.0) * 1e9;
+    assert!(close(want, 412.9, 5e-4), "{want}");
+    assert!(close(c.al_nh.unwrap(), want, 1e-9));
 }
 
 /// The reset winding carries only the magnetising current, so thin wire is fine (common
@@ -322,13 +331,12 @@ fn temperature_rise_from_the_build_with_a_user_limit() {
         l.copper_loss_w + l.core_loss_w.unwrap(),
         1e-12
     ));
-    let area = thermal::SURFACE_KS * (20.0 * 8.0 * 40.0 * 1e-4f64).sqrt();
-    assert!(close(l.surface_area_cm2.unwrap(), area, 1e-12));
-    assert!(close(
-        l.temperature_rise_c.unwrap(),
-        thermal::rise_c(l.total_loss_w, area),
-        1e-12
-    ));
+    // McLyman's surface from the area product, A_t = K_s Ap^0.5 with his pot-core K_s = 33.8
+    // (from memory): Wa = 20 x 8 mm^2 = 1.6 cm^2, Ae = 0.4 cm^2, Ap = 0.64 cm^4, A_t = 27.04 cm^2.
+    assert!(close(l.surface_area_cm2.unwrap(), 27.04, 1e-9));
+    // McLyman's rise, 450 (P / A_t)^0.826, written out here.
+    let want = 450.0 * (l.total_loss_w / 27.04f64).powf(0.826);
+    assert!(close(l.temperature_rise_c.unwrap(), want, 1e-9));
     assert!(e.warnings.iter().any(|w| w.code() == "temperature-rise"));
     let given = engine::evaluate(&build(20, 10, 20, "surface_area_cm2 = 50", MATERIAL));
     let l = given.losses.unwrap();

@@ -33,6 +33,12 @@ const TOP_EXTRA: &[&str] = &[
     "limits",
     "converter",
     "losses",
+    "temperature_source",
+    "capacitance",
+    "voltage_stress",
+    "failures",
+    "measured",
+    "verify",
 ];
 const WINDING_SECTION_REQUIRED: &[&str] = &[
     "kind",
@@ -73,8 +79,10 @@ const WINDING_EXTRA: &[&str] = &[
     "current_source",
     "current_model_rms_a",
     "copper_loss_w",
+    "proximity_loss_w",
+    "layer_voltage_v",
 ];
-const LEAKAGE_KEYS: &[&str] = &["from", "to", "referred_to", "uh"];
+const LEAKAGE_KEYS: &[&str] = &["from", "to", "referred_to", "uh", "bifilar_uh"];
 const WARNING_REQUIRED: &[&str] = &["code", "message"];
 const WARNING_EXTRA: &[&str] = &["section", "winding", "about"];
 const CONVERTER_REQUIRED: &[&str] = &[
@@ -105,6 +113,12 @@ const CONVERTER_EXTRA: &[&str] = &[
     "reset_peak_worst_a",
     "reset_rms_a",
     "reset_current_density_a_mm2",
+    "duty_needed_total_at_vin_min",
+    "switch_rating_v",
+    "leakage_ps_uh",
+    "clamp_peak_a",
+    "clamp_loss_w",
+    "duty_lost_to_leakage",
 ];
 const LOSSES_REQUIRED: &[&str] = &[
     "copper_loss_w",
@@ -112,6 +126,9 @@ const LOSSES_REQUIRED: &[&str] = &[
     "rise_limit_c",
     "surface_estimated",
     "windings_without_current",
+    "ambient_c",
+    "class_limit_c",
+    "class_binding",
 ];
 const LOSSES_EXTRA: &[&str] = &[
     "core_loss_w",
@@ -122,6 +139,7 @@ const LOSSES_EXTRA: &[&str] = &[
     "core_reset_fraction",
     "surface_area_cm2",
     "temperature_rise_c",
+    "hot_spot_c",
 ];
 /// FORMAT.md, "Limits": each entry of `limits`.
 const LIMIT_KEYS: &[&str] = &[

@@ -11,6 +11,7 @@ mod cli_writes;
 mod converter_examples;
 mod converter_forward;
 mod core_relations;
+mod fidelity;
 mod fit_ranking;
 mod golden_outputs;
 mod json_contract;

@@ -96,6 +96,14 @@ fn temperature_coefficient_is_iec_60028_and_r100_over_r20_is_1_3144() {
 const LEE_PS_UH: f64 = 0.8 * PI; // 2.5133 uH
 const LEE_INTERLEAVED_UH: f64 = 0.24 * PI; // 0.75398 uH
 
+/// The builds below wind between margins of 0.8 mm on a 20 mm window, so the wound breadth
+/// (FORMAT.md `b_w`, the spec's "window width less both margins") is 18.4 mm, and Lee's
+/// formula, inverse in `b_w`, gives his figure times 20 / 18.4.
+const LEE_BUILD_BW_MM: f64 = 18.4;
+fn lee_at_build_breadth(lee_uh_at_20mm: f64) -> f64 {
+    lee_uh_at_20mm * 20.0 / LEE_BUILD_BW_MM
+}
+
 /// One hand-made winding section of a single layer (for the function-level checks).
 fn one_layer(winding: usize, y_mm: f64, height_mm: f64, turns: u32, tube: &Tube) -> Laid {
     Laid {
@@ -228,8 +236,8 @@ fn mmf_integral_weights_a_growing_mlt_by_f_squared_lee_form() {
     );
 }
 
-/// The text of a two-winding build for the Lee cases: window 20 mm wide (b_w), margins 0.8 mm
-/// so the usable width is 18.4 mm; P and S of measured wire od 0.3 mm, 3 strands, pitch 0.9:
+/// The text of a two-winding build for the Lee cases: window 20 mm wide, margins 0.8 mm
+/// so the usable width (and the wound breadth b_w) is 18.4 mm; P and S of measured wire od 0.3 mm, 3 strands, pitch 0.9:
 /// floor(18.4 / 0.9 = 20.4) = 20 turns a layer, so 40 turns are 2 full layers of 0.3 mm (a
 /// section of 0.6 mm whose MMF rises at one slope throughout, as in Lee's plain section).
 /// Tape 0.1 mm a wrap gives the gap c.
@@ -244,7 +252,8 @@ fn lee_build(diameter_mm: f64, s_winding: &str, stack: &str) -> String {
     )
 }
 
-/// Lee (1955) P-S worked case built end to end as a build file: 2.5133 uH referred to P.
+/// Lee (1955) P-S worked case built end to end as a build file: 2.5133 uH referred to P at
+/// b_w = 20 mm, so 2.5133 x 20 / 18.4 = 2.7319 uH on the 18.4 mm the turns occupy.
 #[test]
 fn build_with_two_plain_sections_reproduces_lee_2_5133_uh() {
     let stack = "[[stack]]\nwinding = \"P\"\n[[stack]]\ntape = 1\n[[stack]]\nwinding = \"S\"\n";
@@ -258,8 +267,13 @@ fn build_with_two_plain_sections_reproduces_lee_2_5133_uh() {
         (l.from.as_str(), l.to.as_str(), l.referred_to.as_str()),
         ("P", "S", "P")
     );
-    assert_rel(l.uh, LEE_PS_UH, 1e-9, "P-S leakage (uH)");
-    assert_rel(l.uh, 2.5133, 5e-5, "vs 2.5133 uH");
+    assert_rel(
+        l.uh,
+        lee_at_build_breadth(LEE_PS_UH),
+        1e-9,
+        "P-S leakage (uH)",
+    );
+    assert_rel(l.uh, 2.7319, 5e-5, "vs 2.7319 uH");
 }
 
 /// Lee (1955): the same field with a 20-turn secondary of 0.6 mm wire (one layer of 0.6 mm,
@@ -272,14 +286,15 @@ fn build_with_fewer_secondary_turns_refers_lee_leakage_to_the_primary() {
     assert_rel(e.build_height_mm, 1.3, 1e-12, "build height");
     assert_rel(
         e.leakage[0].uh,
-        LEE_PS_UH,
+        lee_at_build_breadth(LEE_PS_UH),
         1e-9,
         "P-S leakage referred to P",
     );
 }
 
 /// Lee (1955) interleaved P/2-S-P/2 built end to end: P in two sections of 20 turns (one layer
-/// of 0.3 mm each), S of 40 turns between them, one wrap of 0.1 mm tape each side: 0.75398 uH.
+/// of 0.3 mm each), S of 40 turns between them, one wrap of 0.1 mm tape each side: 0.75398 uH
+/// at b_w = 20 mm, 0.81955 uH at the 18.4 mm wound breadth.
 #[test]
 fn build_interleaved_p_s_p_reproduces_lee_0_75398_uh() {
     let stack = "[[stack]]\nwinding = \"P\"\nturns = 20\n[[stack]]\ntape = 1\n\
@@ -289,18 +304,19 @@ fn build_interleaved_p_s_p_reproduces_lee_0_75398_uh() {
     assert_rel(e.build_height_mm, 1.4, 1e-12, "build height");
     assert_rel(
         e.leakage[0].uh,
-        LEE_INTERLEAVED_UH,
+        lee_at_build_breadth(LEE_INTERLEAVED_UH),
         1e-9,
         "P/2-S-P/2 leakage",
     );
-    assert_rel(e.leakage[0].uh, 0.75398, 5e-5, "vs 0.75398 uH");
+    assert_rel(e.leakage[0].uh, 0.81955, 5e-5, "vs 0.81955 uH");
 }
 
-/// FORMAT.md: b_w is the window width whatever the margins. Lee's formula is inverse in b_w, so
-/// the same layout in a window twice as wide (40 mm, margins of 10.8 mm keeping the usable
-/// width at 40 - 2 x 10.8 = 18.4 mm, so the same layers) halves the leakage.
+/// FORMAT.md and the spec: b_w is the wound breadth, the window width less both margins. The
+/// same layers in a window twice as wide (40 mm) with margins of 10.8 mm (still 18.4 mm between
+/// them) give the same leakage; with no margins the field spreads over 40 mm and Lee's formula,
+/// inverse in b_w, gives 18.4 / 40 of it (the layers regroup, so that case is its own build).
 #[test]
-fn leakage_is_inverse_in_window_width_lee() {
+fn leakage_follows_the_wound_breadth_not_the_window_lee() {
     let stack = "[[stack]]\nwinding = \"P\"\n[[stack]]\ntape = 1\n[[stack]]\nwinding = \"S\"\n";
     let s = measured_winding("S", "secondary", 40, 0.25, 0.3, 3);
     let wide = lee_build(50.0 / PI - 1.3, &s, stack)
@@ -310,10 +326,12 @@ fn leakage_is_inverse_in_window_width_lee() {
     assert_rel(e.usable_width_mm, 18.4, 1e-12, "usable width");
     assert_rel(
         e.leakage[0].uh,
-        LEE_PS_UH / 2.0,
+        lee_at_build_breadth(LEE_PS_UH),
         1e-9,
-        "leakage at b_w = 40 mm",
+        "leakage between 10.8 mm margins of a 40 mm window",
     );
+    // Not the window's 40 mm: that would be half of Lee's 20 mm figure.
+    assert!((e.leakage[0].uh - LEE_PS_UH / 2.0).abs() > 0.5);
 }
 
 // ---------------------------------------------------------------------------------------------

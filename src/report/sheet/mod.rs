@@ -509,7 +509,7 @@ fn checks(build: &Build, eval: &Evaluation, measure_at_c: f64) -> Vec<Check> {
     for (w, dcr) in build
         .windings
         .iter()
-        .zip(bench::dcr_at_bench(build, eval, measure_at_c))
+        .zip(bench::dcr_at_bench(eval, measure_at_c))
     {
         let r = dcr.expected;
         let pins = match (&w.start_pin, &w.finish_pin) {

@@ -17,6 +17,9 @@ fn starting_operating() -> Operating {
         duty_limit: Some(0.45),
         rise_limit_c: None,
         surface_area_cm2: None,
+        switch_drop_v: 0.0,
+        ambient_c: None,
+        switch_rating_v: None,
     }
 }
 

@@ -19,11 +19,19 @@ pub static FIELDS: &[FieldSpec] = &[
     FieldSpec {
         label: "winding temperature",
         hint: "",
-        read: |c| Some(format!("{} C", c.build.setup.temperature_c)),
+        read: |c| {
+            Some(if c.build.setup.temperature_given {
+                format!("{} C", c.build.setup.temperature_c)
+            } else {
+                "ambient + rise".into()
+            })
+        },
         enter: Enter::Type {
             text: |c| Ok(c.build.setup.temperature_c.to_string()),
             write: |b, _, t| {
                 b.setup.temperature_c = number(t)?;
+                // A temperature typed in wins over the one solved from ambient + rise.
+                b.setup.temperature_given = true;
                 Ok(())
             },
         },

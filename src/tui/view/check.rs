@@ -22,6 +22,24 @@ fn figures(e: &Evaluation) -> Vec<(String, f64, usize)> {
         v.push(("switch V".into(), c.switch_voltage_v, 1));
     }
     v.extend(e.leakage.iter().skip(1).map(leak));
+    if let Some(w) = e.converter.as_ref().and_then(|c| c.clamp_loss_w) {
+        v.push(("clamp W".into(), w, 3));
+    }
+    if let Some(l) = &e.losses
+        && let Some(hot) = l.hot_spot_c
+    {
+        v.push(("hot spot C".into(), hot, 1));
+    }
+    v.push(("winding C".into(), e.temperature_c, 1));
+    v.push(("C P-S pF".into(), e.capacitance.primary_secondary_pf, 1));
+    if let Some(worst) = e
+        .windings
+        .iter()
+        .filter_map(|w| w.layer_voltage_v)
+        .reduce(f64::max)
+    {
+        v.push(("layer V max".into(), worst, 0));
+    }
     v.push(("fill".to_string(), e.fill_factor, 3));
     for w in &e.windings {
         v.push((format!("DCR {} ohm", w.name), w.dcr_ohm, 4));

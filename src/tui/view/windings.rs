@@ -22,7 +22,7 @@ fn grade_short(g: Insulation) -> &'static str {
 /// Draw the windings panel: a heading and one row per winding, as wide as the panel allows.
 pub fn draw(app: &App, frame: &mut Frame, area: Rect) {
     let t = &app.ui.theme;
-    let temp = app.doc.build.setup.temperature_c;
+    let temp = app.doc.eval.temperature_c;
     let block = panel(
         app,
         // The fill factor rides here: at 80x24 the check panel has no row left for it.
