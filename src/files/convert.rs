@@ -16,10 +16,7 @@ use toml::Spanned;
 
 type Span = Range<usize>;
 
-/// Most `[[winding]]` tables a build may have.
-pub const MAX_WINDINGS: usize = 32;
-/// Most `[[stack]]` sections a build may have.
-pub const MAX_SECTIONS: usize = 200;
+pub use crate::engine::validate::{MAX_SECTIONS, MAX_WINDINGS};
 
 /// Spans of the keys validation may point at, by place.
 #[derive(Default)]

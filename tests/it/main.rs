@@ -6,6 +6,7 @@ mod tui_support;
 
 mod ac_dowell_harmonics;
 mod bench_figures;
+mod build_limits;
 mod cli;
 mod cli_writes;
 mod converter_examples;
