@@ -281,3 +281,18 @@ fn windings_headings_apart_and_roles_whole_at_120x40() {
         assert!(row.contains(&format!(" {} ", w.turns)), "{row}");
     }
 }
+
+/// The header says what `check`'s last line says: a build that fits but breaks a limit is
+/// marked FAILS with the limit's key (the demo runs over its rise limit), one that passes is not.
+#[test]
+fn header_names_a_broken_limit_as_check_does() {
+    let demo = demo_app();
+    let failing: Vec<&str> = demo.doc.eval.failures().iter().map(|c| c.key()).collect();
+    assert!(failing.contains(&"temperature-rise"), "{failing:?}");
+    let top = &render(&demo, 120, 40)[0];
+    assert!(top.contains("FAILS temperature-rise"), "{top}");
+    let bench = bench_app();
+    assert!(bench.doc.eval.failures().is_empty());
+    let top = &render(&bench, 120, 40)[0];
+    assert!(top.contains("FITS") && !top.contains("FAILS"), "{top}");
+}

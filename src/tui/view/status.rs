@@ -12,13 +12,26 @@ use unicode_width::UnicodeWidthStr;
 pub fn header(app: &App, frame: &mut Frame, area: Rect) {
     let t = &app.ui.theme;
     let e = &app.doc.eval;
-    let verdict = if e.fits {
+    // A build that fits can still break a limit (rise, saturation, ...): say which, as
+    // `check` does on its last line.
+    let failing: Vec<&str> = e.failures().iter().map(|c| c.key()).collect();
+    let verdict = if e.fits && failing.is_empty() {
         Span::styled(
             format!(
                 " FITS {:.2} of {:.2} mm ",
                 e.height_with_allowance_mm, e.window_height_mm
             ),
             t.good(),
+        )
+    } else if e.fits {
+        Span::styled(
+            format!(
+                " FITS {:.2}/{:.2} mm, FAILS {} ",
+                e.height_with_allowance_mm,
+                e.window_height_mm,
+                failing.join(", ")
+            ),
+            t.bad(),
         )
     } else {
         Span::styled(

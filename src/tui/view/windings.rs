@@ -27,7 +27,7 @@ pub fn draw(app: &App, frame: &mut Frame, area: Rect) {
         app,
         // The fill factor rides here: at 80x24 the check panel has no row left for it.
         format!(
-            "Windings, DCR at {temp} C, fill {:.3}",
+            "Windings, DCR at {temp:.0} C, fill {:.3}",
             app.doc.eval.fill_factor
         ),
         app.ui.focus == Focus::Windings,
