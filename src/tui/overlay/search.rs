@@ -5,6 +5,11 @@ use super::{Overlay, PickItem, PickPurpose, PickValue, Picker};
 use crate::engine::search::{self, Candidate, Settings};
 use crate::tui::app::App;
 
+/// Most combinations the planner searches while it waits: at the search's usual rate (about
+/// a million a second on two cores, `cargo bench --bench search`) a few seconds. A larger
+/// space goes to `turnstack search`, which shows progress and stops on Ctrl-C.
+pub const PLANNER_MAX_SPACE: usize = 5_000_000;
+
 impl App {
     /// Search on the current build and list the trade-offs found.
     pub fn run_search(&mut self) {
@@ -12,6 +17,13 @@ impl App {
             threads: 2,
             ..Settings::default()
         };
+        let size = search::space_size(&self.doc.build, &settings);
+        if size > PLANNER_MAX_SPACE {
+            self.refuse(format!(
+                "search: {size} combinations is more than the planner goes through while you wait ({PLANNER_MAX_SPACE}); run `turnstack search FILE`, which shows progress and stops on Ctrl-C"
+            ));
+            return;
+        }
         let outcome = match search::search(&self.doc.build, &settings, &|_, _| {}) {
             Ok(o) => o,
             Err(e) => {
