@@ -153,6 +153,11 @@ impl App {
                 v
             }
             FormKind::Bobbin => self.core_notes(),
+            FormKind::Readings => vec![
+                "Resistances at the part's temperature; inductances and ratios at the first \
+                 primary. An empty entry clears a reading."
+                    .into(),
+            ],
             FormKind::Setup | FormKind::Winding(_) => Vec::new(),
         }
     }
