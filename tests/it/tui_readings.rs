@@ -69,6 +69,8 @@ fn readings_typed_in_are_stored_one_edit_each_and_undo_removes_them() {
 
     enter_reading(&mut app, "part temperature", "", "22");
     enter_reading(&mut app, "DC resistance", "S:", "0.0203");
+    let said = app.ui.status.as_ref().map(|s| s.text.clone());
+    assert_eq!(said.as_deref(), Some("DC resistance of S: 0.0203"));
     enter_reading(&mut app, "magnetising inductance", "", "1200");
     // The loader's checks: above 0, and leakage below the magnetising inductance.
     let before = app.doc.build.clone();

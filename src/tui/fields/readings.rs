@@ -322,3 +322,21 @@ pub static FIELDS: &[FieldSpec] = &[
         }),
     },
 ];
+
+/// What an edit of field `field` is called in the status line and the undo history: the
+/// per-winding rows name their winding.
+pub fn edit_label(field: usize, b: &Build) -> String {
+    let label = FIELDS.get(field).map_or("", |f| f.label);
+    let name = |i: usize| b.windings.get(i).map(|w| w.name.to_string());
+    if (FIRST_DCR..FIRST_DCR + SLOTS).contains(&field)
+        && let Some(n) = name(field - FIRST_DCR)
+    {
+        format!("DC resistance of {n}")
+    } else if (FIRST_RATIO..FIRST_RATIO + SLOTS).contains(&field)
+        && let (Some(n), Some(p)) = (name(field - FIRST_RATIO), first_primary(b).and_then(name))
+    {
+        format!("voltage ratio {n} / {p}")
+    } else {
+        label.to_string()
+    }
+}
