@@ -20,6 +20,7 @@ pub enum Action {
     Operating,
     Material,
     Isolation,
+    Readings,
     Search,
     Sheet,
     Pin,

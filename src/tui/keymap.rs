@@ -21,6 +21,8 @@ pub enum Context {
     Question,
     /// The help screen.
     HelpScreen,
+    /// The readings against the plan.
+    Readings,
 }
 
 impl Context {
@@ -33,6 +35,7 @@ impl Context {
             Context::Prompt => "typing a value",
             Context::Question => "questions",
             Context::HelpScreen => "this help",
+            Context::Readings => "readings against the plan",
         }
     }
 }
@@ -214,6 +217,13 @@ pub const BINDINGS: &[Binding] = &[
         Action::Isolation,
         "",
         "isolation: functional, basic or reinforced, working voltage, creepage",
+    ),
+    b(
+        C::Main,
+        &[K::Char('R')],
+        Action::Readings,
+        "",
+        "bench readings of the wound part; its last row: predicted vs measured",
     ),
     b(
         C::Main,
@@ -495,6 +505,27 @@ pub const BINDINGS: &[Binding] = &[
         Action::Cancel,
         "close",
         "close the help",
+    ),
+    b(
+        C::Readings,
+        &[K::Down, K::Char('j'), K::PageDown],
+        Action::Down,
+        "",
+        "scroll down",
+    ),
+    b(
+        C::Readings,
+        &[K::Up, K::Char('k'), K::PageUp],
+        Action::Up,
+        "",
+        "scroll up",
+    ),
+    b(
+        C::Readings,
+        &[K::Esc, K::Char('q')],
+        Action::Cancel,
+        "back",
+        "back to the readings form",
     ),
 ];
 

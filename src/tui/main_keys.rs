@@ -48,6 +48,7 @@ impl App {
             Action::Operating => self.open_form(FormKind::Operating),
             Action::Material => self.open_form(FormKind::Material),
             Action::Isolation => self.open_form(FormKind::Isolation),
+            Action::Readings => self.open_form(FormKind::Readings),
             Action::More | Action::Less => self.more_or_less(action == Action::More),
             Action::EditSection
             | Action::AddSection

@@ -30,6 +30,7 @@ mod tui_app;
 mod tui_forms;
 mod tui_overlays;
 mod tui_overwrite;
+mod tui_readings;
 mod tui_render;
 mod validation_messages;
 mod verify_cli;

@@ -117,7 +117,7 @@ fn help_lists_every_key_of_the_key_map() {
     let mut app = bench_app();
     press(&mut app, "?");
     let mut seen = String::new();
-    for _ in 0..40 {
+    for _ in 0..80 {
         seen.push_str(&screen(&app, 120, 40));
         press(&mut app, "<down>");
     }

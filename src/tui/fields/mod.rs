@@ -6,6 +6,7 @@ mod bobbin;
 mod isolation;
 mod material;
 mod operating;
+pub mod readings;
 mod setup;
 pub mod winding;
 
@@ -72,6 +73,8 @@ pub enum FormKind {
     Material,
     /// `[isolation]`.
     Isolation,
+    /// `[measured]`: the bench readings of the wound part.
+    Readings,
 }
 
 impl FormKind {
@@ -84,6 +87,7 @@ impl FormKind {
             FormKind::Operating => operating::FIELDS,
             FormKind::Material => material::FIELDS,
             FormKind::Isolation => isolation::FIELDS,
+            FormKind::Readings => readings::FIELDS,
         }
     }
 

@@ -93,7 +93,11 @@ impl App {
             Enter::Type { write, .. } => {
                 let shown = if t.is_empty() { "none" } else { t };
                 let k = kind.winding();
-                self.edit(format!("{}: {shown}", spec.label), |b| write(b, k, t));
+                let what = match kind {
+                    FormKind::Readings => fields::readings::edit_label(field, &self.doc.build),
+                    _ => spec.label.to_string(),
+                };
+                self.edit(format!("{what}: {shown}"), |b| write(b, k, t));
             }
             Enter::Draft { write, .. } => {
                 if let Err(why) = write(&mut self.ui.core_draft, t) {
@@ -153,6 +157,11 @@ impl App {
                 v
             }
             FormKind::Bobbin => self.core_notes(),
+            FormKind::Readings => vec![
+                "Resistances at the part's temperature; inductances and ratios at the first \
+                 primary. An empty entry clears a reading."
+                    .into(),
+            ],
             FormKind::Setup | FormKind::Winding(_) => Vec::new(),
         }
     }

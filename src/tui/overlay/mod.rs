@@ -30,9 +30,27 @@ pub enum Overlay {
     Prompt(Prompt),
     /// A yes/no question.
     Question(Question),
+    /// The bench readings against the plan, scrolled down by `scroll` lines.
+    Readings { scroll: u16 },
 }
 
 impl App {
+    /// The readings view's keys: up and down scroll, any other closes it.
+    pub(super) fn readings_key(&mut self, action: Action, scroll: u16) {
+        let top = self.ui.overlays.len() - 1;
+        match action {
+            Action::Down => self.ui.overlays[top] = Overlay::Readings { scroll: scroll + 1 },
+            Action::Up => {
+                self.ui.overlays[top] = Overlay::Readings {
+                    scroll: scroll.saturating_sub(1),
+                }
+            }
+            _ => {
+                self.ui.overlays.pop();
+            }
+        }
+    }
+
     /// The help screen's keys: up and down scroll, any other closes it.
     pub(super) fn help_key(&mut self, action: Action, scroll: u16) {
         let top = self.ui.overlays.len() - 1;

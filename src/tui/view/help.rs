@@ -8,7 +8,7 @@ use ratatui::layout::Rect;
 use ratatui::text::{Line, Span};
 use ratatui::widgets::{Block, Clear, Paragraph};
 
-const ORDER: [Context; 7] = [
+const ORDER: [Context; 8] = [
     Context::Main,
     Context::Stack,
     Context::Windings,
@@ -16,6 +16,7 @@ const ORDER: [Context; 7] = [
     Context::Prompt,
     Context::Question,
     Context::HelpScreen,
+    Context::Readings,
 ];
 
 /// Every line of the help, for drawing and for tests.

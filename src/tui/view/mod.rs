@@ -4,6 +4,7 @@
 mod check;
 mod help;
 mod popup;
+pub mod readings;
 mod stack;
 mod status;
 mod warnings;
@@ -72,6 +73,7 @@ pub fn draw(app: &App, frame: &mut Frame) {
     for o in &app.ui.overlays {
         match o {
             Overlay::Help { scroll } => help::draw(app, frame, area, *scroll),
+            Overlay::Readings { scroll } => readings::draw(app, frame, area, *scroll),
             Overlay::Picker(p) => popup::picker(app, frame, area, p),
             Overlay::Form(f) => popup::form(app, frame, area, f),
             Overlay::Prompt(p) => popup::prompt(app, frame, area, p),
