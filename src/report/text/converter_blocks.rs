@@ -77,6 +77,13 @@ pub(super) fn converter_block(o: &mut String, c: &ConverterEval) {
         ResetSide::Secondary => "reset to the output",
     };
     let _ = writeln!(o, "  Np {} : Ns {} : Nr {}, {side}", c.np, c.ns, c.nr);
+    duty_lines(o, c);
+    switch_lines(o, c);
+    core_lines(o, c);
+}
+
+/// The duty cycle: the reset limit, what is available and what is needed.
+fn duty_lines(o: &mut String, c: &ConverterEval) {
     let pct = |x: f64| x * 100.0;
     let _ = writeln!(
         o,
@@ -136,6 +143,10 @@ pub(super) fn converter_block(o: &mut String, c: &ConverterEval) {
         "  duty needed at vin max {:>7.1} %",
         pct(c.duty_needed_at_vin_max)
     );
+}
+
+/// The reset time, the switch voltage and the clamp loss.
+fn switch_lines(o: &mut String, c: &ConverterEval) {
     let _ = writeln!(
         o,
         "  reset time             {:>7.2} us steady at vin min, {:.2} us worst case",
@@ -156,6 +167,10 @@ pub(super) fn converter_block(o: &mut String, c: &ConverterEval) {
             loss
         );
     }
+}
+
+/// The flux swing, AL and magnetising current, and the reset winding's current.
+fn core_lines(o: &mut String, c: &ConverterEval) {
     match c.flux_swing_worst_mt {
         Some(b) => {
             let head = c
