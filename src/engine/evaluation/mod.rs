@@ -199,18 +199,7 @@ pub(super) fn evaluate(build: &Build, memo: &mut Memo) -> Evaluation {
             ac_warnings,
         },
     ) = solve_temperature(build, &laid, wires, problems.is_empty(), &leakage, memo);
-    let window_area = window.width_mm * window.height_mm;
-    let fill_factor = if window_area > 0.0 {
-        build
-            .windings
-            .iter()
-            .zip(&windings)
-            .map(|(w, e)| f64::from(w.turns) * e.copper_area_mm2)
-            .sum::<f64>()
-            / window_area
-    } else {
-        0.0
-    };
+    let fill_factor = fill_factor(build, &windings);
 
     let stress = converter
         .as_ref()
@@ -260,4 +249,21 @@ pub(super) fn evaluate(build: &Build, memo: &mut Memo) -> Evaluation {
     warnings::collect(build, &problems, &mut eval);
     eval.warnings.extend(ac_warnings);
     eval
+}
+
+/// The copper area of every winding's turns over the window area (0 for an empty window).
+fn fill_factor(build: &Build, windings: &[WindingEval]) -> f64 {
+    let window = &build.bobbin.window;
+    let window_area = window.width_mm * window.height_mm;
+    if window_area > 0.0 {
+        build
+            .windings
+            .iter()
+            .zip(windings)
+            .map(|(w, e)| f64::from(w.turns) * e.copper_area_mm2)
+            .sum::<f64>()
+            / window_area
+    } else {
+        0.0
+    }
 }

@@ -96,37 +96,7 @@ pub(super) fn losses_block(o: &mut String, l: &LossEval) {
             l.windings_without_current.join(", ")
         );
     }
-    match (l.core_loss_w, l.core_loss_kw_m3) {
-        (Some(w), Some(p)) => {
-            let _ = writeln!(
-                o,
-                "  core (iGSE)            {w:>7.3} W at vin max: {p:.1} kW/m3 x {:.0} mm3",
-                l.core_volume_mm3.unwrap_or(0.0)
-            );
-            if let (Some(b), Some(d), Some(r)) =
-                (l.core_swing_mt, l.core_duty, l.core_reset_fraction)
-            {
-                let _ = writeln!(
-                    o,
-                    "    swing {b:.1} mT, rising over {:.1} %, reset over {:.1} % of the period",
-                    d * 100.0,
-                    r * 100.0
-                );
-            }
-        }
-        _ => {
-            let no_time = l.core_duty.is_some_and(|d| d <= 0.0)
-                || l.core_reset_fraction.is_some_and(|r| r <= 0.0);
-            let why = if l.core_volume_mm3.is_none() {
-                "no [core] data"
-            } else if no_time {
-                "no duty available, so no flux waveform to take the loss of"
-            } else {
-                "no steinmetz coefficients in [material]"
-            };
-            let _ = writeln!(o, "  core                   not computed: {why}");
-        }
-    }
+    core_loss_lines(o, l);
     let _ = writeln!(o, "  total                  {:>7.3} W", l.total_loss_w);
     match (l.surface_area_cm2, l.temperature_rise_c) {
         (Some(a), Some(t)) => {
@@ -163,6 +133,41 @@ pub(super) fn losses_block(o: &mut String, l: &LossEval) {
                 "  temperature rise: not computed (no core data to estimate the surface;"
             );
             let _ = writeln!(o, "    give [operating] surface_area_cm2)");
+        }
+    }
+}
+
+/// The core loss by iGSE with its waveform, or why it is not computed.
+fn core_loss_lines(o: &mut String, l: &LossEval) {
+    match (l.core_loss_w, l.core_loss_kw_m3) {
+        (Some(w), Some(p)) => {
+            let _ = writeln!(
+                o,
+                "  core (iGSE)            {w:>7.3} W at vin max: {p:.1} kW/m3 x {:.0} mm3",
+                l.core_volume_mm3.unwrap_or(0.0)
+            );
+            if let (Some(b), Some(d), Some(r)) =
+                (l.core_swing_mt, l.core_duty, l.core_reset_fraction)
+            {
+                let _ = writeln!(
+                    o,
+                    "    swing {b:.1} mT, rising over {:.1} %, reset over {:.1} % of the period",
+                    d * 100.0,
+                    r * 100.0
+                );
+            }
+        }
+        _ => {
+            let no_time = l.core_duty.is_some_and(|d| d <= 0.0)
+                || l.core_reset_fraction.is_some_and(|r| r <= 0.0);
+            let why = if l.core_volume_mm3.is_none() {
+                "no [core] data"
+            } else if no_time {
+                "no duty available, so no flux waveform to take the loss of"
+            } else {
+                "no steinmetz coefficients in [material]"
+            };
+            let _ = writeln!(o, "  core                   not computed: {why}");
         }
     }
 }
