@@ -85,87 +85,138 @@ pub(super) fn ac_figures(
     };
 
     if let (Some(p), Some(s)) = (p, s) {
-        let bifilar_ps = laid.iter().any(|l| {
-            matches!(&l.kind, LaidKind::Winding { winding: Some(a), with: Some(b), .. }
-                if (*a == p && *b == s) || (*a == s && *b == p))
-        });
-        if bifilar_ps {
-            sums[p].skip = true;
-            sums[s].skip = true;
-            warnings.push(Warning {
-                at: WarningAt::Winding(p),
-                kind: WarningKind::AcBifilarPs {
-                    primary: windings[p].name.clone(),
-                    secondary: windings[s].name.clone(),
-                },
-            });
-        } else {
-            sums[p].paired = true;
-            sums[s].paired = true;
-            // The primary's current drives the field the other windings sit in: its spectrum
-            // (scaled to the RMS used), or a sinusoid of its RMS.
-            let primary_drive = match (sums[p].spectrum, currents[p].rms_a) {
-                (Some((si, _, rms_sq)), _) if rms_sq > 0.0 => Some((Some(si), rms_sq)),
-                (_, Some(i)) if i > 0.0 => Some((None, i * i)),
-                _ => None,
-            };
-            let return_per_turn =
-                -f64::from(build.windings[p].turns) / f64::from(build.windings[s].turns.max(1));
-            let weight = leakage::pair_weights(p, s, return_per_turn);
-            leakage::for_each_slab_by(laid, weight, |slab| {
-                let Some((si, li)) = slab.layer else { return };
-                let LaidKind::Winding {
-                    winding,
-                    with,
-                    layers,
-                    ..
-                } = &laid[si].kind
-                else {
-                    return;
-                };
-                let layer = &layers[li];
-                // A bifilar partner other than P or S carries nothing in this excitation, so
-                // the slab's faces are this winding's own MMF.
-                for k in [*winding, *with]
-                    .into_iter()
-                    .flatten()
-                    .filter(|&k| k == p || k == s)
-                {
-                    let length = f64::from(layer.turns) * layer.mlt_mm;
-                    sums[k].layer(memo, d_of(k, layer.turns), slab.f_a, slab.f_b, length);
-                }
-                // Any other winding here sits in the field of P and S: Dowell's layer with
-                // the same field on both faces loses `R_layer (F/n_l)^2 D (2 G1 - 4 G2)` per
-                // ampere squared of the primary's, summed over its harmonics. A bifilar
-                // partner sees a field that runs from F_a to F_b across the layer: its mean
-                // square is taken.
-                for k in [*winding, *with]
-                    .into_iter()
-                    .flatten()
-                    .filter(|&k| k != p && k != s)
-                {
-                    let (fa, fb) = (slab.f_a, slab.f_b);
-                    let f2 = (fa * fa + fa * fb + fb * fb) / 3.0;
-                    if f2 <= 0.0 || layer.turns == 0 {
-                        continue;
-                    }
-                    let d = d_of(k, layer.turns);
-                    let (a, b) = match primary_drive {
-                        Some((Some(si), _)) => memo.summed_terms(si, d),
-                        Some((None, rms_sq)) => {
-                            let t = ac::d_terms(d);
-                            (t.0 * rms_sq, t.1 * rms_sq)
-                        }
-                        None => continue,
-                    };
-                    let n_l = f64::from(layer.turns);
-                    let length = f64::from(layer.turns) * layer.mlt_mm;
-                    sums[k].proximity += length * f2 / (n_l * n_l) * (2.0 * a - 4.0 * b).max(0.0);
-                }
-            });
-        }
+        pair_sums(
+            build,
+            laid,
+            (p, s),
+            currents,
+            windings,
+            &mut sums,
+            warnings,
+            memo,
+            &d_of,
+        );
     }
-    // Every other winding: each of its sections alone, from zero MMF at the section's face.
+    unpaired_sums(laid, &mut sums, memo, &d_of);
+    apply_sums(windings, &sums, delta_mm);
+}
+
+/// The first primary and first secondary under their leakage excitation, and every other
+/// winding in their field; a bifilar primary-secondary pair is skipped with a warning.
+#[allow(clippy::too_many_arguments)]
+fn pair_sums(
+    build: &Build,
+    laid: &[Laid],
+    (p, s): (usize, usize),
+    currents: &[WindingCurrent],
+    windings: &[WindingEval],
+    sums: &mut [AcSums],
+    warnings: &mut Vec<Warning>,
+    memo: &mut Memo,
+    d_of: &impl Fn(usize, u32) -> f64,
+) {
+    let bifilar_ps = laid.iter().any(|l| {
+        matches!(&l.kind, LaidKind::Winding { winding: Some(a), with: Some(b), .. }
+            if (*a == p && *b == s) || (*a == s && *b == p))
+    });
+    if bifilar_ps {
+        sums[p].skip = true;
+        sums[s].skip = true;
+        warnings.push(Warning {
+            at: WarningAt::Winding(p),
+            kind: WarningKind::AcBifilarPs {
+                primary: windings[p].name.clone(),
+                secondary: windings[s].name.clone(),
+            },
+        });
+    } else {
+        pair_field(build, laid, (p, s), currents, sums, memo, d_of);
+    }
+}
+
+/// The first primary and first secondary under their leakage excitation, the primary's
+/// current driving the field every other winding in the window sits in.
+fn pair_field(
+    build: &Build,
+    laid: &[Laid],
+    (p, s): (usize, usize),
+    currents: &[WindingCurrent],
+    sums: &mut [AcSums],
+    memo: &mut Memo,
+    d_of: &impl Fn(usize, u32) -> f64,
+) {
+    sums[p].paired = true;
+    sums[s].paired = true;
+    // The primary's current drives the field the other windings sit in: its spectrum
+    // (scaled to the RMS used), or a sinusoid of its RMS.
+    let primary_drive = match (sums[p].spectrum, currents[p].rms_a) {
+        (Some((si, _, rms_sq)), _) if rms_sq > 0.0 => Some((Some(si), rms_sq)),
+        (_, Some(i)) if i > 0.0 => Some((None, i * i)),
+        _ => None,
+    };
+    let return_per_turn =
+        -f64::from(build.windings[p].turns) / f64::from(build.windings[s].turns.max(1));
+    let weight = leakage::pair_weights(p, s, return_per_turn);
+    leakage::for_each_slab_by(laid, weight, |slab| {
+        let Some((si, li)) = slab.layer else { return };
+        let LaidKind::Winding {
+            winding,
+            with,
+            layers,
+            ..
+        } = &laid[si].kind
+        else {
+            return;
+        };
+        let layer = &layers[li];
+        // A bifilar partner other than P or S carries nothing in this excitation, so
+        // the slab's faces are this winding's own MMF.
+        for k in [*winding, *with]
+            .into_iter()
+            .flatten()
+            .filter(|&k| k == p || k == s)
+        {
+            let length = f64::from(layer.turns) * layer.mlt_mm;
+            sums[k].layer(memo, d_of(k, layer.turns), slab.f_a, slab.f_b, length);
+        }
+        // Any other winding here sits in the field of P and S: Dowell's layer with
+        // the same field on both faces loses `R_layer (F/n_l)^2 D (2 G1 - 4 G2)` per
+        // ampere squared of the primary's, summed over its harmonics. A bifilar
+        // partner sees a field that runs from F_a to F_b across the layer: its mean
+        // square is taken.
+        for k in [*winding, *with]
+            .into_iter()
+            .flatten()
+            .filter(|&k| k != p && k != s)
+        {
+            let (fa, fb) = (slab.f_a, slab.f_b);
+            let f2 = (fa * fa + fa * fb + fb * fb) / 3.0;
+            if f2 <= 0.0 || layer.turns == 0 {
+                continue;
+            }
+            let d = d_of(k, layer.turns);
+            let (a, b) = match primary_drive {
+                Some((Some(si), _)) => memo.summed_terms(si, d),
+                Some((None, rms_sq)) => {
+                    let t = ac::d_terms(d);
+                    (t.0 * rms_sq, t.1 * rms_sq)
+                }
+                None => continue,
+            };
+            let n_l = f64::from(layer.turns);
+            let length = f64::from(layer.turns) * layer.mlt_mm;
+            sums[k].proximity += length * f2 / (n_l * n_l) * (2.0 * a - 4.0 * b).max(0.0);
+        }
+    });
+}
+
+/// Every winding not in the pair: each of its sections alone, from zero MMF at its face.
+fn unpaired_sums(
+    laid: &[Laid],
+    sums: &mut [AcSums],
+    memo: &mut Memo,
+    d_of: &impl Fn(usize, u32) -> f64,
+) {
     for l in laid {
         let LaidKind::Winding {
             winding,
@@ -189,7 +240,11 @@ pub(super) fn ac_figures(
             }
         }
     }
-    for (w, sum) in windings.iter_mut().zip(&sums) {
+}
+
+/// The AC factors and proximity loss of each winding from its sums (mm of skin depth).
+fn apply_sums(windings: &mut [WindingEval], sums: &[AcSums], delta_mm: f64) {
+    for (w, sum) in windings.iter_mut().zip(sums) {
         let total = sum.length;
         if sum.skip || total <= 0.0 {
             continue;

@@ -110,40 +110,7 @@ pub(super) fn electrical(
     temperature_c: f64,
     memo: &mut Memo,
 ) -> Electrical {
-    let mut windings: Vec<WindingEval> = build
-        .windings
-        .iter()
-        .enumerate()
-        .map(|(i, w)| {
-            let copper_area_mm2 = f64::from(w.strands) * area_mm2(wires[i].bare_mm);
-            let length_mm = winding_length_mm(laid, i);
-            let length_m = length_mm * MM;
-            WindingEval {
-                name: w.name.clone(),
-                role: w.role,
-                turns: w.turns,
-                strands: w.strands,
-                bare_mm: wires[i].bare_mm,
-                od_mm: wires[i].od_mm,
-                copper_area_mm2,
-                length_m,
-                mlt_mm: if w.turns > 0 {
-                    length_mm / f64::from(w.turns)
-                } else {
-                    0.0
-                },
-                dcr_ohm: ohm_per_m(wires[i].bare_mm, w.strands, temperature_c) * length_m,
-                ac: None,
-                current_density_a_mm2: None,
-                current_rms_a: None,
-                current_source: None,
-                current_model_rms_a: None,
-                copper_loss_w: None,
-                layer_voltage_v: None,
-                proximity_loss_w: None,
-            }
-        })
-        .collect();
+    let mut windings = dc_windings(build, laid, wires, temperature_c);
 
     let mut converter = if valid {
         converter::evaluate(build)
@@ -202,4 +169,48 @@ pub(super) fn electrical(
         losses,
         ac_warnings,
     }
+}
+
+/// Every winding with its wire, length and DC resistance at `temperature_c`; the AC,
+/// current and loss figures left for [`electrical`] to fill in.
+fn dc_windings(
+    build: &Build,
+    laid: &[Laid],
+    wires: &[crate::library::wires::ResolvedWire],
+    temperature_c: f64,
+) -> Vec<WindingEval> {
+    build
+        .windings
+        .iter()
+        .enumerate()
+        .map(|(i, w)| {
+            let copper_area_mm2 = f64::from(w.strands) * area_mm2(wires[i].bare_mm);
+            let length_mm = winding_length_mm(laid, i);
+            let length_m = length_mm * MM;
+            WindingEval {
+                name: w.name.clone(),
+                role: w.role,
+                turns: w.turns,
+                strands: w.strands,
+                bare_mm: wires[i].bare_mm,
+                od_mm: wires[i].od_mm,
+                copper_area_mm2,
+                length_m,
+                mlt_mm: if w.turns > 0 {
+                    length_mm / f64::from(w.turns)
+                } else {
+                    0.0
+                },
+                dcr_ohm: ohm_per_m(wires[i].bare_mm, w.strands, temperature_c) * length_m,
+                ac: None,
+                current_density_a_mm2: None,
+                current_rms_a: None,
+                current_source: None,
+                current_model_rms_a: None,
+                copper_loss_w: None,
+                layer_voltage_v: None,
+                proximity_loss_w: None,
+            }
+        })
+        .collect()
 }
