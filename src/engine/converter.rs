@@ -74,6 +74,25 @@ pub struct ConverterEval {
     pub duty_used_at_vin_min: f64,
 }
 
+/// The duty the reset allows (fraction), the switch's off-state voltage at the highest input
+/// (V) and, reset to the output, the steady duty ceiling 1 - Nr/Ns; `vo` is the output plus
+/// the rectifier drop (V).
+fn reset_limits(
+    side: ResetSide,
+    vin_max_v: f64,
+    vo: f64,
+    (npf, nsf, nrf): (f64, f64, f64),
+) -> (f64, f64, Option<f64>) {
+    match side {
+        ResetSide::Primary => (npf / (npf + nrf), vin_max_v * (1.0 + npf / nrf), None),
+        ResetSide::Secondary => (
+            npf * vo / (npf * vo + nrf * vin_max_v),
+            vin_max_v + vo * npf / nrf,
+            Some(1.0 - nrf / nsf),
+        ),
+    }
+}
+
 /// `None` when the build has no operating point or lacks what it needs (validation refuses
 /// those builds; this keeps `evaluate` total).
 pub fn evaluate(build: &Build) -> Option<ConverterEval> {
@@ -88,14 +107,8 @@ pub fn evaluate(build: &Build) -> Option<ConverterEval> {
     let period_s = 1.0 / f_hz;
     let (npf, nsf, nrf) = (f64::from(np), f64::from(ns), f64::from(nr));
     let vo = op.vout_v + op.rectifier_drop_v;
-    let (reset_duty_limit, switch_voltage_v, steady_duty_ceiling) = match op.reset_side {
-        ResetSide::Primary => (npf / (npf + nrf), op.vin_max_v * (1.0 + npf / nrf), None),
-        ResetSide::Secondary => (
-            npf * vo / (npf * vo + nrf * op.vin_max_v),
-            op.vin_max_v + vo * npf / nrf,
-            Some(1.0 - nrf / nsf),
-        ),
-    };
+    let (reset_duty_limit, switch_voltage_v, steady_duty_ceiling) =
+        reset_limits(op.reset_side, op.vin_max_v, vo, (npf, nsf, nrf));
     let duty_max = op
         .duty_limit
         .map_or(reset_duty_limit, |d| d.min(reset_duty_limit));

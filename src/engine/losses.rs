@@ -6,7 +6,7 @@ use super::evaluation::WindingEval;
 use super::magnetics;
 use super::memo::Memo;
 use super::thermal::{self, DEFAULT_AMBIENT_C, DEFAULT_RISE_LIMIT_C, InsulationPart};
-use crate::model::{Build, Name, ResetSide};
+use crate::model::{Build, Core, Name, Operating, ResetSide};
 
 #[derive(Debug, Clone, PartialEq)]
 pub struct LossEval {
@@ -53,34 +53,12 @@ pub fn evaluate(
         .map(|w| w.name.clone())
         .collect();
     let core = build.bobbin.core.as_ref();
-    let f_khz = build.setup.frequency_khz.unwrap_or(0.0);
 
     // Core loss is largest at the highest input: the same swing (CCM), over a shorter,
     // steeper on-time.
-    let mut core_figures = None;
-    if let (Some(op), Some(core)) = (op, core) {
-        let duty = c.duty_needed_at_vin_max.min(c.duty_available).max(0.0);
-        let swing_t = op.vin_max_v * duty / (f_khz * 1e3 * f64::from(c.np) * core.ae_mm2 * 1e-6);
-        let vo = op.vout_v + op.rectifier_drop_v;
-        let reset = match c.reset_side {
-            ResetSide::Primary => duty * f64::from(c.nr) / f64::from(c.np),
-            ResetSide::Secondary => op.vin_max_v * duty * f64::from(c.nr) / (vo * f64::from(c.np)),
-        }
-        .min(1.0 - duty);
-        let volume = magnetics::volume_mm3(core);
-        let density = build
-            .material
-            .as_ref()
-            .and_then(|m| m.steinmetz)
-            .filter(|_| duty > 0.0 && reset > 0.0 && f_khz > 0.0)
-            .map(|s| {
-                let inputs = [s.k, s.alpha, s.beta, f_khz, swing_t, duty, reset];
-                memo.core_loss(inputs, || {
-                    core_loss::forward_kw_m3(s.k, s.alpha, s.beta, f_khz, swing_t, duty, reset)
-                })
-            });
-        core_figures = Some((density, volume, swing_t * 1e3, duty, reset));
-    }
+    let core_figures = op
+        .zip(core)
+        .map(|(op, core)| core_figures(build, c, op, core, memo));
     let core_loss_kw_m3 = core_figures.and_then(|f| f.0);
     // kW/m^3 x mm^3: 1e3 W/m^3 x 1e-9 m^3.
     let core_loss_w = core_loss_kw_m3
@@ -122,4 +100,37 @@ pub fn evaluate(
             .and_then(|o| o.rise_limit_c)
             .unwrap_or(DEFAULT_RISE_LIMIT_C),
     }
+}
+
+/// The core loss at the highest input: (kW/m3 when the material has Steinmetz figures,
+/// core volume mm3, flux swing mT, duty, reset fraction of the period).
+fn core_figures(
+    build: &Build,
+    c: &ConverterEval,
+    op: &Operating,
+    core: &Core,
+    memo: &mut Memo,
+) -> (Option<f64>, f64, f64, f64, f64) {
+    let f_khz = build.setup.frequency_khz.unwrap_or(0.0);
+    let duty = c.duty_needed_at_vin_max.min(c.duty_available).max(0.0);
+    let swing_t = op.vin_max_v * duty / (f_khz * 1e3 * f64::from(c.np) * core.ae_mm2 * 1e-6);
+    let vo = op.vout_v + op.rectifier_drop_v;
+    let reset = match c.reset_side {
+        ResetSide::Primary => duty * f64::from(c.nr) / f64::from(c.np),
+        ResetSide::Secondary => op.vin_max_v * duty * f64::from(c.nr) / (vo * f64::from(c.np)),
+    }
+    .min(1.0 - duty);
+    let volume = magnetics::volume_mm3(core);
+    let density = build
+        .material
+        .as_ref()
+        .and_then(|m| m.steinmetz)
+        .filter(|_| duty > 0.0 && reset > 0.0 && f_khz > 0.0)
+        .map(|s| {
+            let inputs = [s.k, s.alpha, s.beta, f_khz, swing_t, duty, reset];
+            memo.core_loss(inputs, || {
+                core_loss::forward_kw_m3(s.k, s.alpha, s.beta, f_khz, swing_t, duty, reset)
+            })
+        });
+    (density, volume, swing_t * 1e3, duty, reset)
 }

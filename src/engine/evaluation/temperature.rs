@@ -1,0 +1,216 @@
+//! The winding temperature the resistances are taken at, and the electrical figures at it.
+
+use super::*;
+
+/// What depends on the winding temperature: resistances, AC figures, currents, losses.
+pub(super) struct Electrical {
+    pub(super) windings: Vec<WindingEval>,
+    pub(super) converter: Option<ConverterEval>,
+    pub(super) losses: Option<LossEval>,
+    pub(super) ac_warnings: Vec<Warning>,
+}
+
+/// Where the temperature the resistances are taken at came from.
+#[derive(Debug, Clone, Copy, PartialEq, Eq)]
+pub enum TemperatureSource {
+    /// `[setup] temperature_c`.
+    Given,
+    /// Ambient plus the predicted rise, solved to a fixed point.
+    AmbientPlusRise,
+    /// `[operating] ambient_c`, with no rise to add (no surface area to predict it from).
+    Ambient,
+    /// The format's default (20 C): neither a temperature nor an operating point to find one.
+    Default,
+}
+
+impl TemperatureSource {
+    pub fn key(self) -> &'static str {
+        match self {
+            TemperatureSource::Given => "given",
+            TemperatureSource::AmbientPlusRise => "ambient + rise",
+            TemperatureSource::Ambient => "ambient",
+            TemperatureSource::Default => "default",
+        }
+    }
+}
+
+/// Stop the fixed point when the temperature moves less than this (C) ...
+pub(super) const TEMPERATURE_TOLERANCE_C: f64 = 0.01;
+/// ... or after this many rounds (it converges in a handful: the rise grows with the
+/// resistance as `(1 + alpha dT)^0.826`, a contraction for any rise a winding survives).
+pub(super) const TEMPERATURE_ROUNDS: usize = 30;
+/// Above this the copper law and the winding are both past their use; the loop stops there.
+pub(super) const TEMPERATURE_CEILING_C: f64 = 250.0;
+
+/// The temperature the resistances are taken at, where it came from, and every figure that
+/// depends on it. A given `temperature_c` wins; else ambient + the predicted rise, found by
+/// iterating `T = ambient + rise(losses at T)`.
+pub(super) fn solve_temperature(
+    build: &Build,
+    laid: &[Laid],
+    wires: &[crate::library::wires::ResolvedWire],
+    valid: bool,
+    leakage: &[LeakageEval],
+    memo: &mut Memo,
+) -> (f64, TemperatureSource, Electrical) {
+    let at = |t: f64, memo: &mut Memo| electrical(build, laid, wires, valid, leakage, t, memo);
+    if build.setup.temperature_given || build.operating.is_none() {
+        let source = if build.setup.temperature_given {
+            TemperatureSource::Given
+        } else {
+            TemperatureSource::Default
+        };
+        let t = build.setup.temperature_c;
+        return (t, source, at(t, memo));
+    }
+    let ambient = build
+        .operating
+        .as_ref()
+        .and_then(|o| o.ambient_c)
+        .unwrap_or(thermal::DEFAULT_AMBIENT_C);
+    let mut t = ambient;
+    let mut e = at(t, memo);
+    if e.losses
+        .as_ref()
+        .and_then(|l| l.temperature_rise_c)
+        .is_none()
+    {
+        let given_ambient = build.operating.as_ref().and_then(|o| o.ambient_c);
+        return match given_ambient {
+            Some(a) => (a, TemperatureSource::Ambient, e),
+            None => {
+                let t = build.setup.temperature_c;
+                (t, TemperatureSource::Default, at(t, memo))
+            }
+        };
+    }
+    for _ in 0..TEMPERATURE_ROUNDS {
+        let rise = e
+            .losses
+            .as_ref()
+            .and_then(|l| l.temperature_rise_c)
+            .unwrap_or(0.0);
+        let next = (ambient + rise).min(TEMPERATURE_CEILING_C);
+        if (next - t).abs() < TEMPERATURE_TOLERANCE_C {
+            break;
+        }
+        t = next;
+        e = at(t, memo);
+    }
+    (t, TemperatureSource::AmbientPlusRise, e)
+}
+
+/// The figures of [`Electrical`] with the windings at `temperature_c`.
+pub(super) fn electrical(
+    build: &Build,
+    laid: &[Laid],
+    wires: &[crate::library::wires::ResolvedWire],
+    valid: bool,
+    leakage: &[LeakageEval],
+    temperature_c: f64,
+    memo: &mut Memo,
+) -> Electrical {
+    let mut windings = dc_windings(build, laid, wires, temperature_c);
+
+    let mut converter = if valid {
+        converter::evaluate(build)
+    } else {
+        None
+    };
+    if let Some(c) = converter.as_mut()
+        && let Some(l) = first_ps_leakage(build, leakage)
+    {
+        converter::apply_leakage(c, build, l);
+    }
+    if let Some(c) = converter.as_mut()
+        && let Some(r) = windings.iter().find(|w| w.role == Role::Reset)
+        && r.copper_area_mm2 > 0.0
+    {
+        c.reset_current_density_a_mm2 = c.reset_rms_a.map(|i| i / r.copper_area_mm2);
+    }
+    let currents = currents::winding_currents(build, converter.as_ref());
+    for (w, c) in windings.iter_mut().zip(&currents) {
+        w.current_rms_a = c.rms_a;
+        w.current_source = c.source;
+        w.current_model_rms_a = c.model_rms_a;
+        w.current_density_a_mm2 = c
+            .rms_a
+            .filter(|_| w.copper_area_mm2 > 0.0)
+            .map(|a| a / w.copper_area_mm2);
+    }
+    let mut ac_warnings = Vec::new();
+    if build.setup.frequency_khz.is_some() {
+        ac_figures(
+            build,
+            laid,
+            temperature_c,
+            wires,
+            &currents,
+            &mut windings,
+            &mut ac_warnings,
+            memo,
+        );
+    }
+    for w in windings.iter_mut() {
+        let r =
+            w.ac.as_ref()
+                .map_or(w.dcr_ohm, |a| a.rac_waveform_ohm.unwrap_or(a.rac_ohm));
+        w.copper_loss_w = match (w.current_rms_a, w.proximity_loss_w) {
+            (Some(i), p) => Some(i * i * r + p.unwrap_or(0.0)),
+            (None, p) => p,
+        };
+    }
+    let losses = converter
+        .as_ref()
+        .map(|c| losses::evaluate(build, c, &windings, memo));
+    Electrical {
+        windings,
+        converter,
+        losses,
+        ac_warnings,
+    }
+}
+
+/// Every winding with its wire, length and DC resistance at `temperature_c`; the AC,
+/// current and loss figures left for [`electrical`] to fill in.
+fn dc_windings(
+    build: &Build,
+    laid: &[Laid],
+    wires: &[crate::library::wires::ResolvedWire],
+    temperature_c: f64,
+) -> Vec<WindingEval> {
+    build
+        .windings
+        .iter()
+        .enumerate()
+        .map(|(i, w)| {
+            let copper_area_mm2 = f64::from(w.strands) * area_mm2(wires[i].bare_mm);
+            let length_mm = winding_length_mm(laid, i);
+            let length_m = length_mm * MM;
+            WindingEval {
+                name: w.name.clone(),
+                role: w.role,
+                turns: w.turns,
+                strands: w.strands,
+                bare_mm: wires[i].bare_mm,
+                od_mm: wires[i].od_mm,
+                copper_area_mm2,
+                length_m,
+                mlt_mm: if w.turns > 0 {
+                    length_mm / f64::from(w.turns)
+                } else {
+                    0.0
+                },
+                dcr_ohm: ohm_per_m(wires[i].bare_mm, w.strands, temperature_c) * length_m,
+                ac: None,
+                current_density_a_mm2: None,
+                current_rms_a: None,
+                current_source: None,
+                current_model_rms_a: None,
+                copper_loss_w: None,
+                layer_voltage_v: None,
+                proximity_loss_w: None,
+            }
+        })
+        .collect()
+}

@@ -1,0 +1,256 @@
+//! The winding steps of the sheet, section by section, and the leads that cross.
+
+use super::*;
+
+/// The numbered steps, one per stack section, from the tube outward.
+pub(super) fn steps(build: &Build, eval: &Evaluation) -> Vec<Step> {
+    let mut steps = Vec::new();
+    for (i, (sec, s_eval)) in build.stack.iter().zip(&eval.sections).enumerate() {
+        let number = steps.len() + 1;
+        match (sec, &s_eval.kind) {
+            (Section::Tape { .. }, SectionKind::Tape { wraps }) => {
+                steps.push(tape_step(build, number, i, *wraps));
+            }
+            (Section::Winding(_), SectionKind::Winding { .. }) => {
+                steps.extend(winding_step(build, number, i, s_eval));
+            }
+            _ => {}
+        }
+    }
+    steps
+}
+
+/// The step of a tape section.
+pub(super) fn tape_step(build: &Build, number: usize, i: usize, wraps: u32) -> Step {
+    let b = &build.bobbin;
+    let wraps = &wraps;
+    Step {
+        number,
+        section: i,
+        heading: format!("Tape: {}", plural(*wraps, "wrap", "wraps")),
+        lines: vec![(
+            "Tape".into(),
+            format!(
+                "{} of {:.1} mm tape over the whole width, flange to flange, \
+                 pulled flat; overlap the end a little",
+                plural(*wraps, "wrap", "wraps"),
+                b.window.width_mm
+            ),
+        )],
+    }
+}
+
+/// The step of a winding section: its heading and one line per thing to do, in order
+/// (`None` for a tape section).
+pub(super) fn winding_step(
+    build: &Build,
+    number: usize,
+    i: usize,
+    s_eval: &SectionEval,
+) -> Option<Step> {
+    let SectionKind::Winding {
+        winding,
+        with,
+        turns,
+        turns_per_layer,
+        layer_count,
+        last_layer_turns,
+        layer_tape,
+        ..
+    } = &s_eval.kind
+    else {
+        return None;
+    };
+    let mut names = vec![winding.clone()];
+    names.extend(with.clone());
+    let heading = winding_heading(build, &names, with.is_some());
+    let mut lines: Vec<(String, String)> = Vec::new();
+    lines.extend(margin_line(build, s_eval));
+    for n in &names {
+        let Some(w) = build.winding(n) else { continue };
+        lines.push((format!("Wire {n}"), wire_text(w)));
+    }
+    if with.is_some() {
+        lines.push((
+            "Bifilar".into(),
+            format!(
+                "lay the wires of {} together, side by side, and wind them as one: \
+                 the turns below count the pair once; keep them in the same order \
+                 across every layer",
+                names.join(" and ")
+            ),
+        ));
+    }
+    for n in &names {
+        lines.push(("Start".into(), start_text(build, i, n)));
+    }
+    lines.push((
+        "Direction".into(),
+        "the one sense for every winding (see the convention)".into(),
+    ));
+    lines.push((
+        "Turns".into(),
+        format!(
+            "{turns} turns in {}: {turns_per_layer} a layer, {last_layer_turns} on the last layer",
+            plural(*layer_count, "layer", "layers")
+        ),
+    ));
+    if *layer_tape > 0 && *layer_count > 1 {
+        lines.push((
+            "Between".into(),
+            format!(
+                "{} of tape between layers",
+                plural(*layer_tape, "wrap", "wraps")
+            ),
+        ));
+    }
+    let side = if layer_count % 2 == 1 {
+        "the flange opposite the start"
+    } else {
+        "the flange you started at"
+    };
+    for n in &names {
+        lines.push(("Finish".into(), finish_text(build, i, n, side)));
+    }
+    Some(Step {
+        number,
+        section: i,
+        heading,
+        lines,
+    })
+}
+
+/// The heading of a winding step: "Winding P (primary)", or a bifilar pair.
+pub(super) fn winding_heading(
+    build: &Build,
+    names: &[crate::model::Name],
+    bifilar: bool,
+) -> String {
+    let roles: Vec<String> = names
+        .iter()
+        .filter_map(|n| build.winding(n))
+        .map(|w| format!("{} ({})", w.name, w.role.key()))
+        .collect();
+    if bifilar {
+        format!("Winding {} bifilar", roles.join(" with "))
+    } else {
+        format!("Winding {}", roles.join(""))
+    }
+}
+
+/// The margin tape to lay before a winding section, when the build has margins.
+pub(super) fn margin_line(build: &Build, s_eval: &SectionEval) -> Option<(String, String)> {
+    (build.setup.margin_mm > 0.0).then(|| {
+        (
+            "Margins".into(),
+            format!(
+                "before the first layer, margin tape {:.1} mm wide against each \
+                 flange, built up to {:.2} mm (this section's height)",
+                build.setup.margin_mm, s_eval.height_mm
+            ),
+        )
+    })
+}
+
+/// Where a winding starts in section `i`: on its start pin, or going on from the section
+/// where it was parked.
+pub(super) fn start_text(build: &Build, i: usize, n: &str) -> String {
+    let secs = bench::sections_winding(build, n);
+    let pos = secs.iter().position(|&k| k == i).unwrap_or(0);
+    let w = build.winding(n);
+    if pos == 0 {
+        format!("{n} on {}", pin_text(&w.and_then(|w| w.start_pin.clone())))
+    } else {
+        format!(
+            "{n}: go on with the wire left uncut at step {}",
+            secs[pos - 1] + 1
+        )
+    }
+}
+
+/// Where a winding ends in section `i`: on its finish pin, or parked for a later section.
+pub(super) fn finish_text(build: &Build, i: usize, n: &str, side: &str) -> String {
+    let secs = bench::sections_winding(build, n);
+    let pos = secs.iter().position(|&k| k == i).unwrap_or(0);
+    let w = build.winding(n);
+    if pos + 1 == secs.len() {
+        format!(
+            "{n} on {} (the wire ends at {side})",
+            pin_text(&w.and_then(|w| w.finish_pin.clone()))
+        )
+    } else {
+        format!(
+            "{n}: do not cut; park it at {side}, it goes on at step {}",
+            secs[pos + 1] + 1
+        )
+    }
+}
+
+/// The wire of a winding in words, with its strands laid side by side.
+pub(super) fn wire_text(w: &crate::model::Winding) -> String {
+    if w.strands > 1 {
+        format!(
+            "{} strands of {} {} laid side by side as one turn",
+            w.strands,
+            wire_label(&w.wire, 1),
+            w.insulation
+        )
+    } else {
+        format!("{} {}", wire_label(&w.wire, 1), w.insulation)
+    }
+}
+
+/// Leads that cross a winding on the way to their pin, as "P start", "S finish", ...: a start
+/// lead with a winding layer below it, a finish lead leaving from above a winding layer.
+pub(super) fn crossing_leads(build: &Build, eval: &Evaluation) -> Vec<String> {
+    let mut out = Vec::new();
+    let winding_below = |y: f64| {
+        eval.sections.iter().any(|s| {
+            matches!(s.kind, SectionKind::Winding { .. })
+                && s.layers.iter().any(|l| l.y_mm + 1e-9 < y)
+        })
+    };
+    for w in &build.windings {
+        let mut first: Option<f64> = None;
+        let mut last: Option<f64> = None;
+        for s in &eval.sections {
+            if let SectionKind::Winding { winding, with, .. } = &s.kind
+                && (*winding == w.name || with.as_deref() == Some(w.name.as_str()))
+            {
+                first.get_or_insert(s.y_mm);
+                last = s.layers.last().map(|l| l.y_mm);
+            }
+        }
+        if first.is_some_and(winding_below) {
+            out.push(format!("{} start", w.name));
+        }
+        if last.is_some_and(winding_below) {
+            out.push(format!("{} finish", w.name));
+        }
+        // A winding parked between sections crosses whatever is wound in between.
+        let secs: Vec<usize> = eval
+            .sections
+            .iter()
+            .enumerate()
+            .filter(|(_, s)| {
+                matches!(&s.kind, SectionKind::Winding { winding, with, .. }
+                    if *winding == w.name || with.as_deref() == Some(w.name.as_str()))
+            })
+            .map(|(i, _)| i)
+            .collect();
+        for pair in secs.windows(2) {
+            let between = eval.sections[pair[0] + 1..pair[1]]
+                .iter()
+                .any(|s| matches!(s.kind, SectionKind::Winding { .. }));
+            if between {
+                out.push(format!(
+                    "{} from step {} to {}",
+                    w.name,
+                    pair[0] + 1,
+                    pair[1] + 1
+                ));
+            }
+        }
+    }
+    out
+}
