@@ -4,6 +4,7 @@
 
 pub mod ac;
 pub mod bench;
+pub mod build_size;
 pub mod capacitance;
 pub mod constants;
 pub mod converter;

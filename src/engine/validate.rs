@@ -6,11 +6,7 @@ use crate::library::wires::AWG_RANGE;
 use crate::model::{Bobbin, Build, Role, Section, Tube, WindingSection, WireSize};
 use std::fmt;
 
-/// Most windings a build may have: far above any hand-wound part, so that a generated file or
-/// a run of edits cannot make an evaluation run for minutes (FORMAT.md, "Limits").
-pub const MAX_WINDINGS: usize = 32;
-/// Most stack sections a build may have (FORMAT.md, "Limits").
-pub const MAX_SECTIONS: usize = 200;
+pub use super::build_size::{MAX_SECTIONS, MAX_WINDINGS};
 
 /// Where in the build a problem lies; the loader maps it to a line and column.
 #[derive(Debug, Clone, PartialEq, Eq)]
@@ -146,6 +142,7 @@ pub(super) fn validate_resolved(build: &Build, resolved: &Resolved) -> Vec<Inval
     out.extend(validate_bobbin(&build.bobbin));
     let mut bad = |place: Place, message: String| out.push(Invalid { place, message });
     for check in [
+        super::build_size::check_size,
         check_setup,
         check_windings,
         check_sections,
@@ -238,15 +235,6 @@ fn check_windings(build: &Build, _resolved: &Resolved, bad: &mut dyn FnMut(Place
             "a build needs at least one [[winding]]".into(),
         );
     }
-    if build.windings.len() > MAX_WINDINGS {
-        bad(
-            Place::Top("winding"),
-            format!(
-                "{} windings is more than this program takes (at most {MAX_WINDINGS}; a hand-wound part has a few)",
-                build.windings.len()
-            ),
-        );
-    }
     for (i, w) in build.windings.iter().enumerate() {
         if w.name.trim().is_empty() {
             bad(Place::Winding(i, "name"), "must not be empty".into());
@@ -334,15 +322,6 @@ fn check_sections(build: &Build, resolved: &Resolved, bad: &mut dyn FnMut(Place,
         bad(
             Place::Top("stack"),
             "a build needs at least one [[stack]] section".into(),
-        );
-    }
-    if build.stack.len() > MAX_SECTIONS {
-        bad(
-            Place::Top("stack"),
-            format!(
-                "{} stack sections is more than this program takes (at most {MAX_SECTIONS}; a hand-wound part has a few)",
-                build.stack.len()
-            ),
         );
     }
     for (i, section) in build.stack.iter().enumerate() {
