@@ -515,3 +515,21 @@ fn every_form_row_answers_enter_as_its_table_says() {
         }
     }
 }
+
+/// The line editor opens on the value as it is: typing replaces it (as a selected field
+/// does), Backspace edits it. Typing "30" over 24 turns gives 30, not 2430.
+#[test]
+fn typing_replaces_the_shown_value_and_backspace_edits_it() {
+    let mut app = demo_app();
+    let p = app.doc.build.winding_index("P").unwrap();
+    assert_eq!(app.doc.build.windings[p].turns, 24);
+    press(&mut app, "<tab>t30<enter>");
+    assert_eq!(app.doc.build.windings[p].turns, 30);
+    press(&mut app, "t<bs>2<enter>");
+    assert_eq!(app.doc.build.windings[p].turns, 32);
+    let shown = screen(&app, 80, 24);
+    assert!(!shown.contains("typing replaces"), "{shown}");
+    press(&mut app, "t");
+    let shown = screen(&app, 80, 24);
+    assert!(shown.contains("typing replaces this value"), "{shown}");
+}

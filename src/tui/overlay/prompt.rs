@@ -61,6 +61,9 @@ pub struct Prompt {
     pub text: String,
     /// What the text is for.
     pub purpose: PromptPurpose,
+    /// The text is the value as it was, not yet touched: the first character typed replaces
+    /// it (as a selected field does), Backspace starts editing it instead.
+    pub fresh: bool,
 }
 
 impl App {
@@ -71,10 +74,12 @@ impl App {
         text: impl Into<String>,
         purpose: PromptPurpose,
     ) {
+        let text = text.into();
         self.ui.overlays.push(Overlay::Prompt(Prompt {
             label: label.into(),
             hint: purpose.hint().into(),
-            text: text.into(),
+            fresh: !text.is_empty(),
+            text,
             purpose,
         }));
     }
@@ -83,8 +88,15 @@ impl App {
     pub(crate) fn prompt_key(&mut self, action: Action, mut p: Prompt) -> Option<Effect> {
         let top = self.ui.overlays.len() - 1;
         match action {
-            Action::Input(c) => p.text.push(c),
+            Action::Input(c) => {
+                if p.fresh {
+                    p.text.clear();
+                }
+                p.fresh = false;
+                p.text.push(c);
+            }
             Action::Backspace => {
+                p.fresh = false;
                 p.text.pop();
             }
             Action::Cancel => {

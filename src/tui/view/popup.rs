@@ -197,13 +197,22 @@ pub fn prompt(app: &App, frame: &mut Frame, area: Rect, p: &Prompt) {
     while shown.width() + 2 > w && !shown.is_empty() {
         shown.remove(0);
     }
+    // The untouched value shows inverted and says so: typing replaces it.
+    let (style, second) = if p.fresh {
+        (
+            t.selected(),
+            "typing replaces this value; Backspace edits it",
+        )
+    } else {
+        (t.key(), "")
+    };
     let lines = vec![
         Line::from(vec![
             Span::raw("> "),
-            Span::styled(shown, t.key()),
+            Span::styled(shown, style),
             Span::styled("█", t.base()),
         ]),
-        Line::from(""),
+        Line::from(Span::styled(fit(second, w), t.dim())),
         Line::from(Span::styled(fit(&p.hint, w), t.dim())),
     ];
     frame.render_widget(Paragraph::new(lines), inner);
