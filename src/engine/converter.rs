@@ -2,6 +2,7 @@
 //! switch voltage, duty needed, flux swing, magnetising and reset currents (format spec).
 
 use super::magnetics::{self, AlSource};
+use super::outputs::{self, OutputEval};
 use crate::model::{Build, ResetSide, Role};
 
 #[derive(Debug, Clone, PartialEq)]
@@ -35,11 +36,11 @@ pub struct ConverterEval {
     pub duty_needed_total_at_vin_min: f64,
     /// Primary-secondary leakage referred to the primary (uH), set by the evaluation.
     pub leakage_ps_uh: Option<f64>,
-    /// Primary current at turn-off: `iout Ns/Np + magnetising_peak_a`.
+    /// Primary current at turn-off: `reflected_a + magnetising_peak_a`.
     pub clamp_peak_a: Option<f64>,
     /// `1/2 L_lk I_pk^2 f`: the power the clamp or snubber must take at turn-off.
     pub clamp_loss_w: Option<f64>,
-    /// `L_lk (iout Ns/Np) f / (vin_min_v - switch_drop_v)`: the share of the period the
+    /// `L_lk reflected_a f / (vin_min_v - switch_drop_v)`: the share of the period the
     /// primary current spends rising through the leakage before the secondary takes the load.
     pub duty_lost_to_leakage: Option<f64>,
     /// Secondary-side reset only: the steady-state duty must stay below `1 - Nr/Ns`.
@@ -72,6 +73,11 @@ pub struct ConverterEval {
     pub reset_current_density_a_mm2: Option<f64>,
     /// The duty used at `vin_min_v` for the currents: min(needed, available).
     pub duty_used_at_vin_min: f64,
+    /// The load reflected to the primary during the on-time: the sum over the outputs of
+    /// `Ik Nk / Np` (A).
+    pub reflected_a: f64,
+    /// Each output's voltage from the turns, when the build gives `[[output]]` tables.
+    pub outputs: Vec<OutputEval>,
 }
 
 /// The duty the reset allows (fraction), the switch's off-state voltage at the highest input
@@ -98,7 +104,11 @@ fn reset_limits(
 pub fn evaluate(build: &Build) -> Option<ConverterEval> {
     let op = build.operating.as_ref()?;
     let np = build.first_of(Role::Primary)?.turns;
-    let ns = build.first_of(Role::Secondary)?.turns;
+    // The regulated output's winding sets the duty (the first secondary: validation holds
+    // the first [[output]] to it).
+    let feeds = outputs::resolve(build);
+    let regulated = feeds.first()?;
+    let ns = build.windings[regulated.winding].turns;
     let nr = build.first_of(Role::Reset)?.turns;
     let f_hz = build.setup.frequency_khz? * 1e3;
     if np == 0 || ns == 0 || nr == 0 || f_hz <= 0.0 {
@@ -106,7 +116,11 @@ pub fn evaluate(build: &Build) -> Option<ConverterEval> {
     }
     let period_s = 1.0 / f_hz;
     let (npf, nsf, nrf) = (f64::from(np), f64::from(ns), f64::from(nr));
-    let vo = op.vout_v + op.rectifier_drop_v;
+    let vo = regulated.figures.vout_v + regulated.figures.rectifier_drop_v;
+    let reflected_a = feeds
+        .iter()
+        .map(|o| o.figures.iout_a * f64::from(build.windings[o.winding].turns) / npf)
+        .sum();
     let (reset_duty_limit, switch_voltage_v, steady_duty_ceiling) =
         reset_limits(op.reset_side, op.vin_max_v, vo, (npf, nsf, nrf));
     let duty_max = op
@@ -169,6 +183,8 @@ pub fn evaluate(build: &Build) -> Option<ConverterEval> {
         reset_rms_a: reset_peak_a.map(|i| i * (reset_used.min(1.0) / 3.0).sqrt()),
         reset_current_density_a_mm2: None,
         duty_used_at_vin_min: duty_used,
+        reflected_a,
+        outputs: outputs::evaluate(build),
     })
 }
 
@@ -181,7 +197,8 @@ pub fn apply_leakage(c: &mut ConverterEval, build: &Build, leakage_uh: f64) {
     };
     let f_hz = f_khz * 1e3;
     let l_h = leakage_uh.max(0.0) * 1e-6;
-    let reflected = op.iout_a * f64::from(c.ns) / f64::from(c.np);
+    // Every output's load flows through the primary-secondary leakage at turn-on and off.
+    let reflected = c.reflected_a;
     let peak = reflected + c.magnetising_peak_a.unwrap_or(0.0);
     let vin_on = (op.vin_min_v - op.switch_drop_v).max(f64::MIN_POSITIVE);
     let lost = l_h * reflected * f_hz / vin_on;

@@ -38,19 +38,28 @@ pub struct WindingCurrent {
 }
 
 /// The shape of each role's current, in amperes, at `vin_min_v`:
-/// primary `Iout Ns/Np` plus the magnetising ramp over D; secondary `Iout` over D; reset a
-/// triangle from `Im Np/Nr` to zero over the reset time.
-fn role_waveform(build: &Build, c: &ConverterEval, role: Role) -> Option<Waveform> {
+/// primary the reflected load `sum Ik Nk/Np` plus the magnetising ramp over D; secondary its
+/// output's `Ik` over D (`load_a`; a secondary without an output takes the regulated one's
+/// shape); reset a triangle from `Im Np/Nr` to zero over the reset time.
+fn role_waveform(
+    build: &Build,
+    c: &ConverterEval,
+    role: Role,
+    load_a: Option<f64>,
+) -> Option<Waveform> {
     let op = build.operating.as_ref()?;
     let d = c.duty_used_at_vin_min;
     let f_hz = build.setup.frequency_khz? * 1e3;
     match role {
         Role::Primary => {
-            let reflected = op.iout_a * f64::from(c.ns) / f64::from(c.np);
+            let reflected = c.reflected_a;
             let im = c.magnetising_peak_a.unwrap_or(0.0);
             Some(Waveform::ramp(reflected, reflected + im, 0.0, d))
         }
-        Role::Secondary => Some(Waveform::pulse(op.iout_a, d)),
+        Role::Secondary => Some(Waveform::pulse(
+            load_a.unwrap_or_else(|| op.regulated().iout_a),
+            d,
+        )),
         Role::Reset => {
             let r = c.reset_time_us * 1e-6 * f_hz;
             // Without an inductance the size is unknown but the shape still sets the AC factor.
@@ -61,14 +70,22 @@ fn role_waveform(build: &Build, c: &ConverterEval, role: Role) -> Option<Wavefor
     }
 }
 
+/// Each winding's current. The first winding of each power role gets the operating point's
+/// RMS, and so does every winding that feeds an output (each its own output's current).
 pub fn winding_currents(build: &Build, conv: Option<&ConverterEval>) -> Vec<WindingCurrent> {
+    let feeds = super::outputs::resolve(build);
     build
         .windings
         .iter()
         .enumerate()
         .map(|(k, w)| {
-            let shape = conv.and_then(|c| role_waveform(build, c, w.role));
-            let first = build.windings.iter().position(|x| x.role == w.role) == Some(k);
+            let load_a = feeds
+                .iter()
+                .find(|o| o.winding == k)
+                .map(|o| o.figures.iout_a);
+            let shape = conv.and_then(|c| role_waveform(build, c, w.role, load_a));
+            let first =
+                build.windings.iter().position(|x| x.role == w.role) == Some(k) || load_a.is_some();
             let sized = w.role != Role::Reset || conv.is_some_and(|c| c.reset_peak_a.is_some());
             let model_rms_a = shape.as_ref().filter(|_| first && sized).map(Waveform::rms);
             let (rms_a, source) = match (w.current_rms_a, model_rms_a) {

@@ -114,7 +114,9 @@ fn core_figures(
     let f_khz = build.setup.frequency_khz.unwrap_or(0.0);
     let duty = c.duty_needed_at_vin_max.min(c.duty_available).max(0.0);
     let swing_t = op.vin_max_v * duty / (f_khz * 1e3 * f64::from(c.np) * core.ae_mm2 * 1e-6);
-    let vo = op.vout_v + op.rectifier_drop_v;
+    // Reset to the output returns to the regulated one.
+    let reg = op.regulated();
+    let vo = reg.vout_v + reg.rectifier_drop_v;
     let reset = match c.reset_side {
         ResetSide::Primary => duty * f64::from(c.nr) / f64::from(c.np),
         ResetSide::Secondary => op.vin_max_v * duty * f64::from(c.nr) / (vo * f64::from(c.np)),

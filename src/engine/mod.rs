@@ -21,6 +21,7 @@ pub mod losses;
 pub mod magnetics;
 pub mod measured_core;
 pub mod memo;
+pub mod outputs;
 mod remarks;
 pub mod resistance;
 pub mod search;
@@ -40,6 +41,7 @@ pub use evaluation::{
 pub use limits::{Constraint, Limit};
 pub use losses::LossEval;
 pub use magnetics::AlSource;
+pub use outputs::OutputEval;
 pub use remarks::{Note, Warning, WarningAt, WarningKind};
 pub use thermal::InsulationPart;
 pub use validate::{Invalid, Place, validate, validate_bobbin};

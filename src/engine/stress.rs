@@ -87,7 +87,9 @@ fn primary_side(role: Role, reset: ResetSide) -> Option<bool> {
 pub fn evaluate(build: &Build, laid: &[Laid], c: &ConverterEval) -> Option<StressEval> {
     let op = build.operating.as_ref()?;
     let (np, nr) = (f64::from(c.np), f64::from(c.nr));
-    let vo = op.vout_v + op.rectifier_drop_v;
+    // Reset to the output returns to the regulated one.
+    let reg = op.regulated();
+    let vo = reg.vout_v + reg.rectifier_drop_v;
     let reset_vpt = match op.reset_side {
         ResetSide::Primary => op.vin_max_v / nr,
         ResetSide::Secondary => vo / nr,

@@ -22,6 +22,8 @@ pub enum Place {
     Section(usize, &'static str),
     Operating(&'static str),
     Material(&'static str),
+    /// A key of the n-th `[[output]]` (0-based).
+    Output(usize, &'static str),
 }
 
 impl fmt::Display for Place {
@@ -35,6 +37,8 @@ impl fmt::Display for Place {
             Place::Operating("") => write!(f, "operating"),
             Place::Operating(k) => write!(f, "operating.{k}"),
             Place::Material(k) => write!(f, "material.{k}"),
+            Place::Output(i, "") => write!(f, "output #{}", i + 1),
+            Place::Output(i, k) => write!(f, "output #{} {k}", i + 1),
         }
     }
 }
@@ -148,6 +152,7 @@ pub(super) fn validate_resolved(build: &Build, resolved: &Resolved) -> Vec<Inval
         check_sections,
         check_turn_sums,
         check_operating,
+        super::outputs::check_outputs,
         check_material,
     ] {
         check(build, resolved, &mut bad);
@@ -471,10 +476,12 @@ fn check_operating(build: &Build, _resolved: &Resolved, bad: &mut dyn FnMut(Plac
                 );
             }
         }
+        // With [[output]] tables the regulated output is checked as output #1.
+        let shorthand = op.outputs.is_empty();
         for (key, v) in [
             ("vin_min_v", op.vin_min_v),
             ("vin_max_v", op.vin_max_v),
-            ("vout_v", op.vout_v),
+            ("vout_v", if shorthand { op.vout_v } else { 1.0 }),
         ] {
             if !positive(v) {
                 bad(
@@ -489,7 +496,7 @@ fn check_operating(build: &Build, _resolved: &Resolved, bad: &mut dyn FnMut(Plac
                 format!("is above vin_max_v ({} > {})", op.vin_min_v, op.vin_max_v),
             );
         }
-        if !(op.iout_a.is_finite() && op.iout_a >= 0.0) {
+        if shorthand && !(op.iout_a.is_finite() && op.iout_a >= 0.0) {
             bad(
                 Place::Operating("iout_a"),
                 format!("must be zero or positive, got {}", op.iout_a),

@@ -21,11 +21,36 @@ const GAP: isize = 1 << 20;
 /// The build written onto `base`, or `None` when `base` is not TOML.
 pub fn merge_onto(base: &str, build: &crate::model::Build) -> Option<String> {
     let mut doc: DocumentMut = base.parse().ok()?;
-    let generated: DocumentMut = build_to_toml(build).parse().ok()?;
+    let mut generated: DocumentMut = build_to_toml(build).parse().ok()?;
+    keep_shorthand_beside_outputs(&doc, &mut generated);
     spread_positions(doc.as_table_mut());
     merge_table(doc.as_table_mut(), generated.as_table(), "");
     place_new_tables(doc.as_table_mut(), generated.as_table());
     Some(doc.to_string())
+}
+
+/// A file that gives `[operating] vout_v` / `iout_a` beside `[[output]]` tables (allowed when
+/// they say what the first output says) keeps them, with the first output's values.
+fn keep_shorthand_beside_outputs(base: &DocumentMut, generated: &mut DocumentMut) {
+    let first = generated
+        .get("output")
+        .and_then(Item::as_array_of_tables)
+        .and_then(|a| a.get(0))
+        .cloned();
+    let (Some(first), Some(base_op)) = (first, base.get("operating").and_then(Item::as_table))
+    else {
+        return;
+    };
+    let Some(op) = generated.get_mut("operating").and_then(Item::as_table_mut) else {
+        return;
+    };
+    for key in ["vout_v", "iout_a"] {
+        if base_op.contains_key(key)
+            && let Some(v) = first.get(key)
+        {
+            op.insert(key, v.clone());
+        }
+    }
 }
 
 fn spread_positions(t: &mut Table) {
@@ -318,7 +343,7 @@ fn merge_array(b: &mut ArrayOfTables, g: &ArrayOfTables, path: &str) {
     let old: Vec<Table> = b.iter().cloned().collect();
     let new: Vec<&Table> = g.iter().collect();
     let same = |o: &Table, n: &Table| -> bool {
-        if path == "winding" {
+        if path == "winding" || path == "output" {
             o.get("name").and_then(Item::as_str).is_some()
                 && o.get("name").and_then(Item::as_str) == n.get("name").and_then(Item::as_str)
         } else {

@@ -63,6 +63,9 @@ pub struct BuildFile {
     #[serde(default)]
     pub stack: Vec<Spanned<SectionRaw>>,
     pub operating: Option<Spanned<OperatingRaw>>,
+    /// `[[output]]`: the converter's outputs, the first the regulated one.
+    #[serde(default)]
+    pub output: Vec<Spanned<OutputRaw>>,
     pub material: Option<Spanned<MaterialRaw>>,
     pub isolation: Option<Spanned<IsolationRaw>>,
     /// `[measured]`: the bench readings of the wound part (see `files::measured`).
@@ -213,8 +216,9 @@ pub struct OperatingRaw {
     pub reset_side: Option<Spanned<String>>,
     pub vin_min_v: Spanned<f64>,
     pub vin_max_v: Spanned<f64>,
-    pub vout_v: Spanned<f64>,
-    pub iout_a: Spanned<f64>,
+    /// Required without `[[output]]` tables (the one-output shorthand).
+    pub vout_v: Option<Spanned<f64>>,
+    pub iout_a: Option<Spanned<f64>>,
     pub rectifier_drop_v: Option<Spanned<f64>>,
     pub duty_limit: Option<Spanned<f64>>,
     pub rise_limit_c: Option<Spanned<f64>>,
@@ -222,6 +226,16 @@ pub struct OperatingRaw {
     pub switch_drop_v: Option<Spanned<f64>>,
     pub ambient_c: Option<Spanned<f64>>,
     pub switch_rating_v: Option<Spanned<f64>>,
+}
+
+/// One `[[output]]` table.
+#[derive(Debug, Deserialize)]
+#[serde(deny_unknown_fields)]
+pub struct OutputRaw {
+    pub name: Spanned<String>,
+    pub vout_v: Spanned<f64>,
+    pub iout_a: Spanned<f64>,
+    pub rectifier_drop_v: Option<Spanned<f64>>,
 }
 
 #[derive(Debug, Deserialize)]

@@ -334,8 +334,11 @@ pub fn build_to_toml(build: &Build) -> String {
         let _ = writeln!(out, "reset_side = \"{side}\"");
         let _ = writeln!(out, "vin_min_v = {}", num(o.vin_min_v));
         let _ = writeln!(out, "vin_max_v = {}", num(o.vin_max_v));
-        let _ = writeln!(out, "vout_v = {}", num(o.vout_v));
-        let _ = writeln!(out, "iout_a = {}", num(o.iout_a));
+        // With [[output]] tables the regulated output is the first of them.
+        if o.outputs.is_empty() {
+            let _ = writeln!(out, "vout_v = {}", num(o.vout_v));
+            let _ = writeln!(out, "iout_a = {}", num(o.iout_a));
+        }
         let _ = writeln!(out, "rectifier_drop_v = {}", num(o.rectifier_drop_v));
         if let Some(d) = o.duty_limit {
             let _ = writeln!(out, "duty_limit = {}", num(d));
@@ -356,6 +359,15 @@ pub fn build_to_toml(build: &Build) -> String {
             if let Some(v) = v {
                 let _ = writeln!(out, "{key} = {}", num(v));
             }
+        }
+    }
+    for o in build.operating.iter().flat_map(|o| &o.outputs) {
+        let _ = writeln!(out, "\n[[output]]");
+        let _ = writeln!(out, "name = {}", quote(&o.winding));
+        let _ = writeln!(out, "vout_v = {}", num(o.vout_v));
+        let _ = writeln!(out, "iout_a = {}", num(o.iout_a));
+        if let Some(d) = o.rectifier_drop_v {
+            let _ = writeln!(out, "rectifier_drop_v = {}", num(d));
         }
     }
     if let Some(m) = &build.material {

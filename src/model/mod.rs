@@ -14,5 +14,5 @@ pub use build::{BobbinSource, Build, Role, Section, SectionRef, Setup, Winding, 
 pub use isolation::{Isolation, IsolationClass};
 pub use measured::{DEFAULT_READING_C, Measured};
 pub use name::Name;
-pub use operating::{Material, Operating, ResetSide, Steinmetz};
+pub use operating::{Material, Operating, Output, OutputFigures, ResetSide, Steinmetz};
 pub use wire::{Insulation, WireSize, trim_mm};

@@ -8,14 +8,45 @@ pub enum ResetSide {
     Secondary,
 }
 
+/// One output of the converter (a `[[output]]` table): the secondary winding that feeds it,
+/// the voltage it should give and the current it delivers.
+#[derive(Debug, Clone, PartialEq)]
+pub struct Output {
+    /// The name of a secondary winding.
+    pub winding: String,
+    pub vout_v: f64,
+    pub iout_a: f64,
+    /// This output's rectifier drop; `None` takes `[operating] rectifier_drop_v`.
+    pub rectifier_drop_v: Option<f64>,
+}
+
+/// An output's figures once the defaults are taken (see [`Operating::outputs_or_shorthand`]).
+#[derive(Debug, Clone, Copy, PartialEq)]
+pub struct OutputFigures<'a> {
+    /// The secondary winding's name; `None` for the shorthand (the first secondary).
+    pub winding: Option<&'a str>,
+    pub vout_v: f64,
+    pub iout_a: f64,
+    pub rectifier_drop_v: f64,
+}
+
 #[derive(Debug, Clone, PartialEq)]
 pub struct Operating {
     pub reset_side: ResetSide,
     pub vin_min_v: f64,
     pub vin_max_v: f64,
+    /// The regulated output's voltage and current. Without `outputs` these are the one-output
+    /// shorthand (`[operating] vout_v`, `iout_a`, on the first secondary); with `outputs` they
+    /// mirror the first output's (the loader and [`Operating::set_regulated`] keep them so),
+    /// and the engine reads [`Operating::regulated`].
     pub vout_v: f64,
     pub iout_a: f64,
+    /// `[operating] rectifier_drop_v`: the shorthand's drop, and the drop of every output
+    /// that does not give its own.
     pub rectifier_drop_v: f64,
+    /// The `[[output]]` tables in file order, the first the regulated one; empty for the
+    /// one-output shorthand.
+    pub outputs: Vec<Output>,
     pub duty_limit: Option<f64>,
     /// Temperature rise the user accepts; `None` takes the engine's default.
     pub rise_limit_c: Option<f64>,
@@ -27,6 +58,64 @@ pub struct Operating {
     pub ambient_c: Option<f64>,
     /// Rated off-state voltage of the switch (V), checked against the off-state voltage.
     pub switch_rating_v: Option<f64>,
+}
+
+impl Operating {
+    /// Every output with its defaults taken, the regulated one first: the `[[output]]`
+    /// tables, or the shorthand's one output.
+    pub fn outputs_or_shorthand(&self) -> Vec<OutputFigures<'_>> {
+        if self.outputs.is_empty() {
+            return vec![OutputFigures {
+                winding: None,
+                vout_v: self.vout_v,
+                iout_a: self.iout_a,
+                rectifier_drop_v: self.rectifier_drop_v,
+            }];
+        }
+        self.outputs
+            .iter()
+            .map(|o| OutputFigures {
+                winding: Some(&o.winding),
+                vout_v: o.vout_v,
+                iout_a: o.iout_a,
+                rectifier_drop_v: o.rectifier_drop_v.unwrap_or(self.rectifier_drop_v),
+            })
+            .collect()
+    }
+
+    /// The regulated output (the first `[[output]]`, else the shorthand).
+    pub fn regulated(&self) -> OutputFigures<'_> {
+        match self.outputs.first() {
+            None => OutputFigures {
+                winding: None,
+                vout_v: self.vout_v,
+                iout_a: self.iout_a,
+                rectifier_drop_v: self.rectifier_drop_v,
+            },
+            Some(o) => OutputFigures {
+                winding: Some(&o.winding),
+                vout_v: o.vout_v,
+                iout_a: o.iout_a,
+                rectifier_drop_v: o.rectifier_drop_v.unwrap_or(self.rectifier_drop_v),
+            },
+        }
+    }
+
+    /// Set the regulated output's voltage and current, in the shorthand and in the first
+    /// `[[output]]` alike.
+    pub fn set_regulated(&mut self, vout_v: f64, iout_a: f64) {
+        self.vout_v = vout_v;
+        self.iout_a = iout_a;
+        self.sync_outputs();
+    }
+
+    /// After an edit of `vout_v` or `iout_a`: the first `[[output]]` takes them too.
+    pub fn sync_outputs(&mut self) {
+        if let Some(o) = self.outputs.first_mut() {
+            o.vout_v = self.vout_v;
+            o.iout_a = self.iout_a;
+        }
+    }
 }
 
 /// Steinmetz coefficients: P in kW/m^3 with f in kHz and B in T.

@@ -39,6 +39,9 @@ pub struct Report<'a> {
     pub notes: Vec<String>,
     #[serde(skip_serializing_if = "Option::is_none")]
     pub converter: Option<ConverterJson>,
+    /// Each output, with `[[output]]` tables (see `report::json_outputs`).
+    #[serde(skip_serializing_if = "Option::is_none")]
+    pub outputs: Option<Vec<super::json_outputs::OutputJson<'a>>>,
     #[serde(skip_serializing_if = "Option::is_none")]
     pub losses: Option<LossesJson<'a>>,
     pub limits: Vec<LimitJson<'a>>,
@@ -346,6 +349,10 @@ pub fn report<'a>(build: &'a Build, eval: &'a Evaluation) -> Report<'a> {
         warnings: eval.warnings.iter().map(|w| warning(build, w)).collect(),
         notes: eval.notes.iter().map(ToString::to_string).collect(),
         converter: eval.converter.as_ref().map(converter),
+        outputs: eval
+            .converter
+            .as_ref()
+            .and_then(|c| super::json_outputs::outputs(&c.outputs)),
         losses: eval.losses.as_ref().map(losses),
         limits: eval.limits.iter().map(limit).collect(),
         capacitance: capacitance(eval),

@@ -138,6 +138,14 @@ pub(super) fn electrical(
             .filter(|_| w.copper_area_mm2 > 0.0)
             .map(|a| a / w.copper_area_mm2);
     }
+    if let Some(c) = converter.as_mut() {
+        for o in c.outputs.iter_mut() {
+            o.current_rms_a = windings
+                .iter()
+                .find(|w| w.name == o.winding)
+                .and_then(|w| w.current_rms_a);
+        }
+    }
     let mut ac_warnings = Vec::new();
     if build.setup.frequency_khz.is_some() {
         ac_figures(

@@ -17,6 +17,7 @@ use toml::Spanned;
 mod bobbin;
 mod material;
 mod operating;
+mod outputs;
 mod setup;
 mod stack;
 mod windings;
@@ -25,6 +26,7 @@ pub(super) use bobbin::bobbin_file;
 use bobbin::bobbin_of;
 use material::material;
 use operating::operating_of;
+use outputs::{outputs_of, regulated_of};
 use setup::setup_of;
 use stack::stack_of;
 use windings::windings_of;
@@ -42,6 +44,7 @@ struct Spans {
     winding: Vec<HashMap<&'static str, Span>>,
     section: Vec<HashMap<&'static str, Span>>,
     operating: HashMap<&'static str, Span>,
+    output: Vec<HashMap<&'static str, Span>>,
     material: HashMap<&'static str, Span>,
 }
 
@@ -61,6 +64,7 @@ impl Spans {
             Place::Material(k) => {
                 pick(&self.material, k).or_else(|| self.top.get("material").cloned())
             }
+            Place::Output(i, k) => self.output.get(*i).and_then(|m| pick(m, k)),
         }
     }
 }
@@ -162,7 +166,7 @@ fn header_shape(text: &str, offset: usize) -> Option<String> {
         .map_or(0, |i| i + 1);
     let line = text[start..].lines().next()?.trim();
     let line = line.split('#').next()?.trim();
-    let lists = ["winding", "stack"];
+    let lists = ["winding", "stack", "output"];
     if let Some(name) = line.strip_prefix("[[").and_then(|l| l.strip_suffix("]]")) {
         let name = name.trim();
         if !lists.contains(&name) {
@@ -291,7 +295,7 @@ pub(super) fn build(
 
     let stack = stack_of(&cx, file.stack, &mut spans)?;
 
-    let operating = operating_of(&cx, file.operating, &mut spans)?;
+    let operating = operating_of(&cx, file.operating, file.output, &mut spans)?;
     let material = match file.material {
         None => None,
         Some(m) => Some(material(&cx, m, &mut spans)?),

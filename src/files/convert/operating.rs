@@ -2,22 +2,35 @@
 
 use super::*;
 
-/// `[operating]`, when given.
+/// `[operating]`, when given, with the `[[output]]` tables.
 pub(super) fn operating_of(
     cx: &Ctx<'_>,
     raw: Option<Spanned<raw::OperatingRaw>>,
+    raw_outputs: Vec<Spanned<raw::OutputRaw>>,
     spans: &mut Spans,
 ) -> Result<Option<Operating>, LoadError> {
     Ok(match raw {
-        None => None,
+        None => {
+            if let Some(first) = raw_outputs.first() {
+                return Err(cx.err(
+                    Some(first.span()),
+                    "output #1",
+                    "[[output]] tables need an [operating] point (vin_min_v, vin_max_v, ...) to feed them",
+                ));
+            }
+            None
+        }
         Some(o) => {
-            spans.top.insert("operating", o.span());
+            let whole = o.span();
+            spans.top.insert("operating", whole.clone());
             let o = o.into_inner();
+            let outputs = outputs_of(raw_outputs, spans);
+            let (vout_v, iout_a) = regulated_of(cx, &o, &outputs, whole)?;
             let sp = &mut spans.operating;
             put(sp, "vin_min_v", &o.vin_min_v);
             put(sp, "vin_max_v", &o.vin_max_v);
-            put(sp, "vout_v", &o.vout_v);
-            put(sp, "iout_a", &o.iout_a);
+            put_opt(sp, "vout_v", &o.vout_v);
+            put_opt(sp, "iout_a", &o.iout_a);
             put_opt(sp, "rectifier_drop_v", &o.rectifier_drop_v);
             put_opt(sp, "duty_limit", &o.duty_limit);
             put_opt(sp, "rise_limit_c", &o.rise_limit_c);
@@ -51,8 +64,9 @@ pub(super) fn operating_of(
                 reset_side,
                 vin_min_v: o.vin_min_v.into_inner(),
                 vin_max_v: o.vin_max_v.into_inner(),
-                vout_v: o.vout_v.into_inner(),
-                iout_a: o.iout_a.into_inner(),
+                vout_v,
+                iout_a,
+                outputs,
                 rectifier_drop_v: o.rectifier_drop_v.map_or(0.0, Spanned::into_inner),
                 duty_limit: o.duty_limit.map(Spanned::into_inner),
                 rise_limit_c: o.rise_limit_c.map(Spanned::into_inner),

@@ -13,10 +13,12 @@ use std::fmt::Write as _;
 mod converter_blocks;
 mod limits_block;
 mod loss_blocks;
+mod outputs_block;
 
 use converter_blocks::{converter_block, currents_block};
 use limits_block::{limit_figure, limits_block};
 use loss_blocks::{capacitance_block, losses_block, stress_block};
+use outputs_block::outputs_block;
 
 pub const WIDTH: usize = 80;
 
@@ -109,6 +111,7 @@ pub fn render(build: &Build, eval: &Evaluation) -> String {
     currents_block(&mut o, eval);
     if let Some(c) = &eval.converter {
         converter_block(&mut o, c);
+        outputs_block(&mut o, &c.outputs);
     }
     if let Some(st) = &eval.stress {
         stress_block(&mut o, st);

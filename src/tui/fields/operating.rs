@@ -20,6 +20,7 @@ fn starting_operating() -> Operating {
         switch_drop_v: 0.0,
         ambient_c: None,
         switch_rating_v: None,
+        outputs: Vec::new(),
     }
 }
 
@@ -51,7 +52,10 @@ macro_rules! required {
                 text: |c| Ok(num_text(op(c).map(|o| o.$field))),
                 write: |b, _, t| {
                     let v = number(t)?;
-                    op_mut(b)?.$field = v;
+                    let o = op_mut(b)?;
+                    o.$field = v;
+                    // The regulated output's figures live in the first [[output]] too.
+                    o.sync_outputs();
                     Ok(())
                 },
             },
