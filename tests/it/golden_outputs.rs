@@ -7,11 +7,12 @@
 use std::path::Path;
 use std::process::Command;
 
-const EXAMPLES: [&str; 4] = [
+const EXAMPLES: [&str; 5] = [
     "first-try",
     "bench-forward",
     "mains-isolated",
     "salvaged-too-small",
+    "two-output",
 ];
 
 /// stdout of the binary, with the user's bobbin folder pointed at an empty one.

@@ -39,6 +39,20 @@ const TOP_EXTRA: &[&str] = &[
     "failures",
     "measured",
     "verify",
+    "outputs",
+];
+/// Each entry of `outputs` (FORMAT.md, "Several outputs"), only with `[[output]]` tables.
+const OUTPUT_KEYS: &[&str] = &[
+    "winding",
+    "regulated",
+    "turns",
+    "vout_v",
+    "iout_a",
+    "rectifier_drop_v",
+    "vout_from_turns_v",
+    "error_v",
+    "error_fraction",
+    "current_rms_a",
 ];
 const WINDING_SECTION_REQUIRED: &[&str] = &[
     "kind",
@@ -219,6 +233,14 @@ fn check_report(name: &str, j: &Value, with_frequency: bool) -> Result<(), Strin
     for l in j["limits"].as_array().unwrap() {
         holds(&format!("{name} limit"), l, LIMIT_KEYS, &[])?;
     }
+    for o in j
+        .get("outputs")
+        .and_then(Value::as_array)
+        .into_iter()
+        .flatten()
+    {
+        holds(&format!("{name} output"), o, OUTPUT_KEYS, &[])?;
+    }
     Ok(())
 }
 
@@ -230,6 +252,7 @@ fn check_json_keys_are_the_documented_set() {
         "bench-forward",
         "mains-isolated",
         "salvaged-too-small",
+        "two-output",
     ] {
         let (b, e) = example(name);
         let j = json::report(&b, &e).to_value();
@@ -268,4 +291,18 @@ fn the_key_check_catches_a_lost_and_an_unknown_key() {
     assert!(check_report("lost", &lost, false).is_err());
     j["windings"][0]["dcr_mohm"] = Value::from(1.0);
     assert!(check_report("unknown", &j, false).is_err());
+}
+
+/// The outputs list is there with `[[output]]` tables, one entry per output, and left out for
+/// the one-output shorthand (so the existing examples' JSON is unchanged).
+#[test]
+fn outputs_are_listed_only_with_output_tables() {
+    let (b, e) = example("two-output");
+    let j = json::report(&b, &e).to_value();
+    let outputs = j["outputs"].as_array().expect("an outputs array");
+    assert_eq!(outputs.len(), 2);
+    assert_eq!(outputs[0]["regulated"], true);
+    assert_eq!(outputs[1]["winding"], "S12");
+    let (b, e) = example("bench-forward");
+    assert!(json::report(&b, &e).to_value().get("outputs").is_none());
 }

@@ -19,6 +19,7 @@ mod json_contract;
 mod layering;
 mod layout_cases;
 mod memo_reuse;
+mod outputs;
 mod recovery;
 mod reference_figures;
 mod save_roundtrip;

@@ -20,6 +20,10 @@ fn figures(e: &Evaluation) -> Vec<(String, f64, usize)> {
     if let Some(c) = &e.converter {
         v.push(("reset %".into(), c.reset_duty_limit * 100.0, 1));
         v.push(("switch V".into(), c.switch_voltage_v, 1));
+        // With several outputs, the voltage each further one's turns make.
+        for o in c.outputs.iter().filter(|o| !o.regulated) {
+            v.push((format!("{} V", o.winding), o.vout_from_turns_v, 2));
+        }
     }
     v.extend(e.leakage.iter().skip(1).map(leak));
     if let Some(w) = e.converter.as_ref().and_then(|c| c.clamp_loss_w) {
