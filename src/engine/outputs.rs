@@ -10,6 +10,11 @@
 use super::validate::Place;
 use crate::model::{Build, Name, OutputFigures, Role};
 
+/// How far a further output may lie from its target before it is warned
+/// (`output-off-target`): +/-5 %, the band an unregulated output of a multi-output supply is
+/// commonly held to (common practice, from memory; tighter rails want a post-regulator).
+pub const OUTPUT_TOLERANCE_FRACTION: f64 = 0.05;
+
 /// One output as the engine reads it: the winding that feeds it and its figures.
 #[derive(Debug, Clone, Copy, PartialEq)]
 pub struct OutputAt<'a> {

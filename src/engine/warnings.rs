@@ -106,6 +106,7 @@ pub(super) fn collect(build: &Build, problems: &[Invalid], eval: &mut Evaluation
     }
     if let Some(c) = &eval.converter {
         converter_warnings(c, &mut warn);
+        output_warnings(build, c, &mut warn);
         if let Some(op) = &build.operating
             && let Some(duty_limit) = op.duty_limit.filter(|&d| d > c.reset_duty_limit)
         {
@@ -182,6 +183,34 @@ fn converter_warnings(
             WarningKind::Saturation {
                 swing_mt: swing,
                 headroom_mt: headroom,
+            },
+        );
+    }
+}
+
+/// A further output whose turns make a voltage off its target by more than the tolerance.
+fn output_warnings(
+    build: &Build,
+    c: &super::converter::ConverterEval,
+    warn: &mut impl FnMut(WarningAt, WarningKind),
+) {
+    use super::outputs::OUTPUT_TOLERANCE_FRACTION;
+    for o in c.outputs.iter().filter(|o| !o.regulated) {
+        if o.error_fraction.abs() <= OUTPUT_TOLERANCE_FRACTION || o.turns == 0 {
+            continue;
+        }
+        let at = build
+            .winding_index(&o.winding)
+            .map_or(WarningAt::Converter, WarningAt::Winding);
+        warn(
+            at,
+            WarningKind::OutputOffTarget {
+                winding: o.winding.clone(),
+                target_v: o.vout_v,
+                from_turns_v: o.vout_from_turns_v,
+                error_fraction: o.error_fraction,
+                // Each turn adds (Vreg + Vd_reg) / Nreg to the winding's on-time voltage.
+                step_v: (o.vout_from_turns_v + o.rectifier_drop_v) / f64::from(o.turns),
             },
         );
     }

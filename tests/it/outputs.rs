@@ -359,3 +359,70 @@ fn line_of(text: &str, needle: &str) -> usize {
     let at = text.find(needle).expect("the text is there");
     text[..at].matches('\n').count() + 1
 }
+
+/// The planner's check panel lists the voltage the further output's turns make (12.02 V by
+/// the hand arithmetic above for examples/two-output.toml, which has the same turns and
+/// drops), and follows the turns: one turn more on S12 makes 5.5 x 38 / 16 - 0.7 = 12.3625 V.
+#[test]
+fn check_panel_shows_the_further_output_voltage() {
+    use crate::tui_support::screen;
+    let path = Path::new(env!("CARGO_MANIFEST_DIR")).join("examples/two-output.toml");
+    let b = files::load_build(&path).unwrap();
+    let mut app = turnstack::tui::App::new(b, None);
+    app.ui.theme = turnstack::tui::theme::Theme::plain();
+    let text = screen(&app, 120, 40);
+    assert!(
+        text.lines()
+            .any(|l| l.contains("S12 V") && l.contains("12.02")),
+        "{text}"
+    );
+    let k = app.doc.build.winding_index("S12").unwrap();
+    let mut edited = app.doc.build.clone();
+    edited.windings[k].turns = 38;
+    app = turnstack::tui::App::new(edited, None);
+    app.ui.theme = turnstack::tui::theme::Theme::plain();
+    let text = screen(&app, 120, 40);
+    assert!(
+        text.lines()
+            .any(|l| l.contains("S12 V") && l.contains("12.36")),
+        "{text}"
+    );
+}
+
+/// An output whose turns miss its target by more than 5 % (common practice, from memory) is
+/// warned, with what one turn moves it. 40 turns: 5.5 x 40 / 16 - 0.7 = 13.05 V, +8.75 %
+/// against 12 V, one turn 5.5 / 16 = 0.34375 V; 36 turns: 12.375 - 0.7 = 11.675 V, -2.7 %,
+/// within the band.
+#[test]
+fn an_output_far_from_its_target_is_warned_with_the_step_of_one_turn() {
+    let with = |turns: u32| {
+        let text = two_outputs().replace(
+            "name = \"S12\"\nrole = \"secondary\"\nturns = 37",
+            &format!("name = \"S12\"\nrole = \"secondary\"\nturns = {turns}"),
+        );
+        eval(&text).1
+    };
+    let e = with(40);
+    let w = e
+        .warnings
+        .iter()
+        .find(|w| w.code() == "output-off-target")
+        .expect("warned");
+    let m = w.message();
+    assert!(m.contains("13.05 V against a 12 V target (+8.8 %)"), "{m}");
+    assert!(m.contains("by 0.34 V"), "{m}");
+    assert_rel(
+        e.converter.as_ref().unwrap().outputs[1].error_fraction,
+        0.0875,
+        1e-9,
+        "error",
+    );
+    let e = with(36);
+    assert_rel(
+        e.converter.as_ref().unwrap().outputs[1].vout_from_turns_v,
+        11.675,
+        1e-12,
+        "36 turns",
+    );
+    assert!(e.warnings.iter().all(|w| w.code() != "output-off-target"));
+}

@@ -91,6 +91,15 @@ pub enum WarningKind {
         needed: f64,
     },
     ResetStartup,
+    /// A further output's turns make a voltage off its target by more than
+    /// `engine::outputs::OUTPUT_TOLERANCE_FRACTION`; `step_v` is what one turn moves it.
+    OutputOffTarget {
+        winding: Name,
+        target_v: f64,
+        from_turns_v: f64,
+        error_fraction: f64,
+        step_v: f64,
+    },
     Saturation {
         swing_mt: f64,
         headroom_mt: f64,
@@ -177,6 +186,7 @@ impl WarningKind {
             WarningKind::ResetImpossible { .. } => "reset-impossible",
             WarningKind::ResetSteady { .. } => "reset-steady",
             WarningKind::ResetStartup => "reset-startup",
+            WarningKind::OutputOffTarget { .. } => "output-off-target",
             WarningKind::Saturation { .. } => "saturation",
             WarningKind::CurrentDensity { .. } => "current-density",
             WarningKind::TemperatureRise { .. } => "temperature-rise",
@@ -311,6 +321,13 @@ mod tests {
                 limit_v: 800.0,
                 wraps: 1,
             },
+            WarningKind::OutputOffTarget {
+                winding: Name::from("S12"),
+                target_v: 12.0,
+                from_turns_v: 13.05,
+                error_fraction: 0.0875,
+                step_v: 0.34,
+            },
         ]
     }
 
@@ -340,9 +357,10 @@ mod tests {
             WarningKind::LayerVoltage { .. } => 21,
             WarningKind::BifilarVoltage { .. } => 22,
             WarningKind::SectionVoltage { .. } => 23,
+            WarningKind::OutputOffTarget { .. } => 24,
         }
     }
-    const KINDS: usize = 24;
+    const KINDS: usize = 25;
 
     /// Every kind has a sample, a code of its own, a sentence, and a row in FORMAT.md's
     /// table of warning codes (the codes are a stable interface, documented there).

@@ -86,6 +86,18 @@ impl fmt::Display for WarningKind {
                 "with the reset returned to the output, the core cannot reset at start-up while the output is \
                  near zero: the controller must limit the duty until the output is up",
             ),
+            WarningKind::OutputOffTarget {
+                winding,
+                target_v,
+                from_turns_v,
+                error_fraction,
+                step_v,
+            } => write!(
+                f,
+                "output {winding}: its turns make {from_turns_v:.2} V against a {target_v} V target \
+                 ({:+.1} %); one turn more or less moves it by {step_v:.2} V",
+                error_fraction * 100.0
+            ),
             WarningKind::Saturation {
                 swing_mt,
                 headroom_mt,
