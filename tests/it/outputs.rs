@@ -426,3 +426,20 @@ fn an_output_far_from_its_target_is_warned_with_the_step_of_one_turn() {
     );
     assert!(e.warnings.iter().all(|w| w.code() != "output-off-target"));
 }
+
+/// The planner's operating form edits the regulated output, in the first `[[output]]` too:
+/// 3 A on S5 makes the reflected load 3 x 16/24 + 0.5 x 37/24 = 2 + 0.770833 = 2.770833 A.
+#[test]
+fn the_operating_form_edits_the_regulated_output() {
+    use crate::tui_support::press;
+    let path = Path::new(env!("CARGO_MANIFEST_DIR")).join("examples/two-output.toml");
+    let mut app = turnstack::tui::App::new(files::load_build(&path).unwrap(), None);
+    // The form's sixth row (the add row is hidden): the output current.
+    press(&mut app, "V<down><down><down><down><down><enter>");
+    press(&mut app, &"<bs>".repeat(20));
+    press(&mut app, "3<enter>");
+    let op = app.doc.build.operating.as_ref().unwrap();
+    assert_eq!((op.iout_a, op.outputs[0].iout_a), (3.0, 3.0));
+    let c = app.doc.eval.converter.as_ref().unwrap();
+    assert_rel(c.reflected_a, 2.0 + 0.5 * 37.0 / 24.0, 1e-12, "reflected");
+}
