@@ -35,11 +35,11 @@ impl Default for DesignSettings {
     fn default() -> Self {
         DesignSettings {
             search: Settings {
-                max_strands: 3,
+                max_strands: 2,
                 ..Settings::default()
             },
             primaries_weighed: 24,
-            primaries_searched: 2,
+            primaries_searched: 1,
         }
     }
 }
@@ -167,13 +167,13 @@ pub fn design(
         progress(k + 1, bobbins.len());
     }
     rank::sort(&mut designs);
-    let binding = designs.is_empty().then(|| {
-        if bobbins.is_empty() {
-            DesignBinding::NoBobbins
-        } else {
-            DesignBinding::Bobbins(verdicts)
-        }
-    });
+    let binding = if !designs.is_empty() {
+        None
+    } else if bobbins.is_empty() {
+        Some(DesignBinding::NoBobbins)
+    } else {
+        Some(DesignBinding::Bobbins(verdicts))
+    };
     DesignOutcome {
         designs,
         binding,
