@@ -114,6 +114,26 @@ pub enum Command {
         #[arg(long)]
         json: bool,
     },
+    /// Design the transformer from a requirements file: turns, reset ratio, wires, ranked.
+    Design {
+        /// The requirements file (FORMAT.md, "Requirements file").
+        file: PathBuf,
+        /// Another folder of bobbin files to try as well.
+        #[arg(long, value_name = "DIR")]
+        bobbins: Vec<PathBuf>,
+        /// Print a JSON object: the designs best first and what binds.
+        #[arg(long)]
+        json: bool,
+        /// Write the chosen design (see --pick) as a build file.
+        #[arg(long, value_name = "BUILD")]
+        out: Option<PathBuf>,
+        /// Which design --out writes, 1 = the first listed.
+        #[arg(long, default_value_t = 1, requires = "out")]
+        pick: usize,
+        /// With --out: replace an existing file (never the requirements file).
+        #[arg(long, requires = "out")]
+        force: bool,
+    },
     /// Turn calliper readings and a test winding into a bobbin file with core data.
     Measure {
         #[command(subcommand)]

@@ -3,6 +3,7 @@
 //! the input is wrong).
 
 mod args;
+mod design;
 mod error;
 mod fit;
 mod lists;
@@ -64,6 +65,21 @@ pub fn run(cli: Cli) -> Result<ExitCode, Error> {
             bobbins,
             json,
         }) => fit::fit(&file, &bobbins, json),
+        Some(Command::Design {
+            file,
+            bobbins,
+            json,
+            out,
+            pick,
+            force,
+        }) => design::run(&design::DesignArgs {
+            file: &file,
+            folders: &bobbins,
+            json,
+            out: out.as_deref(),
+            pick,
+            force,
+        }),
         Some(Command::Measure {
             what: MeasureWhat::Bobbin(m),
         }) => measure::bobbin(&m),

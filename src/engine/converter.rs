@@ -83,7 +83,7 @@ pub struct ConverterEval {
 /// The duty the reset allows (fraction), the switch's off-state voltage at the highest input
 /// (V) and, reset to the output, the steady duty ceiling 1 - Nr/Ns; `vo` is the output plus
 /// the rectifier drop (V).
-fn reset_limits(
+pub fn reset_limits(
     side: ResetSide,
     vin_max_v: f64,
     vo: f64,

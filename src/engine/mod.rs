@@ -10,6 +10,7 @@ pub mod constants;
 pub mod converter;
 pub mod core_loss;
 pub mod currents;
+pub mod design;
 mod evaluation;
 pub mod geometry;
 pub mod harmonics;

@@ -45,6 +45,25 @@ pub fn parse_build(
     convert::build(text, path, library)
 }
 
+/// Read and check a requirements file (`turnstack design`); its `bobbins` ids are looked
+/// up in `library`.
+pub fn load_requirements(
+    path: &Path,
+    library: &BobbinLibrary,
+) -> Result<crate::model::Requirements, LoadError> {
+    let text = std::fs::read_to_string(path).map_err(|e| LoadError::io(path, &e))?;
+    parse_requirements(&text, Some(path), library)
+}
+
+/// Check a requirements file from its text. `path` is only used in messages.
+pub fn parse_requirements(
+    text: &str,
+    path: Option<&Path>,
+    library: &BobbinLibrary,
+) -> Result<crate::model::Requirements, LoadError> {
+    convert::requirements(text, path, library)
+}
+
 /// Check a bobbin file's text.
 pub fn parse_bobbin(text: &str, path: Option<&Path>) -> Result<Bobbin, LoadError> {
     convert::bobbin_file(text, path)

@@ -7,6 +7,7 @@ mod isolation;
 mod measured;
 mod name;
 mod operating;
+mod requirements;
 mod wire;
 
 pub use bobbin::{Bobbin, Core, Tube, Window};
@@ -15,4 +16,5 @@ pub use isolation::{Isolation, IsolationClass};
 pub use measured::{DEFAULT_READING_C, Measured};
 pub use name::Name;
 pub use operating::{Material, Operating, Output, OutputFigures, ResetSide, Steinmetz};
+pub use requirements::{Requirements, SwitchSpec};
 pub use wire::{Insulation, WireSize, trim_mm};

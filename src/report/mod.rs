@@ -1,6 +1,7 @@
 //! Renderings of an Evaluation: the readable check report, the JSON report and the lists.
 //! They read the Evaluation; they compute no figure of their own.
 
+pub mod design;
 pub mod fit;
 pub mod json;
 pub mod json_outputs;

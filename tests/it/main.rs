@@ -12,6 +12,8 @@ mod cli_writes;
 mod converter_examples;
 mod converter_forward;
 mod core_relations;
+mod design_cli;
+mod design_relations;
 mod fidelity;
 mod fit_ranking;
 mod golden_outputs;
