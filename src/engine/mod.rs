@@ -6,6 +6,7 @@ pub mod ac;
 pub mod bench;
 pub mod build_size;
 pub mod capacitance;
+pub mod conductor;
 pub mod constants;
 pub mod converter;
 pub mod core_loss;
