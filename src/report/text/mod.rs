@@ -1,7 +1,7 @@
 //! The readable report of `turnstack check`: the stack from the tube outward with its layers,
 //! the windings, leakage, converter figures, the verdict and the warnings, in 80 columns.
 
-pub use super::textfmt::{truncate, wire_label};
+pub use super::textfmt::{conductor_label, truncate, wire_label};
 use super::wrap;
 use crate::engine::{
     AlSource, ConverterEval, CurrentSource, Evaluation, Limit, LossEval, SectionKind,

@@ -8,7 +8,9 @@
 use super::super::app::{App, Focus};
 use super::panel;
 use crate::engine::SectionKind;
+use crate::engine::conductor::ConductorFigures;
 use crate::engine::constants::FIT_TOLERANCE_MM;
+use crate::model::Conductor;
 use ratatui::buffer::Buffer;
 use ratatui::layout::Rect;
 use ratatui::style::Style;
@@ -376,6 +378,17 @@ impl WindowView<'_> {
         };
         let ly = &sec.layers[l];
         let a = app.doc.build.winding_index(winding).unwrap_or(0);
+        if let Some(ConductorFigures::Foil { width_mm, .. }) =
+            e.windings.get(a).map(|w| &w.conductor)
+        {
+            let over = top_mm > e.window_height_mm + FIT_TOLERANCE_MM;
+            self.draw_foil(buf, a, *width_mm, over, at);
+            return;
+        }
+        let litz = matches!(
+            app.doc.build.windings.get(a).map(|w| w.conductor),
+            Some(Conductor::Litz(_))
+        );
         let b = with.as_ref().and_then(|w| app.doc.build.winding_index(w));
         let over = top_mm > e.window_height_mm + FIT_TOLERANCE_MM;
         // The first winding's share of each bifilar turn's width.
@@ -418,6 +431,13 @@ impl WindowView<'_> {
                     Some(b) if j >= first => b,
                     _ => a,
                 };
+                let style = if over { t.bad() } else { t.winding(k) };
+                // A litz turn wide enough reads as a bundle: (SSS).
+                if litz && b.is_none() && n >= 3 && (j == 0 || j == n - 1) {
+                    let ch = if j == 0 { "(" } else { ")" };
+                    buf.set_string(x0 + c + j, y, ch, style);
+                    continue;
+                }
                 let mut ch = letter(app, k);
                 // Case tells turns apart only where a turn spans two cells or more.
                 if turn % 2 == 1 && pitch >= 2.0 * cell_mm {
@@ -427,6 +447,48 @@ impl WindowView<'_> {
                 buf.set_string(x0 + c + j, y, ch.to_string(), style);
             }
             c += n;
+        }
+    }
+}
+
+impl WindowView<'_> {
+    /// A foil turn: one band across the breadth, the copper (`▬`, the winding's letter at
+    /// each edge) centred in the breadth, the interleaf's overhang shown as empty breadth.
+    fn draw_foil(&self, buf: &mut Buffer, k: usize, width_mm: f64, over: bool, at: RowAt) {
+        let RowAt {
+            x0,
+            y,
+            cols,
+            cell_mm,
+            margin,
+        } = at;
+        let app = self.app;
+        let t = &app.ui.theme;
+        let ww = app.doc.eval.window_width_mm;
+        let breadth = ww - 2.0 * margin;
+        let from = margin + (breadth - width_mm).max(0.0) / 2.0;
+        let to = from + width_mm;
+        let cells: Vec<u16> = (0..cols)
+            .filter(|&c| {
+                let x = (f64::from(c) + 0.5) * cell_mm;
+                x >= from && x <= to
+            })
+            .collect();
+        let (first, last) = (cells.first().copied(), cells.last().copied());
+        let style = if over { t.bad() } else { t.winding(k) };
+        let letter = letter(app, k).to_string();
+        for c in 0..cols {
+            let x = (f64::from(c) + 0.5) * cell_mm;
+            let (ch, st) = if Some(c) == first || Some(c) == last {
+                (letter.as_str(), style)
+            } else if x >= from && x <= to {
+                ("▬", style)
+            } else if x < margin || x > ww - margin {
+                ("░", t.dim())
+            } else {
+                ("·", t.dim())
+            };
+            buf.set_string(x0 + c, y, ch, st);
         }
     }
 }
