@@ -91,6 +91,24 @@ pub fn wire_label(wire: &crate::model::WireSize, strands: u32) -> String {
     }
 }
 
+/// A winding's conductor for tables: [`wire_label`] for round wire, `litz 60x0.1` (with
+/// `2x` for bundles in parallel) and `foil 0.15 mm` for the others.
+pub fn conductor_label(w: &crate::model::Winding) -> String {
+    use crate::model::{Conductor, trim_mm};
+    match w.conductor {
+        Conductor::Round => wire_label(&w.wire, w.strands),
+        Conductor::Foil(f) => format!("foil {} mm", trim_mm(f.thickness_mm)),
+        Conductor::Litz(l) => {
+            let base = format!("litz {}x{}", l.strands, trim_mm(l.strand_mm));
+            if w.strands > 1 {
+                format!("{}x{base}", w.strands)
+            } else {
+                base
+            }
+        }
+    }
+}
+
 #[cfg(test)]
 mod tests {
     use super::*;
