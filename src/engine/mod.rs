@@ -18,6 +18,7 @@ pub mod isolation;
 pub mod layout;
 pub mod leakage;
 pub mod limits;
+pub mod litz;
 pub mod losses;
 pub mod magnetics;
 pub mod measured_core;

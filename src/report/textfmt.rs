@@ -94,7 +94,7 @@ pub fn wire_label(wire: &crate::model::WireSize, strands: u32) -> String {
 /// A short label of a foil or litz conductor for tables: `foil 0.2x9 mm` (thickness x the
 /// width used, read from the Evaluation's figures), `litz 60x0.1 mm`, `2x litz 60x0.1 mm`
 /// for bundles in parallel; `None` for round wire (see [`wire_label`]).
-pub fn conductor_label(
+pub fn foil_litz_label(
     w: &crate::model::Winding,
     fig: Option<&crate::engine::conductor::ConductorFigures>,
 ) -> Option<String> {
@@ -123,6 +123,24 @@ pub fn conductor_label(
     }
 }
 
+/// A winding's conductor for tables: [`wire_label`] for round wire, `litz 60x0.1` (with
+/// `2x` for bundles in parallel) and `foil 0.15 mm` for the others.
+pub fn conductor_label(w: &crate::model::Winding) -> String {
+    use crate::model::{Conductor, trim_mm};
+    match w.conductor {
+        Conductor::Round => wire_label(&w.wire, w.strands),
+        Conductor::Foil(f) => format!("foil {} mm", trim_mm(f.thickness_mm)),
+        Conductor::Litz(l) => {
+            let base = format!("litz {}x{}", l.strands, trim_mm(l.strand_mm));
+            if w.strands > 1 {
+                format!("{}x{base}", w.strands)
+            } else {
+                base
+            }
+        }
+    }
+}
+
 #[cfg(test)]
 mod tests {
     use super::*;
@@ -146,13 +164,13 @@ mod tests {
             start_pin: None,
             finish_pin: None,
         };
-        assert_eq!(conductor_label(&w, None).unwrap(), "foil 0.2x9 mm");
+        assert_eq!(foil_litz_label(&w, None).unwrap(), "foil 0.2x9 mm");
         w.conductor = Conductor::Litz(Litz::of(60, 0.1));
-        assert_eq!(conductor_label(&w, None).unwrap(), "litz 60x0.1 mm");
+        assert_eq!(foil_litz_label(&w, None).unwrap(), "litz 60x0.1 mm");
         w.strands = 2;
-        assert_eq!(conductor_label(&w, None).unwrap(), "2x litz 60x0.1 mm");
+        assert_eq!(foil_litz_label(&w, None).unwrap(), "2x litz 60x0.1 mm");
         w.conductor = Conductor::Round;
-        assert_eq!(conductor_label(&w, None), None);
+        assert_eq!(foil_litz_label(&w, None), None);
     }
 
     #[test]

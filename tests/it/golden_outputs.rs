@@ -7,7 +7,8 @@
 use std::path::Path;
 use std::process::Command;
 
-const EXAMPLES: [&str; 4] = [
+const EXAMPLES: [&str; 5] = [
+    "foil-litz-300k",
     "first-try",
     "bench-forward",
     "mains-isolated",

@@ -14,6 +14,7 @@ mod converter_forward;
 mod core_relations;
 mod fidelity;
 mod fit_ranking;
+mod foil_litz;
 mod golden_outputs;
 mod json_contract;
 mod layering;

@@ -17,9 +17,11 @@ use super::stress::{self, StressEval};
 use super::thermal;
 use super::validate::validate_resolved;
 use super::warnings;
-use crate::model::{Build, Name, Role};
+use super::{harmonics, litz};
+use crate::model::{Build, Conductor, Name, Role};
 
 mod ac_figures;
+mod ac_litz;
 mod design_limits;
 mod sections;
 mod temperature;

@@ -10,6 +10,7 @@ use crate::engine::{
 use crate::model::{BobbinSource, Build, ResetSide, Tube};
 use std::fmt::Write as _;
 
+mod conductor_block;
 mod converter_blocks;
 mod limits_block;
 mod loss_blocks;
@@ -255,7 +256,7 @@ fn windings_block(o: &mut String, build: &Build, eval: &Evaluation) {
         "  name   role       turns  wire             length m  MLT mm   DCR ohm  A/mm2"
     );
     for (w, model) in eval.windings.iter().zip(&build.windings) {
-        let wire = wire_label(&model.wire, w.strands);
+        let wire = conductor_label(model);
         let j = w
             .current_density_a_mm2
             .map_or("-".to_string(), |j| format!("{j:.1}"));
@@ -272,6 +273,7 @@ fn windings_block(o: &mut String, build: &Build, eval: &Evaluation) {
             j
         );
     }
+    conductor_block::conductor_block(o, eval);
     if let Some(a) = eval.windings.iter().find_map(|w| w.ac.as_ref()) {
         let _ = writeln!(
             o,

@@ -4,7 +4,7 @@ use super::super::app::{App, Focus};
 use super::{fit, pad, panel};
 use crate::engine::WarningAt;
 use crate::model::Insulation;
-use crate::report::text::{conductor_label, wire_label};
+use crate::report::textfmt::{foil_litz_label, wire_label};
 use ratatui::Frame;
 use ratatui::layout::Rect;
 use ratatui::text::{Line, Span};
@@ -125,7 +125,7 @@ fn row(app: &App, k: usize, wide: bool, dense: bool) -> Line<'static> {
     // Round wire fills the wire and insulation columns; a foil or litz label takes both
     // (a foil has no enamel, a litz's strand enamel is in the form).
     let fig = app.doc.eval.windings.get(k).map(|e| &e.conductor);
-    let wire_ins = |wire_w: usize| match conductor_label(w, fig) {
+    let wire_ins = |wire_w: usize| match foil_litz_label(w, fig) {
         // Where the label would be cut, it drops its unit first: "litz 40x0.1".
         Some(label) if label.width() > wire_w + 4 => pad(label.trim_end_matches(" mm"), wire_w + 4),
         Some(label) => pad(&label, wire_w + 4),
