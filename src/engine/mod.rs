@@ -12,6 +12,7 @@ pub mod converter;
 pub mod core_loss;
 pub mod currents;
 mod evaluation;
+pub mod foil_cut;
 pub mod geometry;
 pub mod harmonics;
 pub mod isolation;

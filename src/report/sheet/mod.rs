@@ -17,6 +17,7 @@ pub use crate::engine::bench::{
 };
 
 mod checks;
+mod conductor_steps;
 mod steps;
 
 use checks::{cautions, checks};
@@ -126,17 +127,27 @@ pub fn sheet(build: &Build, eval: &Evaluation, measure_at_c: f64) -> Sheet {
         .iter()
         .zip(&eval.windings)
         .zip(bench::cuts(build, eval))
-        .map(|((w, e), cut)| WireItem {
-            winding: w.name.to_string(),
-            role: w.role,
-            wire: wire_label(&w.wire, 1),
-            grade: w.insulation.to_string(),
-            strands: w.strands,
-            turns: w.turns,
-            length_m: e.length_m,
-            allowances: cut.allowances,
-            cut_each_mm: cut.cut_each_mm,
-            cut_total_mm: cut.cut_total_mm,
+        .enumerate()
+        .map(|(k, ((w, e), cut))| {
+            let (wire, grade) = conductor_steps::bom_cells(w, &e.conductor)
+                .unwrap_or_else(|| (wire_label(&w.wire, 1), w.insulation.to_string()));
+            // A foil is cut to its own length (engine::foil_cut), not a wire's.
+            let (each, total) = match crate::engine::foil_cut::foil_cut(build, eval, k) {
+                Some(c) => (c.foil_cut_mm, c.foil_cut_mm),
+                None => (cut.cut_each_mm, cut.cut_total_mm),
+            };
+            WireItem {
+                winding: w.name.to_string(),
+                role: w.role,
+                wire,
+                grade,
+                strands: w.strands,
+                turns: w.turns,
+                length_m: e.length_m,
+                allowances: cut.allowances,
+                cut_each_mm: each,
+                cut_total_mm: total,
+            }
         })
         .collect();
 
@@ -251,6 +262,7 @@ fn materials(build: &Build, eval: &Evaluation) -> Vec<(String, String)> {
             ),
         ));
     }
+    materials.extend(conductor_steps::foil_materials(build, eval));
     let leads = crossing_leads(build, eval);
     if !leads.is_empty() {
         materials.push((

@@ -1,5 +1,6 @@
 //! The winding steps of the sheet, section by section, and the leads that cross.
 
+use super::conductor_steps::{conductor_lines, foil_turns_text, is_foil};
 use super::*;
 
 /// The numbered steps, one per stack section, from the tube outward.
@@ -12,7 +13,7 @@ pub(super) fn steps(build: &Build, eval: &Evaluation) -> Vec<Step> {
                 steps.push(tape_step(build, number, i, *wraps));
             }
             (Section::Winding(_), SectionKind::Winding { .. }) => {
-                steps.extend(winding_step(build, number, i, s_eval));
+                steps.extend(winding_step(build, eval, number, i, s_eval));
             }
             _ => {}
         }
@@ -44,6 +45,7 @@ pub(super) fn tape_step(build: &Build, number: usize, i: usize, wraps: u32) -> S
 /// (`None` for a tape section).
 pub(super) fn winding_step(
     build: &Build,
+    eval: &Evaluation,
     number: usize,
     i: usize,
     s_eval: &SectionEval,
@@ -68,8 +70,12 @@ pub(super) fn winding_step(
     lines.extend(margin_line(build, s_eval));
     for n in &names {
         let Some(w) = build.winding(n) else { continue };
-        lines.push((format!("Wire {n}"), wire_text(w)));
+        match conductor_lines(build, eval, n) {
+            Some(own) => lines.extend(own),
+            None => lines.push((format!("Wire {n}"), wire_text(w))),
+        }
     }
+    let foil = with.is_none() && is_foil(build, winding);
     if with.is_some() {
         lines.push((
             "Bifilar".into(),
@@ -90,10 +96,14 @@ pub(super) fn winding_step(
     ));
     lines.push((
         "Turns".into(),
-        format!(
-            "{turns} turns in {}: {turns_per_layer} a layer, {last_layer_turns} on the last layer",
-            plural(*layer_count, "layer", "layers")
-        ),
+        if foil {
+            foil_turns_text(*turns)
+        } else {
+            format!(
+                "{turns} turns in {}: {turns_per_layer} a layer, {last_layer_turns} on the last layer",
+                plural(*layer_count, "layer", "layers")
+            )
+        },
     ));
     if *layer_tape > 0 && *layer_count > 1 {
         lines.push((
@@ -104,7 +114,9 @@ pub(super) fn winding_step(
             ),
         ));
     }
-    let side = if layer_count % 2 == 1 {
+    let side = if foil {
+        "the end of the last turn, under the interleaf's closing wrap"
+    } else if layer_count % 2 == 1 {
         "the flange opposite the start"
     } else {
         "the flange you started at"
