@@ -28,6 +28,7 @@ mod sheet_content;
 mod sheet_isolation;
 mod sheet_print;
 mod tui_app;
+mod tui_foil_litz;
 mod tui_forms;
 mod tui_overlays;
 mod tui_overwrite;
