@@ -311,3 +311,27 @@ fn foil_cut_lengths_worked_by_hand() {
         tabs.1
     );
 }
+
+/// The main screen's wire key opens the conductor's own first key; the grade key on a foil
+/// says why it does nothing.
+#[test]
+fn the_wire_and_grade_keys_follow_the_conductor() {
+    use turnstack::tui::app::Overlay;
+    let mut app = example_app();
+    press(&mut app, "<tab>");
+    press(&mut app, "jw");
+    match app.ui.overlays.last() {
+        Some(Overlay::Prompt(p)) => assert_eq!(p.label, "foil thickness"),
+        other => panic!("a prompt for the foil: {other:?}"),
+    }
+    press(&mut app, "<esc>kw");
+    match app.ui.overlays.last() {
+        Some(Overlay::Prompt(p)) => assert_eq!(p.label, "litz strands"),
+        other => panic!("a prompt for the litz: {other:?}"),
+    }
+    press(&mut app, "<esc>jg");
+    let (text, kind) = status(&app);
+    assert_eq!(kind, Some(StatusKind::Refused));
+    assert!(text.contains("foil has no enamel"), "{text}");
+    assert_eq!(app.doc.build, example_app().doc.build);
+}
