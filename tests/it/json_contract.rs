@@ -223,7 +223,12 @@ fn check_report(name: &str, j: &Value, with_frequency: bool) -> Result<(), Strin
         match w["conductor"].as_str() {
             Some("round") => {}
             Some("foil") => holds(&format!("{name} foil"), &w["foil"], FOIL_KEYS, &[])?,
-            Some("litz") => holds(&format!("{name} litz"), &w["litz"], LITZ_REQUIRED, LITZ_EXTRA)?,
+            Some("litz") => holds(
+                &format!("{name} litz"),
+                &w["litz"],
+                LITZ_REQUIRED,
+                LITZ_EXTRA,
+            )?,
             other => return Err(format!("{name} winding: conductor {other:?}")),
         }
     }
