@@ -47,14 +47,20 @@ pub const LITZ_FROM_KHZ: f64 = 200.0;
 
 /// The foil and litz choices for winding `k` carrying `i` A RMS, with their current density
 /// within `(lo, hi)`: foil of the table's thicknesses (default width and interleaf) for a
-/// high-current secondary of few turns, litz of the table's constructions at high frequency.
+/// high-current secondary of few turns in a build without basic or reinforced isolation, litz of the table's constructions at high frequency.
 fn conductor_choices(base: &Build, k: usize, i: f64, (lo, hi): (f64, f64)) -> Vec<WireChoice> {
     use crate::library::conductors::{FOIL_THICKNESSES_MM, LITZ_CONSTRUCTIONS};
     use crate::model::{Foil, Litz};
     let w = &base.windings[k];
     let w_u = usable_width_mm(base);
     let mut candidates = Vec::new();
-    if w.role == Role::Secondary && i >= FOIL_FROM_A && w.turns <= FOIL_MOST_TURNS {
+    // Not where the build declares protection against shock: a foil's cut edges against
+    // the margin tape and the isolation need a judgement the search cannot make.
+    let shock = base
+        .isolation
+        .as_ref()
+        .is_some_and(|iso| iso.class != crate::model::IsolationClass::Functional);
+    if w.role == Role::Secondary && i >= FOIL_FROM_A && w.turns <= FOIL_MOST_TURNS && !shock {
         candidates.extend(FOIL_THICKNESSES_MM.map(|t| Conductor::Foil(Foil::of(t))));
     }
     if base.setup.frequency_khz.is_some_and(|f| f >= LITZ_FROM_KHZ) {
