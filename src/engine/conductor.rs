@@ -8,8 +8,8 @@ use super::validate::Place;
 use crate::engine::constants::MM2;
 use crate::library::wires::{self, ResolvedWire};
 use crate::model::{
-    Conductor, FOIL_MAX_MM, FOIL_MIN_MM, Foil, Insulation, LITZ_STRAND_MM, LITZ_STRANDS, Litz,
-    Winding,
+    Build, Conductor, FOIL_MAX_MM, FOIL_MIN_MM, Foil, Insulation, LITZ_STRAND_MM, LITZ_STRANDS,
+    Litz, Winding,
 };
 
 /// Interleaf film thinner than this is refused (a 6 um film is the thinnest sold, common
@@ -109,6 +109,27 @@ pub fn check(
         Conductor::Foil(f) => check_foil(i, w, f, breadth_mm, window_height_mm, bad),
         Conductor::Litz(l) => check_litz(i, l, bad),
     }
+}
+
+/// Refuse stack section `i` when it winds a foil bifilar (`a` with `c`); true when refused.
+pub fn refuse_bifilar_foil(
+    build: &Build,
+    i: usize,
+    a: usize,
+    c: Option<usize>,
+    bad: &mut dyn FnMut(Place, String),
+) -> bool {
+    let Some(c) = c else { return false };
+    let foil = [a, c]
+        .iter()
+        .any(|&k| matches!(build.windings[k].conductor, Conductor::Foil(_)));
+    if foil {
+        bad(
+            Place::Section(i, "with"),
+            "a foil winding cannot be wound bifilar; interleave it as its own sections".into(),
+        );
+    }
+    foil
 }
 
 fn check_foil(
