@@ -8,7 +8,8 @@ use super::validate::Place;
 use crate::engine::constants::MM2;
 use crate::library::wires::{self, ResolvedWire};
 use crate::model::{
-    Conductor, FOIL_MAX_MM, FOIL_MIN_MM, Foil, LITZ_STRAND_MM, LITZ_STRANDS, Litz, Winding,
+    Build, Conductor, FOIL_MAX_MM, FOIL_MIN_MM, Foil, Insulation, LITZ_STRAND_MM, LITZ_STRANDS,
+    Litz, Winding,
 };
 
 /// Interleaf film thinner than this is refused (a 6 um film is the thinnest sold, common
@@ -29,7 +30,17 @@ pub fn litz_strand_od_mm(l: &Litz, w: &Winding) -> f64 {
 /// Bundle diameter under the serving: `D = d_o sqrt(n / p)`, `p` the packing factor (the
 /// strands' overall area over the bundle's circle).
 pub fn litz_bundle_mm(l: &Litz, w: &Winding) -> f64 {
-    litz_strand_od_mm(l, w) * (f64::from(l.strands) / l.packing_factor()).sqrt()
+    litz_bundle_for(l, w.insulation)
+}
+
+/// [`litz_bundle_mm`] for strands of enamel `insulation`.
+pub fn litz_bundle_for(l: &Litz, insulation: Insulation) -> f64 {
+    wires::overall_mm(l.strand_mm, insulation) * (f64::from(l.strands) / l.packing_factor()).sqrt()
+}
+
+/// Resistance per metre (ohm/m) of one litz bundle at `temperature_c`, with its lay factor.
+pub fn litz_ohm_per_m(l: &Litz, temperature_c: f64) -> f64 {
+    rho_ohm_m(temperature_c) * l.lay() / (f64::from(l.strands) * area_mm2(l.strand_mm) * MM2)
 }
 
 /// The diameters the layout works with. Round: the wire table (`wires::resolve`). Foil:
@@ -98,6 +109,27 @@ pub fn check(
         Conductor::Foil(f) => check_foil(i, w, f, breadth_mm, window_height_mm, bad),
         Conductor::Litz(l) => check_litz(i, l, bad),
     }
+}
+
+/// Refuse stack section `i` when it winds a foil bifilar (`a` with `c`); true when refused.
+pub fn refuse_bifilar_foil(
+    build: &Build,
+    i: usize,
+    a: usize,
+    c: Option<usize>,
+    bad: &mut dyn FnMut(Place, String),
+) -> bool {
+    let Some(c) = c else { return false };
+    let foil = [a, c]
+        .iter()
+        .any(|&k| matches!(build.windings[k].conductor, Conductor::Foil(_)));
+    if foil {
+        bad(
+            Place::Section(i, "with"),
+            "a foil winding cannot be wound bifilar; interleave it as its own sections".into(),
+        );
+    }
+    foil
 }
 
 fn check_foil(

@@ -416,15 +416,7 @@ fn check_winding_section(
     if let Some(a) = a {
         let pitch_of = |k: usize| super::conductor::pitch_mm(&build.windings[k], &wires[k], w_u);
         let pitch = pitch_of(a) + c.filter(|&c| c != a).map_or(0.0, pitch_of);
-        if let Some(c) = c
-            && [a, c]
-                .iter()
-                .any(|&k| matches!(build.windings[k].conductor, Conductor::Foil(_)))
-        {
-            bad(
-                Place::Section(i, "with"),
-                "a foil winding cannot be wound bifilar; interleave it as its own sections".into(),
-            );
+        if super::conductor::refuse_bifilar_foil(build, i, a, c, bad) {
             return;
         }
         if w_u > 0.0 && pitch > 0.0 && turns_per_layer(w_u, pitch) == 0 {

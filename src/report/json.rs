@@ -6,7 +6,6 @@
 //! the `Evaluation`; nothing is computed. `cli::json_text` prints the keys of every object in
 //! alphabetical order (serde_json's map), whatever the order of the fields.
 
-use crate::engine::conductor::ConductorFigures;
 use crate::engine::{
     AcFigures, ConverterEval, Evaluation, LayerEval, LeakageEval, Limit, LossEval, SectionEval,
     SectionKind, Warning, WarningAt, WindingEval,
@@ -110,10 +109,10 @@ pub struct WindingJson<'a> {
     pub copper_area_mm2: f64,
     /// A foil's own figures.
     #[serde(skip_serializing_if = "Option::is_none")]
-    pub foil: Option<FoilJson>,
+    pub foil: Option<super::json_conductor::FoilJson>,
     /// A litz's own figures.
     #[serde(skip_serializing_if = "Option::is_none")]
-    pub litz: Option<LitzJson>,
+    pub litz: Option<super::json_conductor::LitzJson>,
     pub length_m: f64,
     pub mlt_mm: f64,
     pub dcr_ohm: f64,
@@ -134,30 +133,6 @@ pub struct WindingJson<'a> {
     pub proximity_loss_w: Option<f64>,
     #[serde(skip_serializing_if = "Option::is_none")]
     pub layer_voltage_v: Option<f64>,
-}
-
-/// `foil` of a winding: the figures of `engine::conductor::ConductorFigures::Foil`.
-#[derive(Debug, Serialize)]
-pub struct FoilJson {
-    pub thickness_mm: f64,
-    pub width_mm: f64,
-    pub interleaf_mm: f64,
-    pub layer_height_mm: f64,
-    pub porosity: f64,
-}
-
-/// `litz` of a winding: the figures of `engine::conductor::ConductorFigures::Litz`.
-#[derive(Debug, Serialize)]
-pub struct LitzJson {
-    pub strands: u32,
-    pub strand_mm: f64,
-    pub strand_od_mm: f64,
-    pub bundle_mm: f64,
-    pub od_mm: f64,
-    pub packing: f64,
-    pub lay_factor: f64,
-    #[serde(skip_serializing_if = "Option::is_none")]
-    pub strand_over_skin: Option<f64>,
 }
 
 /// The AC figures of a winding, written among its other keys.
@@ -450,44 +425,8 @@ fn winding(w: &WindingEval) -> WindingJson<'_> {
         bare_mm: w.bare_mm,
         od_mm: w.od_mm,
         copper_area_mm2: w.copper_area_mm2,
-        foil: match w.conductor {
-            ConductorFigures::Foil {
-                thickness_mm,
-                width_mm,
-                interleaf_mm,
-                layer_height_mm,
-                porosity,
-            } => Some(FoilJson {
-                thickness_mm,
-                width_mm,
-                interleaf_mm,
-                layer_height_mm,
-                porosity,
-            }),
-            _ => None,
-        },
-        litz: match w.conductor {
-            ConductorFigures::Litz {
-                strands,
-                strand_mm,
-                strand_od_mm,
-                bundle_mm,
-                od_mm,
-                packing,
-                lay_factor,
-                strand_over_skin,
-            } => Some(LitzJson {
-                strands,
-                strand_mm,
-                strand_od_mm,
-                bundle_mm,
-                od_mm,
-                packing,
-                lay_factor,
-                strand_over_skin,
-            }),
-            _ => None,
-        },
+        foil: super::json_conductor::foil(&w.conductor),
+        litz: super::json_conductor::litz(&w.conductor),
         length_m: w.length_m,
         mlt_mm: w.mlt_mm,
         dcr_ohm: w.dcr_ohm,

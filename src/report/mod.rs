@@ -3,6 +3,7 @@
 
 pub mod fit;
 pub mod json;
+pub mod json_conductor;
 pub mod search;
 pub mod sheet;
 pub mod text;

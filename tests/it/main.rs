@@ -15,6 +15,7 @@ mod core_relations;
 mod fidelity;
 mod fit_ranking;
 mod foil_litz;
+mod foil_search;
 mod golden_outputs;
 mod json_contract;
 mod layering;
