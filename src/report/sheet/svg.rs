@@ -208,6 +208,22 @@ fn litz_strands(o: &mut String, cx: f64, cy: f64, r: f64) {
     }
 }
 
+/// A foil winding's copper width and the copper's share of its layer height.
+fn foil_of(eval: &Evaluation, winding: &str) -> Option<(f64, f64)> {
+    eval.windings
+        .iter()
+        .find(|w| w.name == winding)
+        .and_then(|w| match w.conductor {
+            ConductorFigures::Foil {
+                width_mm,
+                thickness_mm,
+                layer_height_mm,
+                ..
+            } => Some((width_mm, thickness_mm / layer_height_mm.max(1e-9))),
+            _ => None,
+        })
+}
+
 /// Each foil turn of a section: a copper strip of the foil's width centred in the breadth,
 /// on the interleaf film that lies under it across the layer's breadth, to scale.
 /// `foil` holds the copper's width and its share of the layer height.
@@ -301,21 +317,8 @@ fn winding_band(
     let conductor = |n: &str| build.winding(n).map(|w| w.conductor);
     let is_litz = |n: &str| matches!(conductor(n), Some(Conductor::Litz(_)));
     if let Some(Conductor::Foil(_)) = conductor(winding) {
-        let width = eval
-            .windings
-            .iter()
-            .find(|w| w.name == *winding)
-            .and_then(|w| match w.conductor {
-                ConductorFigures::Foil {
-                    width_mm,
-                    thickness_mm,
-                    layer_height_mm,
-                    ..
-                } => Some((width_mm, thickness_mm / layer_height_mm.max(1e-9))),
-                _ => None,
-            })
-            .unwrap_or((w - 2.0 * margin, 1.0));
-        draw_foil(o, paper, s, width, fill);
+        let foil = foil_of(eval, winding).unwrap_or((w - 2.0 * margin, 1.0));
+        draw_foil(o, paper, s, foil, fill);
     } else {
         draw_turns(
             o,
