@@ -181,7 +181,10 @@ fn draw_turns(
                         od / 2.0 * k
                     );
                     if bundle {
-                        litz_strands(o, paper.x(xm + od / 2.0), paper.y(cy_mm), od / 2.0 * k);
+                        // Dots in the circle's contrast: white on filled, the fill on hollow.
+                        let dots = if hollow { fill } else { "#fff" };
+                        let at = (paper.x(xm + od / 2.0), paper.y(cy_mm));
+                        litz_strands(o, at, od / 2.0 * k, dots);
                     }
                     xm += od;
                 }
@@ -192,7 +195,7 @@ fn draw_turns(
 
 /// The strands of a litz bundle drawn as a symbol: seven dots, one in the middle and six
 /// round it, inside the bundle's circle (centre and radius in paper mm).
-fn litz_strands(o: &mut String, cx: f64, cy: f64, r: f64) {
+fn litz_strands(o: &mut String, (cx, cy): (f64, f64), r: f64, dots: &str) {
     let dot = r * 0.2;
     let at = std::iter::once((0.0, 0.0)).chain((0..6).map(|i| {
         let a = f64::from(i) * std::f64::consts::PI / 3.0;
@@ -201,7 +204,7 @@ fn litz_strands(o: &mut String, cx: f64, cy: f64, r: f64) {
     for (dx, dy) in at {
         let _ = write!(
             o,
-            "<circle class=\"strand\" cx=\"{:.3}\" cy=\"{:.3}\" r=\"{dot:.3}\" fill=\"#fff\"/>",
+            "<circle class=\"strand\" cx=\"{:.3}\" cy=\"{:.3}\" r=\"{dot:.3}\" fill=\"{dots}\"/>",
             cx + dx,
             cy + dy
         );
