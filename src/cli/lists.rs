@@ -163,7 +163,53 @@ pub fn wires(as_json: bool) -> Result<ExitCode, Error> {
         o,
         "TIW: typical figures (bare + 0.2 mm). Resistance: IEC 60028 annealed copper."
     );
+    conductor_tables(&mut o);
     emit_listing(&o)
+}
+
+/// The foil and litz sections of `wires` (text only; `--json` lists the round wires).
+fn conductor_tables(o: &mut String) {
+    use crate::engine::conductor::{litz_bundle_for, litz_ohm_per_m};
+    use crate::library::conductors::{FOIL_THICKNESSES_MM, LITZ_CONSTRUCTIONS};
+    use crate::model::{Insulation, Litz};
+    let _ = writeln!(
+        o,
+        "\nFoil (wire = {{ foil_mm = T }}): common thicknesses, mm, with ohm/m at 20 C a\n\
+         10 mm width"
+    );
+    for t in FOIL_THICKNESSES_MM {
+        let r = crate::engine::resistance::rho_ohm_m(20.0) / (t * 10.0 * 1e-6);
+        let _ = writeln!(o, "  foil {t:<6} {r:>10.5}");
+    }
+    let _ = writeln!(
+        o,
+        "\nLitz (wire = {{ litz_strands = N, strand_mm = D }}): common constructions,\n\
+         grade 1 strands, packing 0.75, serving 0.05 mm, lay factor 1.03"
+    );
+    let _ = writeln!(
+        o,
+        "  {:<12} {:>8} {:>9} {:>8} {:>10}",
+        "litz", "copper", "bundle", "served", "ohm/m"
+    );
+    let _ = writeln!(
+        o,
+        "  {:<12} {:>8} {:>9} {:>8} {:>10}",
+        "", "mm2", "mm", "od mm", "at 20 C"
+    );
+    for c in LITZ_CONSTRUCTIONS {
+        let l = Litz::of(c.strands, c.strand_mm);
+        let bundle = litz_bundle_for(&l, Insulation::Grade1);
+        let area = f64::from(c.strands) * crate::engine::resistance::area_mm2(c.strand_mm);
+        let _ = writeln!(
+            o,
+            "  {:<12} {:>8.4} {:>9.3} {:>8.3} {:>10.4}",
+            format!("{}x{}", c.strands, c.strand_mm),
+            area,
+            bundle,
+            bundle + l.serving(),
+            litz_ohm_per_m(&l, 20.0)
+        );
+    }
 }
 
 /// The entries of `bobbins --json`, in the library's order.

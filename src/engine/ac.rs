@@ -114,3 +114,14 @@ pub fn layer_d(
     let eta = (conductors_in_layer * h / wound_breadth_mm).clamp(0.0, 1.0);
     eta.sqrt() * h / delta_mm
 }
+
+/// D of a foil layer: `sqrt(eta) t / delta` with the foil's thickness `t` as the layer height
+/// (no round-wire equivalence) and porosity `eta = width / b_w` (Dowell 1966, Proc. IEE
+/// 113(8), the porosity factor of a layer of conductors not filling the breadth).
+pub fn foil_d(thickness_mm: f64, width_mm: f64, wound_breadth_mm: f64, delta_mm: f64) -> f64 {
+    if wound_breadth_mm <= 0.0 {
+        return 0.0;
+    }
+    let eta = (width_mm / wound_breadth_mm).clamp(0.0, 1.0);
+    eta.sqrt() * thickness_mm / delta_mm
+}

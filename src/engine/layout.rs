@@ -2,7 +2,7 @@
 
 use super::constants::TURNS_PER_LAYER_EPS;
 use super::geometry::mlt_at_mm;
-use crate::library::wires::{self, ResolvedWire};
+use crate::library::wires::ResolvedWire;
 use crate::model::{Build, Section, SectionRef};
 
 /// One layer of a winding section, as laid.
@@ -62,12 +62,13 @@ impl Resolved {
     }
 }
 
-/// Diameters of every winding's wire, in `build.windings` order.
+/// Diameters of every winding's conductor (`engine::conductor::resolve`), in
+/// `build.windings` order.
 pub fn resolved_wires(build: &Build) -> Vec<ResolvedWire> {
     build
         .windings
         .iter()
-        .map(|w| wires::resolve(&w.wire, w.insulation))
+        .map(super::conductor::resolve)
         .collect()
 }
 
@@ -107,7 +108,7 @@ pub fn lay_out(build: &Build, resolved: &Resolved) -> Vec<Laid> {
             },
             Section::Winding(ws) => {
                 let pitch_of =
-                    |i: usize| f64::from(build.windings[i].strands.max(1)) * wires[i].od_mm;
+                    |i: usize| super::conductor::pitch_mm(&build.windings[i], &wires[i], w_u);
                 let od_of = |i: usize| wires[i].od_mm;
                 let (pitch, layer_h) = match (wi, with) {
                     (Some(a), Some(b)) => (pitch_of(a) + pitch_of(b), od_of(a).max(od_of(b))),

@@ -3,7 +3,7 @@
 
 use super::layout::{Resolved, turns_per_layer, usable_width_mm};
 use crate::library::wires::AWG_RANGE;
-use crate::model::{Bobbin, Build, Role, Section, Tube, WindingSection, WireSize};
+use crate::model::{Bobbin, Build, Conductor, Role, Section, Tube, WindingSection, WireSize};
 use std::fmt;
 
 pub use super::build_size::{MAX_SECTIONS, MAX_WINDINGS};
@@ -275,7 +275,16 @@ fn check_windings(build: &Build, _resolved: &Resolved, bad: &mut dyn FnMut(Place
                 ),
             );
         }
-        check_wire(i, w.wire, bad);
+        match w.conductor {
+            Conductor::Round => check_wire(i, w.wire, bad),
+            _ => super::conductor::check(
+                i,
+                w,
+                usable_width_mm(build),
+                build.bobbin.window.height_mm,
+                bad,
+            ),
+        }
         if let Some(c) = w.current_rms_a
             && !(c.is_finite() && c >= 0.0)
         {
@@ -410,10 +419,11 @@ fn check_winding_section(
         bad(Place::Section(i, "turns"), why);
     }
     if let Some(a) = a {
-        let pitch = f64::from(build.windings[a].strands.max(1)) * wires[a].od_mm
-            + c.filter(|&c| c != a).map_or(0.0, |c| {
-                f64::from(build.windings[c].strands.max(1)) * wires[c].od_mm
-            });
+        let pitch_of = |k: usize| super::conductor::pitch_mm(&build.windings[k], &wires[k], w_u);
+        let pitch = pitch_of(a) + c.filter(|&c| c != a).map_or(0.0, pitch_of);
+        if super::conductor::refuse_bifilar_foil(build, i, a, c, bad) {
+            return;
+        }
         if w_u > 0.0 && pitch > 0.0 && turns_per_layer(w_u, pitch) == 0 {
             bad(
                 Place::Section(i, "winding"),

@@ -160,18 +160,114 @@ impl<'de> Deserialize<'de> for PinLabel {
     }
 }
 
-/// `"awg27"`, `"0.355mm"` or `{ bare_mm = 0.40, od_mm = 0.452 }`.
+/// `"awg27"`, `"0.355mm"`, `{ bare_mm = 0.40, od_mm = 0.452 }`, a foil
+/// `{ foil_mm = 0.2, ... }` or a litz `{ litz_strands = 60, strand_mm = 0.1, ... }`.
 #[derive(Debug)]
 pub enum WireField {
     Named(String),
     Measured { bare_mm: f64, od_mm: f64 },
+    Foil(crate::model::Foil),
+    Litz(crate::model::Litz),
 }
 
+/// Every key an inline wire table may have; which are present decides the kind.
 #[derive(Deserialize)]
 #[serde(deny_unknown_fields)]
-struct MeasuredRaw {
-    bare_mm: f64,
-    od_mm: f64,
+struct WireTableRaw {
+    bare_mm: Option<f64>,
+    od_mm: Option<f64>,
+    foil_mm: Option<f64>,
+    width_mm: Option<f64>,
+    interleaf_mm: Option<f64>,
+    overhang_mm: Option<f64>,
+    tab_mm: Option<f64>,
+    litz_strands: Option<u32>,
+    strand_mm: Option<f64>,
+    serving_mm: Option<f64>,
+    packing: Option<f64>,
+    lay_factor: Option<f64>,
+}
+
+impl WireTableRaw {
+    /// The keys present that belong to none of `allowed`.
+    fn stray(&self, allowed: &[&str]) -> Option<&'static str> {
+        let present = [
+            ("bare_mm", self.bare_mm.is_some()),
+            ("od_mm", self.od_mm.is_some()),
+            ("foil_mm", self.foil_mm.is_some()),
+            ("width_mm", self.width_mm.is_some()),
+            ("interleaf_mm", self.interleaf_mm.is_some()),
+            ("overhang_mm", self.overhang_mm.is_some()),
+            ("tab_mm", self.tab_mm.is_some()),
+            ("litz_strands", self.litz_strands.is_some()),
+            ("strand_mm", self.strand_mm.is_some()),
+            ("serving_mm", self.serving_mm.is_some()),
+            ("packing", self.packing.is_some()),
+            ("lay_factor", self.lay_factor.is_some()),
+        ];
+        present
+            .into_iter()
+            .find(|(k, p)| *p && !allowed.contains(k))
+            .map(|(k, _)| k)
+    }
+
+    fn into_field<E: de::Error>(self) -> Result<WireField, E> {
+        const FOIL: [&str; 5] = [
+            "foil_mm",
+            "width_mm",
+            "interleaf_mm",
+            "overhang_mm",
+            "tab_mm",
+        ];
+        const LITZ: [&str; 5] = [
+            "litz_strands",
+            "strand_mm",
+            "serving_mm",
+            "packing",
+            "lay_factor",
+        ];
+        let mixed = |kind: &str, k: &str| {
+            E::custom(format!("\"{k}\" does not belong in a {kind} wire table"))
+        };
+        if let Some(t) = self.foil_mm {
+            if let Some(k) = self.stray(&FOIL) {
+                return Err(mixed("foil", k));
+            }
+            return Ok(WireField::Foil(crate::model::Foil {
+                thickness_mm: t,
+                width_mm: self.width_mm,
+                interleaf_mm: self.interleaf_mm,
+                overhang_mm: self.overhang_mm,
+                tab_mm: self.tab_mm,
+            }));
+        }
+        if self.litz_strands.is_some() || self.strand_mm.is_some() {
+            if let Some(k) = self.stray(&LITZ) {
+                return Err(mixed("litz", k));
+            }
+            let (Some(n), Some(d)) = (self.litz_strands, self.strand_mm) else {
+                return Err(E::custom(
+                    "a litz wire needs both litz_strands and strand_mm, e.g. { litz_strands = 60, strand_mm = 0.1 }",
+                ));
+            };
+            return Ok(WireField::Litz(crate::model::Litz {
+                strands: n,
+                strand_mm: d,
+                serving_mm: self.serving_mm,
+                packing: self.packing,
+                lay_factor: self.lay_factor,
+            }));
+        }
+        match (self.bare_mm, self.od_mm, self.stray(&["bare_mm", "od_mm"])) {
+            (Some(bare_mm), Some(od_mm), None) => Ok(WireField::Measured { bare_mm, od_mm }),
+            (_, _, Some(k)) => Err(E::custom(format!(
+                "\"{k}\" needs foil_mm (a foil) or litz_strands and strand_mm (a litz)"
+            ))),
+            _ => Err(E::custom(
+                "a measured wire needs both bare_mm and od_mm, e.g. { bare_mm = 0.40, od_mm = 0.452 }",
+            )),
+        }
+    }
 }
 
 impl<'de> Deserialize<'de> for WireField {
@@ -181,18 +277,15 @@ impl<'de> Deserialize<'de> for WireField {
             type Value = WireField;
             fn expecting(&self, f: &mut fmt::Formatter) -> fmt::Result {
                 f.write_str(
-                    "a wire like \"awg27\", \"0.355mm\" or { bare_mm = 0.40, od_mm = 0.452 }",
+                    "a wire like \"awg27\", \"0.355mm\", { bare_mm = 0.40, od_mm = 0.452 }, \
+                     { foil_mm = 0.2 } or { litz_strands = 60, strand_mm = 0.1 }",
                 )
             }
             fn visit_str<E: de::Error>(self, v: &str) -> Result<Self::Value, E> {
                 Ok(WireField::Named(v.to_string()))
             }
             fn visit_map<A: MapAccess<'de>>(self, map: A) -> Result<Self::Value, A::Error> {
-                let m = MeasuredRaw::deserialize(de::value::MapAccessDeserializer::new(map))?;
-                Ok(WireField::Measured {
-                    bare_mm: m.bare_mm,
-                    od_mm: m.od_mm,
-                })
+                WireTableRaw::deserialize(de::value::MapAccessDeserializer::new(map))?.into_field()
             }
         }
         d.deserialize_any(V)

@@ -1,6 +1,9 @@
 //! Writing builds and bobbins as tidy, hand-editable TOML, and replacing files atomically.
 
-use crate::model::{Bobbin, BobbinSource, Build, Measured, ResetSide, Section, Tube, WireSize};
+use crate::model::{
+    Bobbin, BobbinSource, Build, Conductor, Foil, Insulation, Litz, Measured, ResetSide, Section,
+    Tube, WireSize,
+};
 use std::fmt::Write as _;
 use std::io::Write as _;
 use std::path::{Path, PathBuf};
@@ -23,6 +26,40 @@ pub fn wire_text(w: &WireSize) -> String {
         WireSize::Metric { bare_mm } => format!("{bare_mm}mm"),
         other => other.key().unwrap_or_default(),
     }
+}
+
+/// A foil's inline wire table with every key the build states (defaults stay left out).
+fn foil_table(f: &Foil) -> String {
+    let mut keys = vec![format!("foil_mm = {}", num(f.thickness_mm))];
+    for (k, v) in [
+        ("width_mm", f.width_mm),
+        ("interleaf_mm", f.interleaf_mm),
+        ("overhang_mm", f.overhang_mm),
+        ("tab_mm", f.tab_mm),
+    ] {
+        if let Some(v) = v {
+            keys.push(format!("{k} = {}", num(v)));
+        }
+    }
+    format!("{{ {} }}", keys.join(", "))
+}
+
+/// A litz's inline wire table with every key the build states (defaults stay left out).
+fn litz_table(l: &Litz) -> String {
+    let mut keys = vec![
+        format!("litz_strands = {}", l.strands),
+        format!("strand_mm = {}", num(l.strand_mm)),
+    ];
+    for (k, v) in [
+        ("serving_mm", l.serving_mm),
+        ("packing", l.packing),
+        ("lay_factor", l.lay_factor),
+    ] {
+        if let Some(v) = v {
+            keys.push(format!("{k} = {}", num(v)));
+        }
+    }
+    format!("{{ {} }}", keys.join(", "))
 }
 
 fn quote(s: &str) -> String {
@@ -277,8 +314,14 @@ pub fn build_to_toml(build: &Build) -> String {
         let _ = writeln!(out, "name = {}", quote(&w.name));
         let _ = writeln!(out, "role = \"{}\"", w.role.key());
         let _ = writeln!(out, "turns = {}", w.turns);
-        match w.wire {
-            WireSize::Measured { bare_mm, od_mm } => {
+        match (w.conductor, w.wire) {
+            (Conductor::Foil(f), _) => {
+                let _ = writeln!(out, "wire = {}", foil_table(&f));
+            }
+            (Conductor::Litz(l), _) => {
+                let _ = writeln!(out, "wire = {}", litz_table(&l));
+            }
+            (Conductor::Round, WireSize::Measured { bare_mm, od_mm }) => {
                 let _ = writeln!(
                     out,
                     "wire = {{ bare_mm = {}, od_mm = {} }}",
@@ -286,11 +329,14 @@ pub fn build_to_toml(build: &Build) -> String {
                     num(od_mm)
                 );
             }
-            other => {
+            (Conductor::Round, other) => {
                 let _ = writeln!(out, "wire = {}", quote(&wire_text(&other)));
             }
         }
-        let _ = writeln!(out, "insulation = \"{}\"", w.insulation.key());
+        // Foil has no enamel: the key is written only when a file gave another grade.
+        if !matches!(w.conductor, Conductor::Foil(_)) || w.insulation != Insulation::Grade2 {
+            let _ = writeln!(out, "insulation = \"{}\"", w.insulation.key());
+        }
         if w.strands != 1 {
             let _ = writeln!(out, "strands = {}", w.strands);
         }

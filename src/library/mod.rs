@@ -2,6 +2,7 @@
 //! generic ferrite grades.
 
 pub mod bobbins;
+pub mod conductors;
 pub mod demo;
 pub mod materials;
 pub mod wires;

@@ -1,6 +1,6 @@
 //! A winding build: the bobbin, the setup, the windings and the stack from the tube outward.
 
-use super::{Bobbin, Insulation, Isolation, Material, Name, Operating, WireSize};
+use super::{Bobbin, Conductor, Insulation, Isolation, Material, Name, Operating, WireSize};
 
 #[derive(Debug, Clone, Copy, PartialEq, Eq, Hash)]
 pub enum Role {
@@ -72,14 +72,19 @@ impl Default for Setup {
     }
 }
 
+/// One winding: its name, role, turns and conductor.
 #[derive(Debug, Clone, PartialEq)]
 pub struct Winding {
     pub name: Name,
     pub role: Role,
     pub turns: u32,
+    /// Round wire's size; for litz the strand's, for foil a placeholder (see [`Conductor`]).
     pub wire: WireSize,
     pub insulation: Insulation,
+    /// Round wires in parallel; for litz, bundles in parallel; 1 for foil.
     pub strands: u32,
+    /// Round wire, foil or litz (see [`Conductor`] for how `wire` and `strands` read).
+    pub conductor: Conductor,
     pub current_rms_a: Option<f64>,
     pub start_pin: Option<String>,
     pub finish_pin: Option<String>,

@@ -105,9 +105,17 @@ pub struct WindingJson<'a> {
     pub role: &'static str,
     pub turns: u32,
     pub strands: u32,
+    /// `round`, `foil` or `litz`.
+    pub conductor: &'static str,
     pub bare_mm: f64,
     pub od_mm: f64,
     pub copper_area_mm2: f64,
+    /// A foil's own figures.
+    #[serde(skip_serializing_if = "Option::is_none")]
+    pub foil: Option<super::json_conductor::FoilJson>,
+    /// A litz's own figures.
+    #[serde(skip_serializing_if = "Option::is_none")]
+    pub litz: Option<super::json_conductor::LitzJson>,
     pub length_m: f64,
     pub mlt_mm: f64,
     pub dcr_ohm: f64,
@@ -420,9 +428,12 @@ fn winding(w: &WindingEval) -> WindingJson<'_> {
         role: w.role.key(),
         turns: w.turns,
         strands: w.strands,
+        conductor: w.conductor.kind_key(),
         bare_mm: w.bare_mm,
         od_mm: w.od_mm,
         copper_area_mm2: w.copper_area_mm2,
+        foil: super::json_conductor::foil(&w.conductor),
+        litz: super::json_conductor::litz(&w.conductor),
         length_m: w.length_m,
         mlt_mm: w.mlt_mm,
         dcr_ohm: w.dcr_ohm,

@@ -5,6 +5,7 @@ pub mod design;
 pub mod fit;
 pub mod json;
 pub mod json_outputs;
+pub mod json_conductor;
 pub mod search;
 pub mod sheet;
 pub mod text;

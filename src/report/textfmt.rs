@@ -91,9 +91,87 @@ pub fn wire_label(wire: &crate::model::WireSize, strands: u32) -> String {
     }
 }
 
+/// A short label of a foil or litz conductor for tables: `foil 0.2x9 mm` (thickness x the
+/// width used, read from the Evaluation's figures), `litz 60x0.1 mm`, `2x litz 60x0.1 mm`
+/// for bundles in parallel; `None` for round wire (see [`wire_label`]).
+pub fn foil_litz_label(
+    w: &crate::model::Winding,
+    fig: Option<&crate::engine::conductor::ConductorFigures>,
+) -> Option<String> {
+    use crate::engine::conductor::ConductorFigures;
+    use crate::model::{Conductor, trim_mm};
+    match w.conductor {
+        Conductor::Round => None,
+        Conductor::Foil(f) => {
+            let width = match fig {
+                Some(ConductorFigures::Foil { width_mm, .. }) => Some(*width_mm),
+                _ => f.width_mm,
+            };
+            Some(match width {
+                Some(width) => format!("foil {}x{} mm", trim_mm(f.thickness_mm), trim_mm(width)),
+                None => format!("foil {} mm", trim_mm(f.thickness_mm)),
+            })
+        }
+        Conductor::Litz(l) => {
+            let one = format!("litz {}x{} mm", l.strands, trim_mm(l.strand_mm));
+            Some(if w.strands > 1 {
+                format!("{}x {one}", w.strands)
+            } else {
+                one
+            })
+        }
+    }
+}
+
+/// A winding's conductor for tables: [`wire_label`] for round wire, `litz 60x0.1` (with
+/// `2x` for bundles in parallel) and `foil 0.15 mm` for the others.
+pub fn conductor_label(w: &crate::model::Winding) -> String {
+    use crate::model::{Conductor, trim_mm};
+    match w.conductor {
+        Conductor::Round => wire_label(&w.wire, w.strands),
+        Conductor::Foil(f) => format!("foil {} mm", trim_mm(f.thickness_mm)),
+        Conductor::Litz(l) => {
+            let base = format!("litz {}x{}", l.strands, trim_mm(l.strand_mm));
+            if w.strands > 1 {
+                format!("{}x{base}", w.strands)
+            } else {
+                base
+            }
+        }
+    }
+}
+
 #[cfg(test)]
 mod tests {
     use super::*;
+
+    /// A foil reads thickness x width; a litz strands x strand diameter.
+    #[test]
+    fn conductor_labels_of_foil_and_litz() {
+        use crate::model::{Conductor, Foil, Insulation, Litz, Role, Winding, WireSize};
+        let mut w = Winding {
+            name: "S".into(),
+            role: Role::Secondary,
+            turns: 3,
+            wire: WireSize::Metric { bare_mm: 0.2 },
+            insulation: Insulation::Grade2,
+            strands: 1,
+            conductor: Conductor::Foil(Foil {
+                width_mm: Some(9.0),
+                ..Foil::of(0.2)
+            }),
+            current_rms_a: None,
+            start_pin: None,
+            finish_pin: None,
+        };
+        assert_eq!(foil_litz_label(&w, None).unwrap(), "foil 0.2x9 mm");
+        w.conductor = Conductor::Litz(Litz::of(60, 0.1));
+        assert_eq!(foil_litz_label(&w, None).unwrap(), "litz 60x0.1 mm");
+        w.strands = 2;
+        assert_eq!(foil_litz_label(&w, None).unwrap(), "2x litz 60x0.1 mm");
+        w.conductor = Conductor::Round;
+        assert_eq!(foil_litz_label(&w, None), None);
+    }
 
     #[test]
     fn wraps_within_width() {

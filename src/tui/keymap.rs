@@ -351,7 +351,7 @@ pub const BINDINGS: &[Binding] = &[
         &[K::Char('w')],
         Action::Wire,
         "wire",
-        "pick the wire (AWG or metric table, or measured diameters)",
+        "pick the wire (AWG, metric, measured); foil: thickness, litz: strands",
     ),
     b(
         C::Windings,

@@ -7,7 +7,7 @@ use super::edit;
 use super::fields::{FormKind, winding};
 use super::overlay::{Form, Overlay, PickPurpose, PromptPurpose, Question};
 use super::ui::Focus;
-use crate::model::Section;
+use crate::model::{Conductor, Section};
 
 impl App {
     /// A key on the main screen.
@@ -216,7 +216,22 @@ impl App {
             Action::WindingTurns => field(winding::TURNS),
             Action::Rename => field(winding::NAME),
             Action::Role => field(winding::ROLE),
-            Action::Wire => field(winding::WIRE),
+            // The conductor's own first key: the wire list for round wire, the thickness
+            // of a foil, the strand count of a litz.
+            Action::Wire => field(match self.doc.build.windings.get(k).map(|w| w.conductor) {
+                Some(Conductor::Foil(_)) => winding::FOIL_MM,
+                Some(Conductor::Litz(_)) => winding::LITZ_STRANDS,
+                _ => winding::WIRE,
+            }),
+            Action::Grade
+                if matches!(
+                    self.doc.build.windings.get(k).map(|w| w.conductor),
+                    Some(Conductor::Foil(_))
+                ) =>
+            {
+                self.refuse("foil has no enamel: the interleaf insulates its turns");
+                return;
+            }
             Action::Grade => field(winding::GRADE),
             Action::Current => field(winding::CURRENT),
             Action::Pins => field(winding::PINS),

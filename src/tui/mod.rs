@@ -6,6 +6,7 @@
 
 pub mod action;
 pub mod app;
+mod conductor_edit;
 mod core_form;
 pub mod document;
 pub mod edit;

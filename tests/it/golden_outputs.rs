@@ -8,6 +8,7 @@ use std::path::Path;
 use std::process::Command;
 
 const EXAMPLES: [&str; 5] = [
+    "foil-litz-300k",
     "first-try",
     "bench-forward",
     "mains-isolated",

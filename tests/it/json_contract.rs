@@ -76,7 +76,14 @@ const WINDING_SECTION_EXTRA: &[&str] = &[
 const TAPE_SECTION_REQUIRED: &[&str] = &["kind", "wraps", "height_mm"];
 const TAPE_SECTION_EXTRA: &[&str] = &["y_mm", "past_window"];
 const LAYER_KEYS: &[&str] = &["y_mm", "height_mm", "turns", "mlt_mm", "partial"];
-const WINDING_REQUIRED: &[&str] = &["name", "turns", "length_m", "mlt_mm", "dcr_ohm"];
+const WINDING_REQUIRED: &[&str] = &[
+    "name",
+    "turns",
+    "conductor",
+    "length_m",
+    "mlt_mm",
+    "dcr_ohm",
+];
 /// `ac_factor` and `rac_ohm` are required when the setup gives a frequency.
 const WINDING_AC: &[&str] = &["ac_factor", "rac_ohm"];
 const WINDING_EXTRA: &[&str] = &[
@@ -85,6 +92,8 @@ const WINDING_EXTRA: &[&str] = &[
     "bare_mm",
     "od_mm",
     "copper_area_mm2",
+    "foil",
+    "litz",
     "current_density_a_mm2",
     "skin_depth_mm",
     "ac_factor_waveform",
@@ -96,6 +105,24 @@ const WINDING_EXTRA: &[&str] = &[
     "proximity_loss_w",
     "layer_voltage_v",
 ];
+/// A foil winding's `foil` object and a litz winding's `litz` object.
+const FOIL_KEYS: &[&str] = &[
+    "thickness_mm",
+    "width_mm",
+    "interleaf_mm",
+    "layer_height_mm",
+    "porosity",
+];
+const LITZ_REQUIRED: &[&str] = &[
+    "strands",
+    "strand_mm",
+    "strand_od_mm",
+    "bundle_mm",
+    "od_mm",
+    "packing",
+    "lay_factor",
+];
+const LITZ_EXTRA: &[&str] = &["strand_over_skin"];
 const LEAKAGE_KEYS: &[&str] = &["from", "to", "referred_to", "uh", "bifilar_uh"];
 const WARNING_REQUIRED: &[&str] = &["code", "message"];
 const WARNING_EXTRA: &[&str] = &["section", "winding", "about"];
@@ -207,6 +234,17 @@ fn check_report(name: &str, j: &Value, with_frequency: bool) -> Result<(), Strin
             let extra: Vec<&str> = WINDING_EXTRA.iter().chain(WINDING_AC).copied().collect();
             holds(&format!("{name} winding"), w, WINDING_REQUIRED, &extra)?;
         }
+        match w["conductor"].as_str() {
+            Some("round") => {}
+            Some("foil") => holds(&format!("{name} foil"), &w["foil"], FOIL_KEYS, &[])?,
+            Some("litz") => holds(
+                &format!("{name} litz"),
+                &w["litz"],
+                LITZ_REQUIRED,
+                LITZ_EXTRA,
+            )?,
+            other => return Err(format!("{name} winding: conductor {other:?}")),
+        }
     }
     for l in j["leakage"].as_array().unwrap() {
         holds(&format!("{name} leakage"), l, LEAKAGE_KEYS, &[])?;
@@ -248,6 +286,7 @@ fn check_report(name: &str, j: &Value, with_frequency: bool) -> Result<(), Strin
 #[test]
 fn check_json_keys_are_the_documented_set() {
     for name in [
+        "foil-litz-300k",
         "first-try",
         "bench-forward",
         "mains-isolated",

@@ -208,12 +208,13 @@ fn an_edit_that_breaks_the_build_is_refused_and_the_build_kept() {
     let mut app = plain_app();
     let kept = app.doc.build.clone();
     // 30 strands of 0.566 mm wire need 17 mm per turn in a 15.2 mm window. The field
-    // opens holding the present 3 strands: rub it out first.
+    // opens holding the present 3 strands: rub it out first. (The conductor row comes
+    // before the wire, so strands is the seventh row.)
     app.ui.focus = Focus::Windings;
     app.ui.winding_sel = 1;
     press(
         &mut app,
-        "<enter><down><down><down><down><down><enter><bs>30<enter>",
+        "<enter><down><down><down><down><down><down><enter><bs>30<enter>",
     );
     assert_eq!(app.doc.build, kept);
     let st = app.ui.status.clone().unwrap();

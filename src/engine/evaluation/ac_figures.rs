@@ -8,11 +8,14 @@ pub(super) struct AcSums {
     /// Taken from the primary-secondary excitation (else section by section from zero MMF).
     paired: bool,
     /// Left without AC figures (wound bifilar across the primary-secondary pair).
-    skip: bool,
+    pub(super) skip: bool,
     /// The memoised spectrum of the winding's waveform, with its DC part and RMS squared.
-    spectrum: Option<(usize, f64, f64)>,
+    pub(super) spectrum: Option<(usize, f64, f64)>,
     /// Sum of the layer lengths (turns x MLT).
-    length: f64,
+    pub(super) length: f64,
+    /// Sum of each layer's mean square MMF, in turns of this winding, weighted by length:
+    /// what a litz winding's strands see (`engine::litz`).
+    pub(super) f2: f64,
     /// Sum of the sinusoidal layer factors weighted by length.
     sine: f64,
     /// Sum of the layers' waveform AC power shares weighted by length.
@@ -24,8 +27,15 @@ pub(super) struct AcSums {
 
 impl AcSums {
     /// Add one layer: its D at the switching frequency, the MMF at its faces and its length.
-    fn layer(&mut self, memo: &mut Memo, d: f64, f_a: f64, f_b: f64, length: f64) {
+    fn layer(&mut self, memo: &mut Memo, d: f64, (f_a, f_b): (f64, f64), turns: u32, length: f64) {
         self.length += length;
+        // The faces' MMF scaled to this winding's own turns: a layer of `turns` spans `turns`.
+        let df = (f_b - f_a).abs();
+        if df > 0.0 {
+            let k = f64::from(turns) / df;
+            let (a, b) = (f_a * k, f_b * k);
+            self.f2 += length * (a * a + a * b + b * b) / 3.0;
+        }
         self.sine += memo.layer_factor(d, f_a, f_b) * length;
         if let Some((si, dc, rms_sq)) = self.spectrum
             && rms_sq > 0.0
@@ -79,9 +89,15 @@ pub(super) fn ac_figures(
         })
         .collect();
     // D is found once per layer at the switching frequency; the n-th harmonic's is D sqrt(n).
-    let d_of = |k: usize, turns: u32| {
-        let conductors = f64::from(turns) * f64::from(build.windings[k].strands.max(1));
-        ac::layer_d(conductors, wires[k].bare_mm, b_w, delta_mm)
+    // Foil: Dowell's D with the foil's thickness as the layer height and porosity = width /
+    // breadth. Litz: no Dowell layer (0 gives a resistive one); `litz_factors` sets it.
+    let d_of = |k: usize, turns: u32| match build.windings[k].conductor {
+        Conductor::Round => {
+            let conductors = f64::from(turns) * f64::from(build.windings[k].strands.max(1));
+            ac::layer_d(conductors, wires[k].bare_mm, b_w, delta_mm)
+        }
+        Conductor::Foil(f) => ac::foil_d(f.thickness_mm, f.width_on(b_w), b_w, delta_mm),
+        Conductor::Litz(_) => 0.0,
     };
 
     if let (Some(p), Some(s)) = (p, s) {
@@ -99,6 +115,7 @@ pub(super) fn ac_figures(
     }
     unpaired_sums(laid, &mut sums, memo, &d_of);
     apply_sums(windings, &sums, delta_mm);
+    super::ac_litz::litz_factors(build, windings, &sums, memo, (delta_mm, b_w), warnings);
 }
 
 /// The first primary and first secondary under their leakage excitation, and every other
@@ -177,7 +194,13 @@ fn pair_field(
             .filter(|&k| k == p || k == s)
         {
             let length = f64::from(layer.turns) * layer.mlt_mm;
-            sums[k].layer(memo, d_of(k, layer.turns), slab.f_a, slab.f_b, length);
+            sums[k].layer(
+                memo,
+                d_of(k, layer.turns),
+                (slab.f_a, slab.f_b),
+                layer.turns,
+                length,
+            );
         }
         // Any other winding here sits in the field of P and S: Dowell's layer with
         // the same field on both faces loses `R_layer (F/n_l)^2 D (2 G1 - 4 G2)` per
@@ -235,7 +258,7 @@ fn unpaired_sums(
             for layer in layers {
                 let f_b = f + f64::from(layer.turns);
                 let length = f64::from(layer.turns) * layer.mlt_mm;
-                sums[k].layer(memo, d_of(k, layer.turns), f, f_b, length);
+                sums[k].layer(memo, d_of(k, layer.turns), (f, f_b), layer.turns, length);
                 f = f_b;
             }
         }

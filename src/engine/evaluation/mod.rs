@@ -2,6 +2,7 @@
 
 use super::ac;
 use super::capacitance::{self, CapacitanceEval};
+use super::conductor;
 use super::constants::{FIT_TOLERANCE_MM, MM};
 use super::converter::{self, ConverterEval};
 use super::currents::{self, CurrentSource, WindingCurrent};
@@ -11,14 +12,16 @@ use super::limits::{self, CURRENT_DENSITY_BAND_A_MM2, Constraint, Limit};
 use super::losses::{self, LossEval};
 use super::memo::Memo;
 use super::remarks::{Note, Warning, WarningAt, WarningKind};
-use super::resistance::{area_mm2, ohm_per_m, rho_ohm_m};
+use super::resistance::rho_ohm_m;
 use super::stress::{self, StressEval};
 use super::thermal;
 use super::validate::validate_resolved;
 use super::warnings;
-use crate::model::{Build, Name, Role};
+use super::{harmonics, litz};
+use crate::model::{Build, Conductor, Name, Role};
 
 mod ac_figures;
+mod ac_litz;
 mod design_limits;
 mod sections;
 mod temperature;
@@ -123,8 +126,10 @@ pub struct WindingEval {
     pub strands: u32,
     pub bare_mm: f64,
     pub od_mm: f64,
-    /// Copper area of all strands together.
+    /// Copper area of all strands together (a foil's section, a litz's strands).
     pub copper_area_mm2: f64,
+    /// The conductor's kind and own figures (`engine::conductor::figures`).
+    pub conductor: crate::engine::conductor::ConductorFigures,
     pub length_m: f64,
     pub mlt_mm: f64,
     pub dcr_ohm: f64,

@@ -192,7 +192,8 @@ fn dc_windings(
         .iter()
         .enumerate()
         .map(|(i, w)| {
-            let copper_area_mm2 = f64::from(w.strands) * area_mm2(wires[i].bare_mm);
+            let breadth = layout::usable_width_mm(build);
+            let copper_area_mm2 = conductor::copper_area_mm2(w, &wires[i], breadth);
             let length_mm = winding_length_mm(laid, i);
             let length_m = length_mm * MM;
             WindingEval {
@@ -209,7 +210,8 @@ fn dc_windings(
                 } else {
                     0.0
                 },
-                dcr_ohm: ohm_per_m(wires[i].bare_mm, w.strands, temperature_c) * length_m,
+                dcr_ohm: conductor::ohm_per_m(w, &wires[i], breadth, temperature_c) * length_m,
+                conductor: conductor::figures(w, &wires[i], breadth),
                 ac: None,
                 current_density_a_mm2: None,
                 current_rms_a: None,

@@ -121,6 +121,18 @@ pub enum WarningKind {
         primary: Name,
         secondary: Name,
     },
+    /// A litz winding's strand is thicker than the skin depth: litz no longer pays.
+    LitzStrandThick {
+        winding: Name,
+        strand_mm: f64,
+        skin_depth_mm: f64,
+    },
+    /// A litz winding's AC factor passes `LITZ_FACTOR_LIMIT`: too many strands for the field.
+    LitzTooManyStrands {
+        winding: Name,
+        strands: u32,
+        ac_factor: f64,
+    },
     IsolationBifilar {
         class: IsolationClass,
         section: usize,
@@ -195,6 +207,8 @@ impl WarningKind {
             WarningKind::BifilarVoltage { .. } => "bifilar-voltage",
             WarningKind::SectionVoltage { .. } => "section-voltage",
             WarningKind::AcBifilarPs { .. } => "ac-bifilar-ps",
+            WarningKind::LitzStrandThick { .. } => "litz-strand-thick",
+            WarningKind::LitzTooManyStrands { .. } => "litz-too-many-strands",
             WarningKind::IsolationBifilar { .. } => "isolation-bifilar",
             WarningKind::IsolationWraps { .. } => "isolation-wraps",
             WarningKind::IsolationMargin { .. } => "isolation-margin",
@@ -328,6 +342,16 @@ mod tests {
                 error_fraction: 0.0875,
                 step_v: 0.34,
             },
+            WarningKind::LitzStrandThick {
+                winding: n(),
+                strand_mm: 0.3,
+                skin_depth_mm: 0.12,
+            },
+            WarningKind::LitzTooManyStrands {
+                winding: n(),
+                strands: 400,
+                ac_factor: 2.6,
+            },
         ]
     }
 
@@ -358,9 +382,11 @@ mod tests {
             WarningKind::BifilarVoltage { .. } => 22,
             WarningKind::SectionVoltage { .. } => 23,
             WarningKind::OutputOffTarget { .. } => 24,
+            WarningKind::LitzStrandThick { .. } => 25,
+            WarningKind::LitzTooManyStrands { .. } => 26,
         }
     }
-    const KINDS: usize = 25;
+    const KINDS: usize = 27;
 
     /// Every kind has a sample, a code of its own, a sentence, and a row in FORMAT.md's
     /// table of warning codes (the codes are a stable interface, documented there).

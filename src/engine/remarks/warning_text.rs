@@ -195,6 +195,24 @@ impl fmt::Display for WarningKind {
                 "\"{primary}\" and \"{secondary}\" are wound bifilar together: the layer model cannot give them \
                  AC figures, so their copper loss is taken at DC resistance and understated"
             ),
+            WarningKind::LitzStrandThick {
+                winding,
+                strand_mm,
+                skin_depth_mm,
+            } => write!(
+                f,
+                "\"{winding}\": litz strands of {strand_mm} mm are thicker than the skin depth \
+                 ({skin_depth_mm:.3} mm), so the litz no longer pays: take finer strands"
+            ),
+            WarningKind::LitzTooManyStrands {
+                winding,
+                strands,
+                ac_factor,
+            } => write!(
+                f,
+                "\"{winding}\": {strands} strands give an AC factor of {ac_factor:.2}, more loss \
+                 to proximity than to DC: fewer strands, or finer ones, would lose less"
+            ),
             WarningKind::IsolationBifilar {
                 class,
                 section,

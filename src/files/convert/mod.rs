@@ -6,8 +6,9 @@ use super::{BobbinLibrary, LoadError};
 use crate::engine::{Invalid, Place, validate, validate_bobbin};
 use crate::library::materials;
 use crate::model::{
-    Bobbin, BobbinSource, Build, Core, Insulation, Isolation, IsolationClass, Material, Operating,
-    ResetSide, Role, Section, Setup, Steinmetz, Tube, Winding, WindingSection, Window, WireSize,
+    Bobbin, BobbinSource, Build, Conductor, Core, Insulation, Isolation, IsolationClass, Material,
+    Operating, ResetSide, Role, Section, Setup, Steinmetz, Tube, Winding, WindingSection, Window,
+    WireSize,
 };
 use std::collections::HashMap;
 use std::ops::Range;

@@ -37,6 +37,7 @@ pub(super) fn windings_of(
             })?,
         };
         let wire_span = w.wire.span();
+        let mut conductor = Conductor::Round;
         let wire = match w.wire.into_inner() {
             WireField::Named(n) => WireSize::parse(&n).ok_or_else(|| {
                 cx.err(
@@ -46,6 +47,18 @@ pub(super) fn windings_of(
                 )
             })?,
             WireField::Measured { bare_mm, od_mm } => WireSize::Measured { bare_mm, od_mm },
+            WireField::Foil(f) => {
+                conductor = Conductor::Foil(f);
+                WireSize::Metric {
+                    bare_mm: f.thickness_mm,
+                }
+            }
+            WireField::Litz(l) => {
+                conductor = Conductor::Litz(l);
+                WireSize::Metric {
+                    bare_mm: l.strand_mm,
+                }
+            }
         };
         spans.winding.push(m);
         windings.push(Winding {
@@ -55,6 +68,7 @@ pub(super) fn windings_of(
             wire,
             insulation,
             strands: w.strands.map_or(1, Spanned::into_inner),
+            conductor,
             current_rms_a: w.current_rms_a.map(Spanned::into_inner),
             start_pin: w.start_pin.map(|p| p.0),
             finish_pin: w.finish_pin.map(|p| p.0),

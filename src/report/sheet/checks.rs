@@ -31,7 +31,8 @@ pub(super) fn checks(build: &Build, eval: &Evaluation, measure_at_c: f64) -> Vec
             ),
             how: format!(
                 "{pins}, leads trimmed to the pins, the part at {measure_at_c:.0} C{kelvin}; \
-                 copper changes 0.393 % per kelvin (IEC 60028)"
+                 copper changes 0.393 % per kelvin (IEC 60028){}",
+                super::conductor_steps::litz_dcr_note(w)
             ),
         });
     }

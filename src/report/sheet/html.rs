@@ -38,6 +38,19 @@ figcaption { font-size: 9pt; }
 ";
 
 /// The page. `svg` is the cross-section (see `svg::cross_section`).
+/// What the caption adds for the foil and litz the drawing holds (nothing for round wire, so
+/// the sheets of round-wire builds stay as they were).
+fn conductor_caption(svg: &str) -> String {
+    let mut o = String::new();
+    if svg.contains("class=\"foil\"") {
+        o.push_str(" A foil turn is a strip across the breadth, on its interleaf (white).");
+    }
+    if svg.contains("class=\"strand\"") {
+        o.push_str(" A litz bundle is a circle with dots for its strands.");
+    }
+    o
+}
+
 pub fn render(s: &Sheet, svg: &str, scale: f64) -> String {
     let e = escape;
     let mut o = String::new();
@@ -61,7 +74,8 @@ pub fn render(s: &Sheet, svg: &str, scale: f64) -> String {
 
     let _ = write!(
         o,
-        "<figure>{svg}<figcaption>Cross-section of one side of the window, drawn to scale ({scale:.1} : 1): the tube at the bottom, the flanges at the sides, one band per stack section numbered as the steps. Filled circles are the section's winding, open circles its bifilar partner; the hatched area is past the window.</figcaption></figure>"
+        "<figure>{svg}<figcaption>Cross-section of one side of the window, drawn to scale ({scale:.1} : 1): the tube at the bottom, the flanges at the sides, one band per stack section numbered as the steps. Filled circles are the section's winding, open circles its bifilar partner; the hatched area is past the window.{}</figcaption></figure>",
+        conductor_caption(svg)
     );
 
     o.push_str("<h2>Bill of materials</h2><table class=\"bom\"><tr><th>winding</th><th>role</th><th>wire</th><th>strands</th><th>turns</th><th>wound length</th><th>cut each strand</th><th>cut in all</th></tr>");

@@ -17,6 +17,7 @@ pub use crate::engine::bench::{
 };
 
 mod checks;
+mod conductor_steps;
 mod steps;
 
 use checks::{cautions, checks};
@@ -121,24 +122,7 @@ fn pin_text(p: &Option<String>) -> String {
 pub fn sheet(build: &Build, eval: &Evaluation, measure_at_c: f64) -> Sheet {
     let (bobbin, core) = bobbin_lines(build);
 
-    let wires: Vec<WireItem> = build
-        .windings
-        .iter()
-        .zip(&eval.windings)
-        .zip(bench::cuts(build, eval))
-        .map(|((w, e), cut)| WireItem {
-            winding: w.name.to_string(),
-            role: w.role,
-            wire: wire_label(&w.wire, 1),
-            grade: w.insulation.to_string(),
-            strands: w.strands,
-            turns: w.turns,
-            length_m: e.length_m,
-            allowances: cut.allowances,
-            cut_each_mm: cut.cut_each_mm,
-            cut_total_mm: cut.cut_total_mm,
-        })
-        .collect();
+    let wires = wire_items(build, eval);
 
     let materials = materials(build, eval);
 
@@ -189,6 +173,38 @@ pub fn sheet(build: &Build, eval: &Evaluation, measure_at_c: f64) -> Sheet {
             .collect(),
         notes: eval.notes.iter().map(ToString::to_string).collect(),
     }
+}
+
+/// The bill of materials' rows: each winding's wire (or foil, or litz) and its cut.
+fn wire_items(build: &Build, eval: &Evaluation) -> Vec<WireItem> {
+    build
+        .windings
+        .iter()
+        .zip(&eval.windings)
+        .zip(bench::cuts(build, eval))
+        .enumerate()
+        .map(|(k, ((w, e), cut))| {
+            let (wire, grade) = conductor_steps::bom_cells(w, &e.conductor)
+                .unwrap_or_else(|| (wire_label(&w.wire, 1), w.insulation.to_string()));
+            // A foil is cut to its own length (engine::foil_cut), not a wire's.
+            let (each, total) = match crate::engine::foil_cut::foil_cut(build, eval, k) {
+                Some(c) => (c.foil_cut_mm, c.foil_cut_mm),
+                None => (cut.cut_each_mm, cut.cut_total_mm),
+            };
+            WireItem {
+                winding: w.name.to_string(),
+                role: w.role,
+                wire,
+                grade,
+                strands: w.strands,
+                turns: w.turns,
+                length_m: e.length_m,
+                allowances: cut.allowances,
+                cut_each_mm: each,
+                cut_total_mm: total,
+            }
+        })
+        .collect()
 }
 
 /// The bobbin in one line (id, window, tube, name) and its core figures, if known.
@@ -251,6 +267,7 @@ fn materials(build: &Build, eval: &Evaluation) -> Vec<(String, String)> {
             ),
         ));
     }
+    materials.extend(conductor_steps::foil_materials(build, eval));
     let leads = crossing_leads(build, eval);
     if !leads.is_empty() {
         materials.push((

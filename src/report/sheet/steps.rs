@@ -1,5 +1,6 @@
 //! The winding steps of the sheet, section by section, and the leads that cross.
 
+use super::conductor_steps::{conductor_lines, foil_turns_text, is_foil};
 use super::*;
 
 /// The numbered steps, one per stack section, from the tube outward.
@@ -12,7 +13,7 @@ pub(super) fn steps(build: &Build, eval: &Evaluation) -> Vec<Step> {
                 steps.push(tape_step(build, number, i, *wraps));
             }
             (Section::Winding(_), SectionKind::Winding { .. }) => {
-                steps.extend(winding_step(build, number, i, s_eval));
+                steps.extend(winding_step(build, eval, number, i, s_eval));
             }
             _ => {}
         }
@@ -44,6 +45,7 @@ pub(super) fn tape_step(build: &Build, number: usize, i: usize, wraps: u32) -> S
 /// (`None` for a tape section).
 pub(super) fn winding_step(
     build: &Build,
+    eval: &Evaluation,
     number: usize,
     i: usize,
     s_eval: &SectionEval,
@@ -66,10 +68,8 @@ pub(super) fn winding_step(
     let heading = winding_heading(build, &names, with.is_some());
     let mut lines: Vec<(String, String)> = Vec::new();
     lines.extend(margin_line(build, s_eval));
-    for n in &names {
-        let Some(w) = build.winding(n) else { continue };
-        lines.push((format!("Wire {n}"), wire_text(w)));
-    }
+    lines.extend(conductor_or_wire_lines(build, eval, &names));
+    let foil = with.is_none() && is_foil(build, winding);
     if with.is_some() {
         lines.push((
             "Bifilar".into(),
@@ -90,10 +90,11 @@ pub(super) fn winding_step(
     ));
     lines.push((
         "Turns".into(),
-        format!(
-            "{turns} turns in {}: {turns_per_layer} a layer, {last_layer_turns} on the last layer",
-            plural(*layer_count, "layer", "layers")
-        ),
+        if foil {
+            foil_turns_text(*turns)
+        } else {
+            turns_text(*turns, *turns_per_layer, *layer_count, *last_layer_turns)
+        },
     ));
     if *layer_tape > 0 && *layer_count > 1 {
         lines.push((
@@ -104,11 +105,7 @@ pub(super) fn winding_step(
             ),
         ));
     }
-    let side = if layer_count % 2 == 1 {
-        "the flange opposite the start"
-    } else {
-        "the flange you started at"
-    };
+    let side = finish_side(foil, *layer_count);
     for n in &names {
         lines.push(("Finish".into(), finish_text(build, i, n, side)));
     }
@@ -118,6 +115,42 @@ pub(super) fn winding_step(
         heading,
         lines,
     })
+}
+
+/// The wire line of each winding of a step, or the foil's or litz's own lines.
+fn conductor_or_wire_lines(
+    build: &Build,
+    eval: &Evaluation,
+    names: &[crate::model::Name],
+) -> Vec<(String, String)> {
+    let mut lines = Vec::new();
+    for n in names {
+        let Some(w) = build.winding(n) else { continue };
+        match conductor_lines(build, eval, n) {
+            Some(own) => lines.extend(own),
+            None => lines.push((format!("Wire {n}"), wire_text(w))),
+        }
+    }
+    lines
+}
+
+/// Where a section's wire ends: a foil over its start, round wire and litz at a flange.
+fn finish_side(foil: bool, layers: u32) -> &'static str {
+    if foil {
+        "the end of the last turn, under the interleaf's closing wrap"
+    } else if layers % 2 == 1 {
+        "the flange opposite the start"
+    } else {
+        "the flange you started at"
+    }
+}
+
+/// The turns line of a section of round wire or litz.
+fn turns_text(turns: u32, per_layer: u32, layers: u32, last: u32) -> String {
+    format!(
+        "{turns} turns in {}: {per_layer} a layer, {last} on the last layer",
+        plural(layers, "layer", "layers")
+    )
 }
 
 /// The heading of a winding step: "Winding P (primary)", or a bifilar pair.

@@ -1,8 +1,9 @@
 //! The window cross-section as inline SVG, to scale: one band (a `<g class="band">`) per stack
 //! section, the turns as circles, margins, the window limit and the limit with the allowance.
 
+use crate::engine::conductor::ConductorFigures;
 use crate::engine::{Evaluation, SectionEval, SectionKind};
-use crate::model::Build;
+use crate::model::{Build, Conductor};
 use std::fmt::Write as _;
 
 /// Width of the drawing on paper (mm); the window is scaled to fit `WINDOW_PAPER_MM` of it.
@@ -147,6 +148,7 @@ fn draw_turns(
     pitch_mm: f64,
     fill: &str,
     wires: [(u32, f64); 2],
+    bundles: [bool; 2],
 ) {
     let (k, margin) = (paper.k, paper.margin);
     for layer in &s.layers {
@@ -164,7 +166,7 @@ fn draw_turns(
         }
         for t in 0..layer.turns {
             let mut xm = margin + f64::from(t) * pitch_mm;
-            for ((n, od), hollow) in wires.into_iter().zip([false, true]) {
+            for (((n, od), hollow), bundle) in wires.into_iter().zip([false, true]).zip(bundles) {
                 for _ in 0..n {
                     let (fc, sc) = if hollow {
                         ("#fff", fill)
@@ -178,10 +180,78 @@ fn draw_turns(
                         paper.y(cy_mm),
                         od / 2.0 * k
                     );
+                    if bundle {
+                        // Dots in the circle's contrast: white on filled, the fill on hollow.
+                        let dots = if hollow { fill } else { "#fff" };
+                        let at = (paper.x(xm + od / 2.0), paper.y(cy_mm));
+                        litz_strands(o, at, od / 2.0 * k, dots);
+                    }
                     xm += od;
                 }
             }
         }
+    }
+}
+
+/// The strands of a litz bundle drawn as a symbol: seven dots, one in the middle and six
+/// round it, inside the bundle's circle (centre and radius in paper mm).
+fn litz_strands(o: &mut String, (cx, cy): (f64, f64), r: f64, dots: &str) {
+    let dot = r * 0.2;
+    let at = std::iter::once((0.0, 0.0)).chain((0..6).map(|i| {
+        let a = f64::from(i) * std::f64::consts::PI / 3.0;
+        (0.55 * r * a.cos(), 0.55 * r * a.sin())
+    }));
+    for (dx, dy) in at {
+        let _ = write!(
+            o,
+            "<circle class=\"strand\" cx=\"{:.3}\" cy=\"{:.3}\" r=\"{dot:.3}\" fill=\"{dots}\"/>",
+            cx + dx,
+            cy + dy
+        );
+    }
+}
+
+/// A foil winding's copper width and the copper's share of its layer height.
+fn foil_of(eval: &Evaluation, winding: &str) -> Option<(f64, f64)> {
+    eval.windings
+        .iter()
+        .find(|w| w.name == winding)
+        .and_then(|w| match w.conductor {
+            ConductorFigures::Foil {
+                width_mm,
+                thickness_mm,
+                layer_height_mm,
+                ..
+            } => Some((width_mm, thickness_mm / layer_height_mm.max(1e-9))),
+            _ => None,
+        })
+}
+
+/// Each foil turn of a section: a copper strip of the foil's width centred in the breadth,
+/// on the interleaf film that lies under it across the layer's breadth, to scale.
+/// `foil` holds the copper's width and its share of the layer height.
+fn draw_foil(o: &mut String, paper: &Paper, s: &SectionEval, foil: (f64, f64), fill: &str) {
+    let (width_mm, share) = foil;
+    let (w, k, margin) = (paper.w, paper.k, paper.margin);
+    let breadth = w - 2.0 * margin;
+    let x_foil = margin + (breadth - width_mm).max(0.0) / 2.0;
+    for layer in &s.layers {
+        let _ = write!(
+            o,
+            "<rect class=\"interleaf\" x=\"{:.2}\" y=\"{:.3}\" width=\"{:.2}\" height=\"{:.3}\" fill=\"#fff\" stroke=\"#777\" stroke-width=\"0.05\"/>",
+            paper.x(margin),
+            paper.y(layer.y_mm + layer.height_mm),
+            breadth * k,
+            layer.height_mm * k
+        );
+        let _ = write!(
+            o,
+            "<rect class=\"foil\" x=\"{:.2}\" y=\"{:.3}\" width=\"{:.2}\" height=\"{:.3}\" fill=\"{fill}\"/>",
+            paper.x(x_foil),
+            paper.y(layer.y_mm + layer.height_mm),
+            width_mm * k,
+            layer.height_mm * share * k
+        );
     }
 }
 
@@ -247,14 +317,22 @@ fn winding_band(
     };
     let od_a = od_of(winding);
     let od_b = with.as_deref().map_or(0.0, od_of);
-    draw_turns(
-        o,
-        paper,
-        s,
-        *pitch_mm,
-        fill,
-        [(strands_a, od_a), (strands_b, od_b)],
-    );
+    let conductor = |n: &str| build.winding(n).map(|w| w.conductor);
+    let is_litz = |n: &str| matches!(conductor(n), Some(Conductor::Litz(_)));
+    if let Some(Conductor::Foil(_)) = conductor(winding) {
+        let foil = foil_of(eval, winding).unwrap_or((w - 2.0 * margin, 1.0));
+        draw_foil(o, paper, s, foil, fill);
+    } else {
+        draw_turns(
+            o,
+            paper,
+            s,
+            *pitch_mm,
+            fill,
+            [(strands_a, od_a), (strands_b, od_b)],
+            [is_litz(winding), with.as_deref().is_some_and(is_litz)],
+        );
+    }
     o.push_str("</g>");
 }
 

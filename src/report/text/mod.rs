@@ -1,7 +1,7 @@
 //! The readable report of `turnstack check`: the stack from the tube outward with its layers,
 //! the windings, leakage, converter figures, the verdict and the warnings, in 80 columns.
 
-pub use super::textfmt::{truncate, wire_label};
+pub use super::textfmt::{conductor_label, truncate, wire_label};
 use super::wrap;
 use crate::engine::{
     AlSource, ConverterEval, CurrentSource, Evaluation, Limit, LossEval, SectionKind,
@@ -10,6 +10,7 @@ use crate::engine::{
 use crate::model::{BobbinSource, Build, ResetSide, Tube};
 use std::fmt::Write as _;
 
+mod conductor_block;
 mod converter_blocks;
 mod limits_block;
 mod loss_blocks;
@@ -258,7 +259,7 @@ fn windings_block(o: &mut String, build: &Build, eval: &Evaluation) {
         "  name   role       turns  wire             length m  MLT mm   DCR ohm  A/mm2"
     );
     for (w, model) in eval.windings.iter().zip(&build.windings) {
-        let wire = wire_label(&model.wire, w.strands);
+        let wire = conductor_label(model);
         let j = w
             .current_density_a_mm2
             .map_or("-".to_string(), |j| format!("{j:.1}"));
@@ -275,6 +276,7 @@ fn windings_block(o: &mut String, build: &Build, eval: &Evaluation) {
             j
         );
     }
+    conductor_block::conductor_block(o, eval);
     if let Some(a) = eval.windings.iter().find_map(|w| w.ac.as_ref()) {
         let _ = writeln!(
             o,

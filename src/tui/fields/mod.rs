@@ -3,6 +3,7 @@
 //! or act at once). Adding a field is adding one row to its form's table.
 
 mod bobbin;
+mod conductor;
 mod isolation;
 mod material;
 mod operating;

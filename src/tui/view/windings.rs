@@ -4,11 +4,12 @@ use super::super::app::{App, Focus};
 use super::{fit, pad, panel};
 use crate::engine::WarningAt;
 use crate::model::Insulation;
-use crate::report::text::wire_label;
+use crate::report::textfmt::{foil_litz_label, wire_label};
 use ratatui::Frame;
 use ratatui::layout::Rect;
 use ratatui::text::{Line, Span};
 use ratatui::widgets::{List, ListItem, ListState};
+use unicode_width::UnicodeWidthStr;
 
 fn grade_short(g: Insulation) -> &'static str {
     match g {
@@ -121,8 +122,19 @@ fn row(app: &App, k: usize, wide: bool, dense: bool) -> Line<'static> {
         ),
         None => Default::default(),
     };
-    let wire = wire_label(&w.wire, w.strands);
-    let ins = grade_short(w.insulation);
+    // Round wire fills the wire and insulation columns; a foil or litz label takes both
+    // (a foil has no enamel, a litz's strand enamel is in the form).
+    let fig = app.doc.eval.windings.get(k).map(|e| &e.conductor);
+    let wire_ins = |wire_w: usize| match foil_litz_label(w, fig) {
+        // Where the label would be cut, it drops its unit first: "litz 40x0.1".
+        Some(label) if label.width() > wire_w + 4 => pad(label.trim_end_matches(" mm"), wire_w + 4),
+        Some(label) => pad(&label, wire_w + 4),
+        None => format!(
+            "{} {:<3}",
+            pad(&wire_label(&w.wire, w.strands), wire_w),
+            grade_short(w.insulation)
+        ),
+    };
     let n = w.turns;
     let rest = if wide {
         let j = if dense {
@@ -131,15 +143,12 @@ fn row(app: &App, k: usize, wide: bool, dense: bool) -> Line<'static> {
             String::new()
         };
         format!(
-            " {role:<9}{n:>5} {} {ins:<3}{len:>6}{mlt:>6}{dcr:>8}{rac:>8}{j}",
-            pad(&wire, 11)
+            " {role:<9}{n:>5} {}{len:>6}{mlt:>6}{dcr:>8}{rac:>8}{j}",
+            wire_ins(11)
         )
     } else {
         // The wire column ends in a space even when the label fills it.
-        format!(
-            " {role:<3}{n:>5} {} {ins:<3}{len:>6}{dcr:>8}",
-            pad(&wire, 9)
-        )
+        format!(" {role:<3}{n:>5} {}{len:>6}{dcr:>8}", wire_ins(9))
     };
     Line::from(vec![
         mark,

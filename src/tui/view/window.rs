@@ -8,7 +8,9 @@
 use super::super::app::{App, Focus};
 use super::panel;
 use crate::engine::SectionKind;
+use crate::engine::conductor::ConductorFigures;
 use crate::engine::constants::FIT_TOLERANCE_MM;
+use crate::model::Conductor;
 use ratatui::buffer::Buffer;
 use ratatui::layout::Rect;
 use ratatui::style::Style;
@@ -376,14 +378,16 @@ impl WindowView<'_> {
         };
         let ly = &sec.layers[l];
         let a = app.doc.build.winding_index(winding).unwrap_or(0);
+        if let Some(width_mm) = self.foil_width(a) {
+            let over = top_mm > e.window_height_mm + FIT_TOLERANCE_MM;
+            self.draw_foil(buf, a, width_mm, over, at);
+            return;
+        }
+        let litz = self.is_litz(a);
         let b = with.as_ref().and_then(|w| app.doc.build.winding_index(w));
         let over = top_mm > e.window_height_mm + FIT_TOLERANCE_MM;
         // The first winding's share of each bifilar turn's width.
-        let share_a = e
-            .windings
-            .get(a)
-            .map_or(0.0, |w| f64::from(w.strands.max(1)) * w.od_mm)
-            / pitch_mm.max(1e-9);
+        let share_a = self.turn_width_mm(a) / pitch_mm.max(1e-9);
         let pitch = pitch_mm.max(1e-9);
         let turn_of = |c: u16| {
             let x = centre(c);
@@ -418,16 +422,95 @@ impl WindowView<'_> {
                     Some(b) if j >= first => b,
                     _ => a,
                 };
-                let mut ch = letter(app, k);
-                // Case tells turns apart only where a turn spans two cells or more.
-                if turn % 2 == 1 && pitch >= 2.0 * cell_mm {
-                    ch = ch.to_ascii_lowercase();
-                }
                 let style = if over { t.bad() } else { t.winding(k) };
-                buf.set_string(x0 + c + j, y, ch.to_string(), style);
+                let bundle = litz && b.is_none();
+                let ch = turn_cell(letter(app, k), (turn, j, n), bundle, pitch >= 2.0 * cell_mm);
+                buf.set_string(x0 + c + j, y, ch, style);
             }
             c += n;
         }
+    }
+}
+
+impl WindowView<'_> {
+    /// The copper width of winding k when it is foil (the Evaluation's).
+    fn foil_width(&self, k: usize) -> Option<f64> {
+        match self.app.doc.eval.windings.get(k).map(|w| &w.conductor) {
+            Some(ConductorFigures::Foil { width_mm, .. }) => Some(*width_mm),
+            _ => None,
+        }
+    }
+
+    /// Winding k is litz.
+    fn is_litz(&self, k: usize) -> bool {
+        matches!(
+            self.app.doc.build.windings.get(k).map(|w| w.conductor),
+            Some(Conductor::Litz(_))
+        )
+    }
+
+    /// The width one turn of winding k takes: its strands (or bundles) side by side.
+    fn turn_width_mm(&self, k: usize) -> f64 {
+        self.app
+            .doc
+            .eval
+            .windings
+            .get(k)
+            .map_or(0.0, |w| f64::from(w.strands.max(1)) * w.od_mm)
+    }
+
+    /// A foil turn: one band across the breadth, the copper (`▬`, the winding's letter at
+    /// each edge) centred in the breadth, the interleaf's overhang shown as empty breadth.
+    fn draw_foil(&self, buf: &mut Buffer, k: usize, width_mm: f64, over: bool, at: RowAt) {
+        let RowAt {
+            x0,
+            y,
+            cols,
+            cell_mm,
+            margin,
+        } = at;
+        let app = self.app;
+        let t = &app.ui.theme;
+        let ww = app.doc.eval.window_width_mm;
+        let breadth = ww - 2.0 * margin;
+        let from = margin + (breadth - width_mm).max(0.0) / 2.0;
+        let to = from + width_mm;
+        let cells: Vec<u16> = (0..cols)
+            .filter(|&c| {
+                let x = (f64::from(c) + 0.5) * cell_mm;
+                x >= from && x <= to
+            })
+            .collect();
+        let (first, last) = (cells.first().copied(), cells.last().copied());
+        let style = if over { t.bad() } else { t.winding(k) };
+        let letter = letter(app, k).to_string();
+        for c in 0..cols {
+            let x = (f64::from(c) + 0.5) * cell_mm;
+            let (ch, st) = if Some(c) == first || Some(c) == last {
+                (letter.as_str(), style)
+            } else if x >= from && x <= to {
+                ("▬", style)
+            } else if x < margin || x > ww - margin {
+                ("░", t.dim())
+            } else {
+                ("·", t.dim())
+            };
+            buf.set_string(x0 + c, y, ch, st);
+        }
+    }
+}
+
+/// Cell `j` of the `n` cells of turn `turn`: the winding's letter, lower case on odd turns
+/// where a turn spans two cells or more (`wide`) so turns tell apart; a litz turn three
+/// cells wide or more reads as a bundle, `(SSS)`.
+fn turn_cell(letter: char, (turn, j, n): (u32, u16, u16), litz: bool, wide: bool) -> String {
+    if litz && n >= 3 && (j == 0 || j == n - 1) {
+        return if j == 0 { "(" } else { ")" }.to_string();
+    }
+    if turn % 2 == 1 && wide {
+        letter.to_ascii_lowercase().to_string()
+    } else {
+        letter.to_string()
     }
 }
 

@@ -3,11 +3,12 @@
 
 use super::{Binding, LeastHeight, SearchNote, Series, Settings};
 use crate::engine::Evaluation;
+use crate::engine::conductor;
 use crate::engine::isolation::{Side, side_of};
 use crate::engine::layout::{turns_per_layer, usable_width_mm};
 use crate::engine::resistance::area_mm2;
 use crate::library::wires::{self, AWG_RANGE};
-use crate::model::{Build, Name, Role, Section, WindingSection, WireSize};
+use crate::model::{Build, Conductor, Name, Role, Section, WindingSection, WireSize};
 
 mod reasons;
 mod walk;
@@ -21,6 +22,76 @@ pub struct WireChoice {
     pub strands: u32,
     pub copper_area_mm2: f64,
     pub od_mm: f64,
+    /// Round wire, or a foil or litz the search proposes (see `conductor_choices`).
+    pub conductor: Conductor,
+}
+
+impl WireChoice {
+    /// Width one turn takes on a breadth `w_u`: the breadth for foil, `strands x od` else.
+    pub fn pitch_mm(&self, w_u: f64) -> f64 {
+        match self.conductor {
+            Conductor::Foil(_) => w_u,
+            _ => f64::from(self.strands) * self.od_mm,
+        }
+    }
+}
+
+/// Foil is proposed for a secondary of at least this RMS current (common practice: below
+/// it round wire or a few strands wind as well)...
+pub const FOIL_FROM_A: f64 = 5.0;
+/// ...and of at most this many turns (one turn a layer stacks up fast).
+pub const FOIL_MOST_TURNS: u32 = 12;
+/// Litz is proposed at and above this switching frequency (common practice: below it a few
+/// round strands under two skin depths do as well).
+pub const LITZ_FROM_KHZ: f64 = 200.0;
+
+/// The foil and litz choices for winding `k` carrying `i` A RMS, with their current density
+/// within `(lo, hi)`: foil of the table's thicknesses (default width and interleaf) for a
+/// high-current secondary of few turns in a build without basic or reinforced isolation, litz of the table's constructions at high frequency.
+fn conductor_choices(base: &Build, k: usize, i: f64, (lo, hi): (f64, f64)) -> Vec<WireChoice> {
+    use crate::library::conductors::{FOIL_THICKNESSES_MM, LITZ_CONSTRUCTIONS};
+    use crate::model::{Foil, Litz};
+    let w = &base.windings[k];
+    let w_u = usable_width_mm(base);
+    let mut candidates = Vec::new();
+    // Not where the build declares protection against shock: a foil's cut edges against
+    // the margin tape and the isolation need a judgement the search cannot make.
+    let shock = base
+        .isolation
+        .as_ref()
+        .is_some_and(|iso| iso.class != crate::model::IsolationClass::Functional);
+    if w.role == Role::Secondary && i >= FOIL_FROM_A && w.turns <= FOIL_MOST_TURNS && !shock {
+        candidates.extend(FOIL_THICKNESSES_MM.map(|t| Conductor::Foil(Foil::of(t))));
+    }
+    if base.setup.frequency_khz.is_some_and(|f| f >= LITZ_FROM_KHZ) {
+        candidates
+            .extend(LITZ_CONSTRUCTIONS.map(|c| Conductor::Litz(Litz::of(c.strands, c.strand_mm))));
+    }
+    candidates
+        .into_iter()
+        .filter_map(|conductor| {
+            let mut trial = w.clone();
+            trial.conductor = conductor;
+            trial.strands = 1;
+            trial.wire = WireSize::Metric {
+                bare_mm: match conductor {
+                    Conductor::Foil(f) => f.thickness_mm,
+                    Conductor::Litz(l) => l.strand_mm,
+                    Conductor::Round => return None,
+                },
+            };
+            let rw = conductor::resolve(&trial);
+            let a = conductor::copper_area_mm2(&trial, &rw, w_u);
+            let j = i / a;
+            (a > 0.0 && j >= lo && j <= hi).then_some(WireChoice {
+                size: trial.wire,
+                strands: 1,
+                copper_area_mm2: a,
+                od_mm: rw.od_mm,
+                conductor,
+            })
+        })
+        .collect()
 }
 
 /// How the primary and secondary are ordered and split.
@@ -129,12 +200,13 @@ impl<'a> Space<'a> {
             .enumerate()
             .map(|(k, w)| {
                 let own = || {
-                    let rw = wires::resolve(&w.wire, w.insulation);
+                    let rw = conductor::resolve(w);
                     vec![WireChoice {
                         size: w.wire,
                         strands: w.strands,
-                        copper_area_mm2: f64::from(w.strands) * area_mm2(rw.bare_mm),
+                        copper_area_mm2: conductor::copper_area_mm2(w, &rw, w_u),
                         od_mm: rw.od_mm,
+                        conductor: w.conductor,
                     }]
                 };
                 if others.contains(&k) {
@@ -176,9 +248,11 @@ impl<'a> Space<'a> {
                             strands,
                             copper_area_mm2: a,
                             od_mm: rw.od_mm,
+                            conductor: Conductor::Round,
                         });
                     }
                 }
+                out.extend(conductor_choices(base, k, i, (lo, hi)));
                 if out.is_empty() {
                     notes.push(SearchNote::NoWireSuits {
                         winding: w.name.clone(),

@@ -73,7 +73,7 @@ impl<'a> Space<'a> {
                 continue;
             }
             let ch = &self.choices[k][c];
-            let n_l = turns_per_layer(w_u, f64::from(ch.strands) * ch.od_mm);
+            let n_l = turns_per_layer(w_u, ch.pitch_mm(w_u));
             if n_l == 0 {
                 return false;
             }
@@ -123,6 +123,7 @@ impl<'a> Space<'a> {
             let ch = &self.choices[k][c];
             b.windings[k].wire = ch.size;
             b.windings[k].strands = ch.strands;
+            b.windings[k].conductor = ch.conductor;
         }
     }
 
@@ -162,7 +163,13 @@ impl<'a> Space<'a> {
         let name = |k: usize| self.base.windings[k].name.as_str();
         let wire = |k: usize| {
             let ch = &self.choices[k][combo.choice[k]];
-            let size = ch.size.to_string();
+            let size = match ch.conductor {
+                Conductor::Round => ch.size.to_string(),
+                Conductor::Foil(f) => format!("foil {} mm", crate::model::trim_mm(f.thickness_mm)),
+                Conductor::Litz(l) => {
+                    format!("litz {}x{}", l.strands, crate::model::trim_mm(l.strand_mm))
+                }
+            };
             if ch.strands > 1 {
                 format!("{}x{size}", ch.strands)
             } else {
