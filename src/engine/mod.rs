@@ -22,6 +22,7 @@ pub mod magnetics;
 pub mod measured_core;
 pub mod memo;
 mod remarks;
+pub mod reset_sweep;
 pub mod resistance;
 pub mod search;
 pub mod stress;

@@ -21,6 +21,7 @@ mod layout_cases;
 mod memo_reuse;
 mod recovery;
 mod reference_figures;
+mod reset_sweep;
 mod save_roundtrip;
 mod search_props;
 mod sheet_content;
