@@ -108,3 +108,27 @@ fn a_cancelled_search_returns_promptly_and_leaves_the_build() {
     let r = search_cancellable(&b, &settings, &|_, _| {}, &AtomicBool::new(false));
     assert!(!r.unwrap().candidates.is_empty());
 }
+
+/// The HTML sheet's design section: two charts and the sentence, for the bench example
+/// (no switch rating; duty limit 0.45 so Nr <= 24 x 0.55 / 0.45 = 29.3, by hand); none for a
+/// build without an operating point.
+#[test]
+fn the_html_sheet_has_the_reset_ratio_section() {
+    use turnstack::report::sheet::{html, sheet, svg};
+    let path = std::path::Path::new(env!("CARGO_MANIFEST_DIR")).join("examples/bench-forward.toml");
+    let mut b = turnstack::files::load_build(&path).unwrap();
+    let page = |b: &turnstack::model::Build| {
+        let e = turnstack::engine::evaluate(b);
+        let (scale, drawing) = svg::cross_section(b, &e);
+        html::render(&sheet(b, &e, 20.0), &drawing, scale)
+    };
+    let p = page(&b);
+    assert!(p.contains("<h2>Design: the reset ratio</h2>"));
+    assert_eq!(p.matches("<svg class=\"reset\"").count(), 2);
+    assert!(
+        p.contains("controller&#39;s duty limit binds; Nr 1 to 29 meets both"),
+        "{p}"
+    );
+    b.operating = None;
+    assert!(!page(&b).contains("Design: the reset ratio"));
+}

@@ -64,6 +64,9 @@ pub fn render(s: &Sheet, svg: &str, scale: f64) -> String {
         "<figure>{svg}<figcaption>Cross-section of one side of the window, drawn to scale ({scale:.1} : 1): the tube at the bottom, the flanges at the sides, one band per stack section numbered as the steps. Filled circles are the section's winding, open circles its bifilar partner; the hatched area is past the window.</figcaption></figure>"
     );
 
+    if let Some(r) = &s.reset {
+        super::reset_chart::html_section(&mut o, r);
+    }
     o.push_str("<h2>Bill of materials</h2><table class=\"bom\"><tr><th>winding</th><th>role</th><th>wire</th><th>strands</th><th>turns</th><th>wound length</th><th>cut each strand</th><th>cut in all</th></tr>");
     for w in &s.wires {
         let _ = write!(
