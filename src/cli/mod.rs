@@ -8,6 +8,7 @@ mod error;
 mod fit;
 mod lists;
 mod measure;
+pub mod progress;
 mod search;
 mod sheet;
 mod verify;

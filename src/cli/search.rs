@@ -8,9 +8,11 @@ use crate::report::search::{binding_with_cli_advice, note_sentence};
 use crate::report::textfmt::truncate;
 use serde::Serialize;
 use std::fmt::Write as _;
-use std::io::IsTerminal;
 use std::path::Path;
 use std::process::ExitCode;
+
+/// Exit code after Ctrl-C, as a shell reports a program ended by SIGINT (128 + 2).
+const EXIT_INTERRUPTED: u8 = 130;
 
 pub struct SearchArgs<'a> {
     pub file: Option<&'a Path>,
@@ -108,16 +110,20 @@ pub fn run(args: &SearchArgs) -> Result<ExitCode, Error> {
             args.settings.threads
         ));
     }
-    let tty = std::io::stderr().is_terminal();
-    let progress = move |done: usize, total: usize| {
-        if tty && total > 20_000 {
-            eprint!("\rsearching: {done} of {total}");
-            if done == total {
-                eprint!("\r{}\r", " ".repeat(40));
-            }
+    let bar = super::progress::Progress::new("searching");
+    let stop = super::progress::ctrl_c_flag()
+        .unwrap_or_else(|| std::sync::Arc::new(std::sync::atomic::AtomicBool::new(false)));
+    let result =
+        search::search_cancellable(&build, &args.settings, &|d, t| bar.update(d, t), &stop);
+    bar.finish();
+    let outcome = match result {
+        // Ctrl-C: stop cleanly, write nothing, exit as an interrupted program does (128 + 2).
+        Err(e @ search::SearchError::Cancelled { .. }) => {
+            super::notice(&format!("{e} (Ctrl-C); nothing was printed or written"));
+            return Ok(ExitCode::from(EXIT_INTERRUPTED));
         }
+        r => r?,
     };
-    let outcome = search::search(&build, &args.settings, &progress)?;
     if let Some(out) = args.out {
         let Some(c) = outcome.candidates.get(args.pick.saturating_sub(1)) else {
             return Err(Error::input(format!(

@@ -82,7 +82,8 @@ pub struct ConverterEval {
 
 /// The duty the reset allows (fraction), the switch's off-state voltage at the highest input
 /// (V) and, reset to the output, the steady duty ceiling 1 - Nr/Ns; `vo` is the output plus
-/// the rectifier drop (V).
+/// the rectifier drop (V). The one definition of these figures: `evaluate` and the reset sweep
+/// (`engine::reset_sweep`) both take them from here.
 pub fn reset_limits(
     side: ResetSide,
     vin_max_v: f64,

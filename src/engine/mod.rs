@@ -27,6 +27,7 @@ pub mod measured_core;
 pub mod memo;
 pub mod outputs;
 mod remarks;
+pub mod reset_sweep;
 pub mod resistance;
 pub mod search;
 pub mod stress;

@@ -26,6 +26,7 @@ mod memo_reuse;
 mod outputs;
 mod recovery;
 mod reference_figures;
+mod reset_sweep;
 mod save_roundtrip;
 mod search_props;
 mod sheet_content;

@@ -14,7 +14,7 @@ pub use space::{Arrangement, ResetPlace, WireChoice};
 use super::memo::Memo;
 use super::{Evaluation, evaluate_with, validate};
 use crate::model::{Build, Name, Role};
-use std::sync::atomic::{AtomicUsize, Ordering};
+use std::sync::atomic::{AtomicBool, AtomicUsize, Ordering};
 
 /// Which wire series the search draws sizes from.
 #[derive(Debug, Clone, Copy, PartialEq, Eq)]
@@ -159,6 +159,10 @@ pub enum SearchError {
     /// The build does not pass validation; its first problem.
     #[error("the build is not valid: {0}")]
     Invalid(String),
+    /// The caller's cancel flag was set: the search stopped after `tried` of `space`
+    /// combinations and reports nothing.
+    #[error("the search was stopped after {tried} of {space} combinations")]
+    Cancelled { tried: usize, space: usize },
 }
 
 /// RMS current of each winding the search sizes wire for, as the evaluation has it: the
@@ -214,6 +218,18 @@ pub fn search(
     settings: &Settings,
     progress: &(dyn Fn(usize, usize) + Sync),
 ) -> Result<Outcome, SearchError> {
+    search_cancellable(build, settings, progress, &AtomicBool::new(false))
+}
+
+/// `search`, stopped when `cancel` is set: each thread looks at it every `PROGRESS_STEP`
+/// combinations (a few milliseconds), and a stopped search returns
+/// `SearchError::Cancelled`. The build is only read.
+pub fn search_cancellable(
+    build: &Build,
+    settings: &Settings,
+    progress: &(dyn Fn(usize, usize) + Sync),
+    cancel: &AtomicBool,
+) -> Result<Outcome, SearchError> {
     search_ready(build)?;
     let plan = space::Space::new(build, settings);
     let total = plan.len();
@@ -243,6 +259,9 @@ pub fn search(
             if k > 0 && k.is_multiple_of(PROGRESS_STEP) {
                 let n = done.fetch_add(PROGRESS_STEP, Ordering::Relaxed) + PROGRESS_STEP;
                 progress(n, total);
+            }
+            if k.is_multiple_of(PROGRESS_STEP) && cancel.load(Ordering::Relaxed) {
+                break;
             }
             plan.decode(index, &mut combo);
             let in_band = plan.in_band_all(&combo);
@@ -304,6 +323,12 @@ pub fn search(
                 .collect()
         })
     };
+    if cancel.load(Ordering::Relaxed) {
+        return Err(SearchError::Cancelled {
+            tried: done.load(Ordering::Relaxed).min(total),
+            space: total,
+        });
+    }
     progress(total, total);
 
     let mut all: Vec<(usize, Objectives, Candidate)> = Vec::new();

@@ -78,6 +78,9 @@ pub fn render(s: &Sheet, svg: &str, scale: f64) -> String {
         conductor_caption(svg)
     );
 
+    if let Some(r) = &s.reset {
+        super::reset_chart::html_section(&mut o, r);
+    }
     o.push_str("<h2>Bill of materials</h2><table class=\"bom\"><tr><th>winding</th><th>role</th><th>wire</th><th>strands</th><th>turns</th><th>wound length</th><th>cut each strand</th><th>cut in all</th></tr>");
     for w in &s.wires {
         let _ = write!(

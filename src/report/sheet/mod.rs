@@ -3,6 +3,7 @@
 
 pub mod html;
 pub mod readings;
+pub mod reset_chart;
 pub mod svg;
 pub mod text;
 
@@ -70,6 +71,8 @@ pub struct Check {
 
 #[derive(Debug, Clone, PartialEq)]
 pub struct Sheet {
+    /// The reset ratio's sweep (HTML only: the design section's chart).
+    pub reset: Option<crate::engine::reset_sweep::ResetSweep>,
     pub title: String,
     pub build_id: String,
     pub bobbin: String,
@@ -147,6 +150,7 @@ pub fn sheet(build: &Build, eval: &Evaluation, measure_at_c: f64) -> Sheet {
     let checks = checks(build, eval, measure_at_c);
     let cautions = cautions(build);
     Sheet {
+        reset: crate::engine::reset_sweep::reset_sweep(build),
         title: if build.title.is_empty() {
             "(untitled build)".into()
         } else {
