@@ -19,7 +19,7 @@ use super::magnetics::{self, AlSource};
 use super::measured_core as core_test;
 use super::resistance::temperature_ratio;
 use crate::library::wires;
-use crate::model::{Build, Name, Role, WireSize};
+use crate::model::{Build, Measured, Name, Role, WireSize};
 
 /// Tolerance on a winding's DC resistance, either way: the copper diameter tolerance of
 /// IEC 60317 (about +/-1 % of the nominal diameter for the sizes wound by hand, from memory;
@@ -279,35 +279,7 @@ pub fn verify(build: &Build, eval: &Evaluation) -> Option<Verification> {
     let preds = predictions(build, eval, at_c);
     let find = |q: &Quantity| preds.iter().find(|p| p.quantity == *q).cloned();
     let mut checks = Vec::new();
-    for (name, r) in &m.dcr_ohm {
-        let quantity = Quantity::Dcr {
-            winding: name.clone(),
-        };
-        let prediction = find(&quantity);
-        let mut findings = Vec::new();
-        if let (Some(p), Some(e)) = (&prediction, eval.windings.iter().find(|e| e.name == *name))
-            && !p.contains(*r)
-            && p.expected > 0.0
-        {
-            let factor = r / p.expected;
-            let implied_bare_mm = e.bare_mm / factor.sqrt();
-            let size = build.winding(name).map(|w| w.wire);
-            findings.push(Finding::ResistanceOff {
-                factor,
-                planned_bare_mm: e.bare_mm,
-                implied_bare_mm,
-                likely_wire: size.and_then(|s| likely_wire(s, e.bare_mm, implied_bare_mm)),
-                planned_length_m: e.length_m,
-                implied_length_m: e.length_m * factor,
-            });
-        }
-        checks.push(ReadingCheck {
-            quantity,
-            measured: *r,
-            prediction,
-            findings,
-        });
-    }
+    dcr_checks(build, eval, m, &find, &mut checks);
     let primary = build.first_of(Role::Primary);
     if let (Some(l), Some(p)) = (m.magnetising_uh, primary) {
         let quantity = Quantity::Magnetising {
@@ -378,6 +350,46 @@ pub fn verify(build: &Build, eval: &Evaluation) -> Option<Verification> {
         hipot: m.hipot.clone(),
         note: m.note.clone(),
     })
+}
+
+/// Each DCR reading (ohm) against its prediction; one off its tolerance says what bare
+/// diameter (mm) or length (m) of wire would read so.
+fn dcr_checks(
+    build: &Build,
+    eval: &Evaluation,
+    m: &Measured,
+    find: &dyn Fn(&Quantity) -> Option<Prediction>,
+    checks: &mut Vec<ReadingCheck>,
+) {
+    for (name, r) in &m.dcr_ohm {
+        let quantity = Quantity::Dcr {
+            winding: name.clone(),
+        };
+        let prediction = find(&quantity);
+        let mut findings = Vec::new();
+        if let (Some(p), Some(e)) = (&prediction, eval.windings.iter().find(|e| e.name == *name))
+            && !p.contains(*r)
+            && p.expected > 0.0
+        {
+            let factor = r / p.expected;
+            let implied_bare_mm = e.bare_mm / factor.sqrt();
+            let size = build.winding(name).map(|w| w.wire);
+            findings.push(Finding::ResistanceOff {
+                factor,
+                planned_bare_mm: e.bare_mm,
+                implied_bare_mm,
+                likely_wire: size.and_then(|s| likely_wire(s, e.bare_mm, implied_bare_mm)),
+                planned_length_m: e.length_m,
+                implied_length_m: e.length_m * factor,
+            });
+        }
+        checks.push(ReadingCheck {
+            quantity,
+            measured: *r,
+            prediction,
+            findings,
+        });
+    }
 }
 
 /// What a magnetising inductance `measured_uh` off its prediction says of the core's gap.
