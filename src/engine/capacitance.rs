@@ -16,6 +16,7 @@ pub const EPS_R_TAPE: f64 = 3.2;
 /// polyesterimide enamels are usually quoted at 3.5-4).
 pub const EPS_R_ENAMEL: f64 = 3.5;
 
+/// Capacitances of the wound part (pF) and the ringing they make with the leakage.
 #[derive(Debug, Clone, PartialEq)]
 pub struct CapacitanceEval {
     /// Sum over the faces where a primary-side section meets a secondary-side one.
@@ -59,6 +60,9 @@ fn primary_side(role: Role, reset: ResetSide) -> Option<bool> {
     }
 }
 
+/// Primary-secondary capacitance (parallel plates over the MLT at each face between the
+/// two sides), each winding's self-capacitance (adjacent layers, Z winding) and the ringing
+/// frequency, from the laid-out stack and the resolved wires.
 pub fn evaluate(
     build: &Build,
     laid: &[Laid],

@@ -17,7 +17,9 @@ pub const BASIC_TAPE_WRAPS: u32 = 1;
 /// Which side of the barrier a winding belongs to.
 #[derive(Debug, Clone, Copy, PartialEq, Eq)]
 pub enum Side {
+    /// Primary side: the primary, and the reset winding when it clamps to the input.
     Primary,
+    /// Secondary side: the secondary, and the reset winding when it returns to the output.
     Secondary,
 }
 

@@ -29,9 +29,13 @@ pub const TAPE_WRAP_WORKING_V: f64 = 500.0;
 pub struct PairStress {
     /// Stack indices (0-based) of the two sections (the same for a bifilar pair).
     pub inner_section: usize,
+    /// Stack index of the outer section.
     pub outer_section: usize,
+    /// The winding of the inner section (the first of a bifilar pair).
     pub inner: Name,
+    /// The winding of the outer section (the partner of a bifilar pair).
     pub outer: Name,
+    /// The highest voltage between them (V).
     pub voltage_v: f64,
     /// What the films and the tape between are usually good for (see above).
     pub limit_v: f64,
@@ -42,13 +46,20 @@ pub struct PairStress {
 /// The highest voltage between two adjacent layers of one section.
 #[derive(Debug, Clone, PartialEq)]
 pub struct LayerStress {
+    /// Stack index (0-based) of the section.
     pub section: usize,
+    /// The section's winding.
     pub winding: Name,
+    /// The highest voltage between two adjacent layers (V): `(2 min(a, b) - 1)` volts per turn.
     pub voltage_v: f64,
+    /// What the two films and the layer tape are usually good for (V).
     pub limit_v: f64,
+    /// Wraps of tape between the layers.
     pub layer_tape: u32,
 }
 
+/// Voltages inside the build against what enamel and tape stand: between layers, between
+/// the wires of a bifilar pair, and between sections on the same side of the barrier.
 #[derive(Debug, Clone, PartialEq)]
 pub struct StressEval {
     /// The highest volts per turn on the core: on-state `vin_max/Np`, reset `vin_max/Nr`
@@ -58,7 +69,9 @@ pub struct StressEval {
     pub layer_voltage_v: Vec<Option<f64>>,
     /// The worst layer pair of each multi-layer section.
     pub layers: Vec<LayerStress>,
+    /// Each bifilar section's pair of wires.
     pub bifilar: Vec<PairStress>,
+    /// Each winding section against the winding section below it, same side of the barrier.
     pub between_sections: Vec<PairStress>,
 }
 
@@ -84,6 +97,7 @@ fn primary_side(role: Role, reset: ResetSide) -> Option<bool> {
     }
 }
 
+/// The stress figures at `vin_max_v`; `None` without an operating point.
 pub fn evaluate(build: &Build, laid: &[Laid], c: &ConverterEval) -> Option<StressEval> {
     let op = build.operating.as_ref()?;
     let (np, nr) = (f64::from(c.np), f64::from(c.nr));
