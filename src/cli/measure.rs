@@ -10,7 +10,7 @@ use std::path::Path;
 use std::process::ExitCode;
 
 /// The error of a reading the command cannot use.
-fn bad(msg: &str) -> Result<ExitCode, Error> {
+fn bad<T>(msg: &str) -> Result<T, Error> {
     Err(Error::input(msg))
 }
 
@@ -22,7 +22,40 @@ fn id_ok(id: &str) -> bool {
             .all(|c| c.is_ascii_alphanumeric() || matches!(c, '-' | '_' | '.'))
 }
 
+/// `measure bobbin`: prints the bobbin file the readings make and the core figures worked
+/// out from them (Ae mm2, le mm, AL nH, mu_e, equivalent gap mm); saves it with `--save`.
 pub fn bobbin(m: &MeasureBobbin) -> Result<ExitCode, Error> {
+    let (measured, le_how) = readings(m)?;
+    let bobbin = measured_core::bobbin_from(&measured);
+    let problems = validate_bobbin(&bobbin);
+    if let Some(p) = problems.first() {
+        return bad(&format!("the readings do not make a bobbin: {p}"));
+    }
+    let toml = bobbin_to_toml(&bobbin);
+    // The file must read back as the same bobbin; a failure here is a bug, not user input.
+    if let Err(e) = parse_bobbin(&toml, None) {
+        return bad(&format!(
+            "internal error: the bobbin file does not read back: {e}"
+        ));
+    }
+
+    let mut o = String::new();
+    let _ = writeln!(o, "# {}.toml", m.id);
+    o.push_str(&toml);
+    core_figures(&mut o, &measured, &le_how, m.mu_i);
+    emit(&o)?;
+    if m.save {
+        let Some(dir) = user_bobbin_dir() else {
+            return bad("no data directory on this system: set TURNSTACK_BOBBINS to a folder");
+        };
+        return save(&dir, &m.id, &toml, m.force);
+    }
+    Ok(ExitCode::SUCCESS)
+}
+
+/// The readings as the engine's `Measured` core, with how le was found (empty when not
+/// given); refuses an unusable id, tube or turn count with the message the user sees.
+fn readings(m: &MeasureBobbin) -> Result<(Measured, String), Error> {
     if !id_ok(&m.id) {
         return bad(&format!(
             "--id \"{}\": use letters, digits, '-', '_' or '.' (it becomes the file name)",
@@ -92,22 +125,13 @@ pub fn bobbin(m: &MeasureBobbin) -> Result<ExitCode, Error> {
         al_nh,
         pin_count: m.pins,
     };
-    let bobbin = measured_core::bobbin_from(&measured);
-    let problems = validate_bobbin(&bobbin);
-    if let Some(p) = problems.first() {
-        return bad(&format!("the readings do not make a bobbin: {p}"));
-    }
-    let toml = bobbin_to_toml(&bobbin);
-    // The file must read back as the same bobbin; a failure here is a bug, not user input.
-    if let Err(e) = parse_bobbin(&toml, None) {
-        return bad(&format!(
-            "internal error: the bobbin file does not read back: {e}"
-        ));
-    }
+    Ok((measured, le_how))
+}
 
-    let mut o = String::new();
-    let _ = writeln!(o, "# {}.toml", m.id);
-    o.push_str(&toml);
+/// The "Core figures" block: Ae (mm2), le (mm) and AL (nH), each with how it was found or
+/// what to give for it, then mu_e and the equivalent gap when the readings allow.
+fn core_figures(o: &mut String, measured: &Measured, le_how: &str, mu_i: Option<f64>) {
+    let (leg, le_mm, al_nh) = (measured.leg, measured.le_mm, measured.al_nh);
     let _ = writeln!(o, "\nCore figures");
     match leg {
         Some(l) => {
@@ -151,52 +175,50 @@ pub fn bobbin(m: &MeasureBobbin) -> Result<ExitCode, Error> {
         }
     }
     if let (Some(al), Some(le), Some(l)) = (al_nh, le_mm, leg) {
-        let mu_e = measured_core::mu_e(al, le, l.area_mm2());
-        let _ = writeln!(
-            o,
-            "  mu_e {mu_e:>8.0}        AL le / (mu0 Ae): effective permeability"
-        );
-        match m.mu_i {
-            Some(mu_i) => {
-                let gap = measured_core::equivalent_gap_mm(mu_e, mu_i, le);
-                let _ = writeln!(
-                    o,
-                    "  gap {gap:>9.3} mm   le (1/mu_e - 1/mu_i) with mu_i {mu_i}: the air in the whole path"
-                );
-                let say = match measured_core::read_gap(gap) {
-                    GapReading::Negative => "mu_e is above the mu_i you stated: the material's \
-                        permeability is higher than you think, or le or Ae is off."
-                        .to_string(),
-                    GapReading::Clean => format!(
-                        "under {:.0} um: as expected of clean, ground mating faces.",
-                        measured_core::CLEAN_FACE_GAP_MM * 1000.0
-                    ),
-                    GapReading::Gapped => "a gap: the core is gapped on purpose, or its mating \
-                        faces are dirty, glued or chipped (glue and grit show up as a gap; an E \
-                        pair has it twice, centre and outer legs). Clean the faces and measure \
-                        again before trusting AL."
-                        .to_string(),
-                };
-                for l in crate::report::wrap(&say, 72, "") {
-                    let _ = writeln!(o, "       {l}");
-                }
-            }
-            None => {
-                let _ = writeln!(
-                    o,
-                    "  gap         -      give --mu-i (the material's permeability) for the equivalent gap"
-                );
+        permeability(o, al, le, l, mu_i);
+    }
+}
+
+/// mu_e from AL (nH), le (mm) and the leg's section, and with the material's mu_i the
+/// equivalent gap (mm) with what it says about the mating faces.
+fn permeability(o: &mut String, al: f64, le: f64, l: Leg, mu_i: Option<f64>) {
+    let mu_e = measured_core::mu_e(al, le, l.area_mm2());
+    let _ = writeln!(
+        o,
+        "  mu_e {mu_e:>8.0}        AL le / (mu0 Ae): effective permeability"
+    );
+    match mu_i {
+        Some(mu_i) => {
+            let gap = measured_core::equivalent_gap_mm(mu_e, mu_i, le);
+            let _ = writeln!(
+                o,
+                "  gap {gap:>9.3} mm   le (1/mu_e - 1/mu_i) with mu_i {mu_i}: the air in the whole path"
+            );
+            let say = match measured_core::read_gap(gap) {
+                GapReading::Negative => "mu_e is above the mu_i you stated: the material's \
+                    permeability is higher than you think, or le or Ae is off."
+                    .to_string(),
+                GapReading::Clean => format!(
+                    "under {:.0} um: as expected of clean, ground mating faces.",
+                    measured_core::CLEAN_FACE_GAP_MM * 1000.0
+                ),
+                GapReading::Gapped => "a gap: the core is gapped on purpose, or its mating \
+                    faces are dirty, glued or chipped (glue and grit show up as a gap; an E \
+                    pair has it twice, centre and outer legs). Clean the faces and measure \
+                    again before trusting AL."
+                    .to_string(),
+            };
+            for l in crate::report::wrap(&say, 72, "") {
+                let _ = writeln!(o, "       {l}");
             }
         }
+        None => {
+            let _ = writeln!(
+                o,
+                "  gap         -      give --mu-i (the material's permeability) for the equivalent gap"
+            );
+        }
     }
-    emit(&o)?;
-    if m.save {
-        let Some(dir) = user_bobbin_dir() else {
-            return bad("no data directory on this system: set TURNSTACK_BOBBINS to a folder");
-        };
-        return save(&dir, &m.id, &toml, m.force);
-    }
-    Ok(ExitCode::SUCCESS)
 }
 
 fn save(dir: &Path, id: &str, toml: &str, force: bool) -> Result<ExitCode, Error> {

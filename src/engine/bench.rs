@@ -40,8 +40,11 @@ pub struct Cut {
 /// An expected reading and the band it may fall in.
 #[derive(Debug, Clone, Copy, PartialEq)]
 pub struct Spread {
+    /// The reading the plan expects (in the quantity's unit: ohm, uH).
     pub expected: f64,
+    /// Lowest reading still as planned.
     pub low: f64,
+    /// Highest reading still as planned.
     pub high: f64,
 }
 

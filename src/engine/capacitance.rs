@@ -3,9 +3,9 @@
 //! primary's.
 
 use super::geometry::mlt_at_mm;
-use super::layout::{Laid, LaidKind};
+use super::layout::{Laid, LaidKind, Layer};
 use crate::library::wires::ResolvedWire;
-use crate::model::{Build, ResetSide, Role};
+use crate::model::{Build, ResetSide, Role, Tube};
 
 /// Permittivity of free space (F/m), CODATA 2018.
 pub const EPS0_F_PER_M: f64 = 8.8541878128e-12;
@@ -16,6 +16,7 @@ pub const EPS_R_TAPE: f64 = 3.2;
 /// polyesterimide enamels are usually quoted at 3.5-4).
 pub const EPS_R_ENAMEL: f64 = 3.5;
 
+/// Capacitances of the wound part (pF) and the ringing they make with the leakage.
 #[derive(Debug, Clone, PartialEq)]
 pub struct CapacitanceEval {
     /// Sum over the faces where a primary-side section meets a secondary-side one.
@@ -59,6 +60,9 @@ fn primary_side(role: Role, reset: ResetSide) -> Option<bool> {
     }
 }
 
+/// Primary-secondary capacitance (parallel plates over the MLT at each face between the
+/// two sides), each winding's self-capacitance (adjacent layers, Z winding) and the ringing
+/// frequency, from the laid-out stack and the resolved wires.
 pub fn evaluate(
     build: &Build,
     laid: &[Laid],
@@ -112,18 +116,8 @@ pub fn evaluate(
         if layers.len() < 2 {
             continue;
         }
-        // Adjacent layers: both films and the layer tape between, over the MLT at the face.
-        let c_layers: Vec<f64> = layers
-            .windows(2)
-            .map(|p| {
-                let face = p[0].y_mm + p[0].height_mm;
-                let area = mlt_at_mm(tube, face) * mm * b_w;
-                let tape = f64::from(*layer_tape) * build.setup.tape_mm * mm;
-                plate_pf(area, &[(tape, EPS_R_TAPE), (2.0 * enamel(k), EPS_R_ENAMEL)])
-            })
-            .collect();
-        let c_l = c_layers.iter().sum::<f64>() / c_layers.len() as f64;
-        let c_sec = z_winding_pf(c_l, layers.len());
+        let tape = f64::from(*layer_tape) * build.setup.tape_mm * mm;
+        let c_sec = section_self_pf(tube, layers, tape, enamel(k), b_w);
         for i in [Some(k), *with].into_iter().flatten() {
             let total = f64::from(build.windings[i].turns.max(1));
             let share = f64::from(*turns) / total;
@@ -141,15 +135,42 @@ pub fn evaluate(
         .iter()
         .position(|w| w.role == Role::Primary)
         .and_then(|p| self_pf[p]);
-    let ringing_khz = match (leakage_ps_uh, cp) {
-        (Some(l), Some(c)) if l > 0.0 && c > 0.0 => {
-            Some(1.0 / (2.0 * std::f64::consts::PI * (l * 1e-6 * c * 1e-12).sqrt()) / 1e3)
-        }
-        _ => None,
-    };
+    let ringing_khz = ringing_khz(leakage_ps_uh, cp);
     CapacitanceEval {
         primary_secondary_pf,
         self_pf,
         ringing_khz,
+    }
+}
+
+/// The self-capacitance (pF) of one multi-layer section (Z winding): adjacent layers as
+/// plates over the MLT at their face, with both films (`enamel_m` each, m) and the layer
+/// tape (`tape_m`, m) between; `b_w` is the wound breadth (m).
+fn section_self_pf(tube: &Tube, layers: &[Layer], tape_m: f64, enamel_m: f64, b_w: f64) -> f64 {
+    let mm = 1e-3;
+    // Adjacent layers: both films and the layer tape between, over the MLT at the face.
+    let c_layers: Vec<f64> = layers
+        .windows(2)
+        .map(|p| {
+            let face = p[0].y_mm + p[0].height_mm;
+            let area = mlt_at_mm(tube, face) * mm * b_w;
+            plate_pf(
+                area,
+                &[(tape_m, EPS_R_TAPE), (2.0 * enamel_m, EPS_R_ENAMEL)],
+            )
+        })
+        .collect();
+    let c_l = c_layers.iter().sum::<f64>() / c_layers.len() as f64;
+    z_winding_pf(c_l, layers.len())
+}
+
+/// The primary's ringing frequency (kHz) with the primary-secondary leakage (uH) and the
+/// primary's self-capacitance (pF): 1 / (2 pi sqrt(L C)).
+fn ringing_khz(leakage_ps_uh: Option<f64>, cp: Option<f64>) -> Option<f64> {
+    match (leakage_ps_uh, cp) {
+        (Some(l), Some(c)) if l > 0.0 && c > 0.0 => {
+            Some(1.0 / (2.0 * std::f64::consts::PI * (l * 1e-6 * c * 1e-12).sqrt()) / 1e3)
+        }
+        _ => None,
     }
 }

@@ -15,5 +15,7 @@ pub const FIT_TOLERANCE_MM: f64 = 1e-9;
 /// Guard against a pitch that divides the width exactly being floored one short.
 pub const TURNS_PER_LAYER_EPS: f64 = 1e-9;
 
+/// Metres in a millimetre.
 pub const MM: f64 = 1e-3;
+/// Square metres in a square millimetre.
 pub const MM2: f64 = 1e-6;

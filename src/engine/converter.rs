@@ -5,11 +5,17 @@ use super::magnetics::{self, AlSource};
 use super::outputs::{self, OutputEval};
 use crate::model::{Build, ResetSide, Role};
 
+/// The single-switch forward converter's figures at the operating point: turns, duty
+/// limits and needs, switch voltage, reset time, flux swing and magnetising currents.
 #[derive(Debug, Clone, PartialEq)]
 pub struct ConverterEval {
+    /// Where the reset winding returns its energy.
     pub reset_side: ResetSide,
+    /// Primary turns (the first primary).
     pub np: u32,
+    /// Secondary turns (the first secondary).
     pub ns: u32,
+    /// Reset turns (the first reset winding).
     pub nr: u32,
     /// Largest duty at which the core fully resets within a period at `vin_max_v`.
     pub reset_duty_limit: f64,
@@ -57,6 +63,7 @@ pub struct ConverterEval {
     pub flux_headroom_mt: Option<f64>,
     /// AL used for the magnetising inductance, and where it came from.
     pub al_nh: Option<f64>,
+    /// Where `al_nh` came from (the core's AL, or mu_i and the gap).
     pub al_source: Option<AlSource>,
     /// `AL Np^2`.
     pub magnetising_uh: Option<f64>,
@@ -67,7 +74,9 @@ pub struct ConverterEval {
     /// The reset winding's current: `Np/Nr` times the magnetising peak, falling to zero
     /// over the reset time (steady state at `vin_min_v`).
     pub reset_peak_a: Option<f64>,
+    /// The reset winding's peak current (A) after the worst-case on-time.
     pub reset_peak_worst_a: Option<f64>,
+    /// The reset winding's RMS current (A), steady state at `vin_min_v`.
     pub reset_rms_a: Option<f64>,
     /// `reset_rms_a` over the first reset winding's copper area (set by the evaluation).
     pub reset_current_density_a_mm2: Option<f64>,

@@ -9,6 +9,7 @@ use super::converter::ConverterEval;
 use super::harmonics::Waveform;
 use crate::model::{Build, Role};
 
+/// Where a winding's RMS current comes from.
 #[derive(Debug, Clone, Copy, PartialEq, Eq)]
 pub enum CurrentSource {
     /// The winding's `current_rms_a`.
@@ -18,6 +19,7 @@ pub enum CurrentSource {
 }
 
 impl CurrentSource {
+    /// The words reports and JSON show for it (`given`, `operating point`).
     pub fn key(self) -> &'static str {
         match self {
             CurrentSource::Given => "given",
@@ -26,10 +28,12 @@ impl CurrentSource {
     }
 }
 
+/// One winding's RMS current (A), where it came from, and what the operating point gives.
 #[derive(Debug, Clone, PartialEq, Default)]
 pub struct WindingCurrent {
     /// The RMS current used for the winding's figures.
     pub rms_a: Option<f64>,
+    /// Where `rms_a` came from; `None` without a current.
     pub source: Option<CurrentSource>,
     /// What the operating point gives (first winding of each power role only).
     pub model_rms_a: Option<f64>,

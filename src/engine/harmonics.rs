@@ -12,15 +12,20 @@ pub const HARMONICS: usize = 100;
 /// of the period. A jump is the step between two pieces.
 #[derive(Debug, Clone, Copy, PartialEq)]
 pub struct Piece {
+    /// Start of the piece, as a fraction of the period (0 to 1).
     pub t0: f64,
+    /// End of the piece, as a fraction of the period (0 to 1).
     pub t1: f64,
+    /// Value at `t0` (A).
     pub y0: f64,
+    /// Value at `t1` (A).
     pub y1: f64,
 }
 
 /// A current over one period (zero wherever no piece covers it).
 #[derive(Debug, Clone, PartialEq, Default)]
 pub struct Waveform {
+    /// The straight pieces, in time order, not overlapping.
     pub pieces: Vec<Piece>,
 }
 
@@ -46,6 +51,7 @@ impl Waveform {
         Waveform { pieces }
     }
 
+    /// The same waveform with every value multiplied by `by` (a turns ratio, say).
     pub fn scaled(mut self, by: f64) -> Self {
         for p in &mut self.pieces {
             p.y0 *= by;
@@ -107,11 +113,16 @@ impl Waveform {
 /// The DC part, the squared RMS of each harmonic 1..=`count`, and the whole RMS squared.
 #[derive(Debug, Clone, PartialEq)]
 pub struct Spectrum {
+    /// The mean over the period (A).
     pub dc: f64,
+    /// The squared RMS (A^2) of harmonic n at index n - 1.
     pub harmonic_rms_sq: Vec<f64>,
+    /// The whole waveform's RMS squared (A^2), DC and every harmonic together.
     pub rms_sq: f64,
 }
 
+/// The Fourier series of a piecewise-straight waveform: its DC part and the first `count`
+/// harmonics, in closed form per piece.
 pub fn spectrum(w: &Waveform, count: usize) -> Spectrum {
     // c_n for every n at once: each piece end's phasor e^(-j 2 pi t) is raised to the n-th
     // power by one complex product per harmonic instead of a sin_cos.

@@ -17,7 +17,9 @@ pub const BASIC_TAPE_WRAPS: u32 = 1;
 /// Which side of the barrier a winding belongs to.
 #[derive(Debug, Clone, Copy, PartialEq, Eq)]
 pub enum Side {
+    /// Primary side: the primary, and the reset winding when it clamps to the input.
     Primary,
+    /// Secondary side: the secondary, and the reset winding when it returns to the output.
     Secondary,
 }
 
@@ -114,6 +116,44 @@ pub fn warnings(build: &Build, eval: &Evaluation) -> Vec<Warning> {
         }
     }
 
+    wraps_warnings(build, eval, &sections, class, need, &mut out);
+
+    let secondary_all_tiw = build
+        .windings
+        .iter()
+        .filter(|w| side_of(build, w.role) == Side::Secondary)
+        .all(|w| w.insulation == Insulation::Tiw);
+    match iso.creepage_mm {
+        Some(creepage) if !secondary_all_tiw && build.setup.margin_mm < creepage / 2.0 => {
+            out.push(Warning {
+                at: WarningAt::Build,
+                kind: WarningKind::IsolationMargin {
+                    class,
+                    margin_mm: build.setup.margin_mm,
+                    creepage_mm: creepage,
+                },
+            });
+        }
+        None => out.push(Warning {
+            at: WarningAt::Build,
+            kind: WarningKind::IsolationCreepageUnset { class },
+        }),
+        _ => {}
+    }
+    out
+}
+
+/// Every pair of a primary-side and a secondary-side section with fewer than `need` wraps of
+/// tape between them (unless one side is wound all in triple-insulated wire).
+fn wraps_warnings(
+    build: &Build,
+    eval: &Evaluation,
+    sections: &[SectionWindings],
+    class: IsolationClass,
+    need: u32,
+    out: &mut Vec<Warning>,
+) {
+    let name = |k: usize| eval.windings[k].name.clone();
     // Every pair of a primary-side and a secondary-side section, however far apart.
     for a in 0..sections.len() {
         for b in a + 1..sections.len() {
@@ -151,28 +191,4 @@ pub fn warnings(build: &Build, eval: &Evaluation) -> Vec<Warning> {
             }
         }
     }
-
-    let secondary_all_tiw = build
-        .windings
-        .iter()
-        .filter(|w| side_of(build, w.role) == Side::Secondary)
-        .all(|w| w.insulation == Insulation::Tiw);
-    match iso.creepage_mm {
-        Some(creepage) if !secondary_all_tiw && build.setup.margin_mm < creepage / 2.0 => {
-            out.push(Warning {
-                at: WarningAt::Build,
-                kind: WarningKind::IsolationMargin {
-                    class,
-                    margin_mm: build.setup.margin_mm,
-                    creepage_mm: creepage,
-                },
-            });
-        }
-        None => out.push(Warning {
-            at: WarningAt::Build,
-            kind: WarningKind::IsolationCreepageUnset { class },
-        }),
-        _ => {}
-    }
-    out
 }

@@ -10,6 +10,7 @@ use crate::model::{Build, Section, SectionRef};
 pub struct Layer {
     /// Height of the layer's inner face above the tube surface.
     pub y_mm: f64,
+    /// Height of the layer (mm): the wire's overall diameter (the larger of a bifilar pair).
     pub height_mm: f64,
     /// Turns of the section's winding in this layer (and of `with`, if bifilar).
     pub turns: u32,
@@ -20,25 +21,40 @@ pub struct Layer {
 /// A section as laid in the window.
 #[derive(Debug, Clone, PartialEq)]
 pub struct Laid {
+    /// Height of the section's inner face above the tube surface (mm).
     pub y_mm: f64,
+    /// Height of the section (mm), every layer and its tape.
     pub height_mm: f64,
+    /// Tape, or a winding section with its layers.
     pub kind: LaidKind,
 }
 
+/// What a laid section holds.
 #[derive(Debug, Clone, PartialEq)]
 pub enum LaidKind {
+    /// Insulation tape over the whole width.
     Tape {
+        /// Wraps of tape.
         wraps: u32,
     },
+    /// Turns of a winding, in layers.
     Winding {
         /// Index into `build.windings`; `None` only for a name validation refuses.
         winding: Option<usize>,
+        /// The bifilar partner, as an index into `build.windings`.
         with: Option<usize>,
+        /// Turns of this section (each bifilar turn counts once).
         turns: u32,
+        /// Width one turn takes along the layer (mm): the overall diameter times the strands,
+        /// wound side by side (both wires' together when bifilar).
         pitch_mm: f64,
+        /// Turns that fit across the usable width.
         turns_per_layer: u32,
+        /// Height of one layer of wire (mm), the larger overall diameter, without the layer tape.
         layer_height_mm: f64,
+        /// Wraps of tape between the layers.
         layer_tape: u32,
+        /// The layers from the inside outward.
         layers: Vec<Layer>,
     },
 }
@@ -54,6 +70,7 @@ pub struct Resolved {
 }
 
 impl Resolved {
+    /// The wires and the stack's names of a build, resolved.
     pub fn new(build: &Build) -> Self {
         Resolved {
             wires: resolved_wires(build),

@@ -13,9 +13,13 @@ use crate::model::Tube;
 /// A slice of the build with the MMF at its inner (`f_a`) and outer (`f_b`) faces.
 #[derive(Debug, Clone, PartialEq)]
 pub struct Slab {
+    /// Height of the slab's inner face above the tube surface (mm).
     pub y0_mm: f64,
+    /// Height of the slab's outer face (mm).
     pub y1_mm: f64,
+    /// MMF at the inner face (ampere-turns, primary referred).
     pub f_a: f64,
+    /// MMF at the outer face (ampere-turns).
     pub f_b: f64,
     /// (section index, layer index) when the slab is a winding layer.
     pub layer: Option<(usize, usize)>,

@@ -7,6 +7,7 @@ use crate::model::Name;
 /// 3-6 A/mm^2 RMS (common practice; 500 circular mils per ampere is 3.95 A/mm^2).
 pub const CURRENT_DENSITY_BAND_A_MM2: (f64, f64) = (3.0, 6.0);
 
+/// What can limit a design; `engine::limits` reports each with its margin, binding first.
 #[derive(Debug, Clone, Copy, PartialEq, Eq)]
 pub enum Constraint {
     /// Height with allowance against the window height.
@@ -26,6 +27,7 @@ pub enum Constraint {
 }
 
 impl Constraint {
+    /// Every constraint, in the order reports list them when margins tie.
     pub const ALL: [Constraint; 7] = [
         Constraint::Fit,
         Constraint::ResetDuty,
@@ -36,6 +38,7 @@ impl Constraint {
         Constraint::HotSpot,
     ];
 
+    /// The stable key reports and JSON use (`fit`, `reset-duty`, `hot-spot`, ...).
     pub fn key(self) -> &'static str {
         match self {
             Constraint::Fit => "fit",
@@ -49,13 +52,17 @@ impl Constraint {
     }
 }
 
+/// One constraint with what the build uses of it, what it allows, and the margin left.
 #[derive(Debug, Clone, PartialEq)]
 pub struct Limit {
+    /// Which constraint.
     pub constraint: Constraint,
     /// `1 - used / allowed`: 0.25 means a quarter of the allowance is left; negative
     /// means the constraint is broken.
     pub margin: f64,
+    /// What the build takes (in `unit`).
     pub used: f64,
+    /// What the constraint allows (in `unit`).
     pub allowed: f64,
     /// Unit of `used` and `allowed` ("mm", "duty", "mT", "C", "A/mm2").
     pub unit: &'static str,
@@ -64,6 +71,7 @@ pub struct Limit {
 }
 
 impl Limit {
+    /// A limit with its margin worked out (`-1` when nothing is allowed).
     pub fn new(
         constraint: Constraint,
         used: f64,
@@ -88,6 +96,7 @@ impl Limit {
         }
     }
 
+    /// True when the build takes more than is allowed (margin below 0).
     pub fn broken(&self) -> bool {
         self.margin < 0.0
     }

@@ -8,6 +8,7 @@ use super::memo::Memo;
 use super::thermal::{self, DEFAULT_AMBIENT_C, DEFAULT_RISE_LIMIT_C, InsulationPart};
 use crate::model::{Build, Core, Name, Operating, ResetSide};
 
+/// The losses (W) and what they do to the part's temperature (C).
 #[derive(Debug, Clone, PartialEq)]
 pub struct LossEval {
     /// Sum of the windings' copper losses (those that have a current).
@@ -16,18 +17,25 @@ pub struct LossEval {
     pub windings_without_current: Vec<Name>,
     /// Core loss density by the iGSE, steady state at `vin_max_v`.
     pub core_loss_kw_m3: Option<f64>,
+    /// Core loss (W): the density times the core's volume.
     pub core_loss_w: Option<f64>,
+    /// Core volume the loss is taken over (mm3): Ve, or Ae x le.
     pub core_volume_mm3: Option<f64>,
     /// The flux swing, duty and reset fraction the core loss is taken at.
     pub core_swing_mt: Option<f64>,
+    /// The duty at `vin_max_v` the core loss is taken at.
     pub core_duty: Option<f64>,
+    /// The share of the period the reset takes at that duty.
     pub core_reset_fraction: Option<f64>,
     /// Copper (at `vin_min_v`) plus core (at `vin_max_v`): the worst of each, together.
     pub total_loss_w: f64,
+    /// Outer surface of the wound part (cm2), given or estimated.
     pub surface_area_cm2: Option<f64>,
     /// The surface area was estimated from the area product, not given.
     pub surface_estimated: bool,
+    /// Temperature rise (C) of the surface from the total loss (McLyman).
     pub temperature_rise_c: Option<f64>,
+    /// The rise the user accepts (C), `[operating] rise_limit_c` or the default.
     pub rise_limit_c: f64,
     /// `[operating] ambient_c`, or the default.
     pub ambient_c: f64,
@@ -35,6 +43,7 @@ pub struct LossEval {
     pub hot_spot_c: Option<f64>,
     /// The lowest thermal class of wire, tape and bobbin (IEC 60085 index, C), and whose.
     pub class_limit_c: f64,
+    /// Which part (wire, tape or bobbin) has the lowest class.
     pub class_binding: InsulationPart,
 }
 

@@ -16,6 +16,7 @@ pub enum AlSource {
 }
 
 impl AlSource {
+    /// The words reports and JSON show for it.
     pub fn key(self) -> &'static str {
         match self {
             AlSource::Core => "core",

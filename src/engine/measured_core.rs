@@ -51,11 +51,22 @@ pub fn al_with_gap_nh(ae_mm2: f64, le_mm: f64, mu_i: f64, lg_mm: f64) -> f64 {
 /// (common practice); the real Ae of IEC 60205 is a little smaller where the path narrows.
 #[derive(Debug, Clone, Copy, PartialEq)]
 pub enum Leg {
-    Rect { width_mm: f64, depth_mm: f64 },
-    Round { diameter_mm: f64 },
+    /// A rectangular leg.
+    Rect {
+        /// Width of the leg across the tube (mm).
+        width_mm: f64,
+        /// Depth of the leg the other way (mm).
+        depth_mm: f64,
+    },
+    /// A round leg.
+    Round {
+        /// Diameter of the leg (mm).
+        diameter_mm: f64,
+    },
 }
 
 impl Leg {
+    /// The leg's section (mm2), taken as Ae.
     pub fn area_mm2(self) -> f64 {
         match self {
             Leg::Rect { width_mm, depth_mm } => width_mm * depth_mm,
@@ -87,6 +98,7 @@ pub enum GapReading {
 /// a few micrometres per face).
 pub const CLEAN_FACE_GAP_MM: f64 = 0.010;
 
+/// What an equivalent gap (mm) says: negative, clean (under `CLEAN_FACE_GAP_MM`) or gapped.
 pub fn read_gap(lg_mm: f64) -> GapReading {
     if lg_mm < 0.0 {
         GapReading::Negative
@@ -100,14 +112,23 @@ pub fn read_gap(lg_mm: f64) -> GapReading {
 /// Calliper readings of a salvaged bobbin and its core.
 #[derive(Debug, Clone, PartialEq)]
 pub struct Measured {
+    /// The name the bobbin file gets.
     pub name: String,
+    /// Where the figures come from, written into the file's `origin`.
     pub origin: String,
+    /// Window width between the flanges (mm).
     pub window_width_mm: f64,
+    /// Window height from the tube surface to the usable limit (mm).
     pub window_height_mm: f64,
+    /// The tube's outer surface as measured.
     pub tube: Tube,
+    /// The centre leg's section, when measured.
     pub leg: Option<Leg>,
+    /// Effective path length (mm), entered or estimated from the path.
     pub le_mm: Option<f64>,
+    /// AL (nH) from a test winding: L / N^2.
     pub al_nh: Option<f64>,
+    /// Number of pins, when counted.
     pub pin_count: Option<u32>,
 }
 

@@ -13,6 +13,9 @@ pub const MAX_ENTRIES: usize = 4096;
 // The memo starts afresh only between evaluations (`trim`), never during one: an evaluation
 // holds the spectrum indices it was handed until it ends.
 
+/// What stays the same between evaluations of one search or one planner session: each
+/// waveform's spectrum, the summed and sinusoidal Dowell terms per D, the last core-loss
+/// density. Results are identical with or without it.
 #[derive(Debug, Default, Clone)]
 pub struct Memo {
     spectra: Vec<(Waveform, Spectrum)>,
@@ -62,6 +65,7 @@ impl Memo {
         self.spectra.len() - 1
     }
 
+    /// The spectrum stored at `index` (as `Memo::spectrum` returned it).
     pub fn spectrum_of(&self, index: usize) -> &Spectrum {
         &self.spectra[index].1
     }

@@ -2,6 +2,7 @@
 //! Every figure has its one definition here (see FORMAT.md, the project's copy of the file
 //! format and the definition of each figure).
 
+#![warn(missing_docs)]
 pub mod ac;
 pub mod bench;
 pub mod build_size;

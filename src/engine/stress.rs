@@ -4,7 +4,7 @@
 
 use super::converter::ConverterEval;
 use super::layout::{Laid, LaidKind};
-use crate::model::{Build, Insulation, Name, ResetSide, Role};
+use crate::model::{Build, Insulation, Name, Operating, ResetSide, Role, Winding};
 
 /// A working figure for one enamel film (V), well below the IEC 60317-0-1 breakdown minimums
 /// (room-temperature type tests of one to several kV) and below the partial-discharge
@@ -29,9 +29,13 @@ pub const TAPE_WRAP_WORKING_V: f64 = 500.0;
 pub struct PairStress {
     /// Stack indices (0-based) of the two sections (the same for a bifilar pair).
     pub inner_section: usize,
+    /// Stack index of the outer section.
     pub outer_section: usize,
+    /// The winding of the inner section (the first of a bifilar pair).
     pub inner: Name,
+    /// The winding of the outer section (the partner of a bifilar pair).
     pub outer: Name,
+    /// The highest voltage between them (V).
     pub voltage_v: f64,
     /// What the films and the tape between are usually good for (see above).
     pub limit_v: f64,
@@ -42,13 +46,20 @@ pub struct PairStress {
 /// The highest voltage between two adjacent layers of one section.
 #[derive(Debug, Clone, PartialEq)]
 pub struct LayerStress {
+    /// Stack index (0-based) of the section.
     pub section: usize,
+    /// The section's winding.
     pub winding: Name,
+    /// The highest voltage between two adjacent layers (V): `(2 min(a, b) - 1)` volts per turn.
     pub voltage_v: f64,
+    /// What the two films and the layer tape are usually good for (V).
     pub limit_v: f64,
+    /// Wraps of tape between the layers.
     pub layer_tape: u32,
 }
 
+/// Voltages inside the build against what enamel and tape stand: between layers, between
+/// the wires of a bifilar pair, and between sections on the same side of the barrier.
 #[derive(Debug, Clone, PartialEq)]
 pub struct StressEval {
     /// The highest volts per turn on the core: on-state `vin_max/Np`, reset `vin_max/Nr`
@@ -58,7 +69,9 @@ pub struct StressEval {
     pub layer_voltage_v: Vec<Option<f64>>,
     /// The worst layer pair of each multi-layer section.
     pub layers: Vec<LayerStress>,
+    /// Each bifilar section's pair of wires.
     pub bifilar: Vec<PairStress>,
+    /// Each winding section against the winding section below it, same side of the barrier.
     pub between_sections: Vec<PairStress>,
 }
 
@@ -84,6 +97,7 @@ fn primary_side(role: Role, reset: ResetSide) -> Option<bool> {
     }
 }
 
+/// The stress figures at `vin_max_v`; `None` without an operating point.
 pub fn evaluate(build: &Build, laid: &[Laid], c: &ConverterEval) -> Option<StressEval> {
     let op = build.operating.as_ref()?;
     let (np, nr) = (f64::from(c.np), f64::from(c.nr));
@@ -135,48 +149,17 @@ pub fn evaluate(build: &Build, laid: &[Laid], c: &ConverterEval) -> Option<Stres
                     *v = v.max(worst);
                 }
                 if let Some(j) = *with {
-                    let pr = [w[k].role, w[j].role];
-                    let v = if op.reset_side == ResetSide::Primary
-                        && pr.contains(&Role::Primary)
-                        && pr.contains(&Role::Reset)
-                    {
-                        // The switch end of the primary lies beside the reset's end at the
-                        // input rail or ground: the off-state voltage between neighbours.
-                        c.switch_voltage_v
-                    } else {
-                        f64::from(w[k].turns + w[j].turns) * vpt
-                    };
-                    bifilar.push(PairStress {
-                        inner_section: si,
-                        outer_section: si,
-                        inner: w[k].name.clone(),
-                        outer: w[j].name.clone(),
-                        voltage_v: v,
-                        limit_v: film(k) + film(j),
-                        wraps: 0,
-                    });
+                    bifilar.push(bifilar_pair(w, op, c, si, (k, j), vpt));
                 }
-                if let Some((pi, pk, pturns)) = last {
-                    let sides = (
-                        primary_side(w[pk].role, op.reset_side),
-                        primary_side(w[k].role, op.reset_side),
-                    );
-                    // Across the barrier the isolation checks and the working voltage rule.
-                    let across = matches!(sides, (Some(a), Some(b)) if a != b);
-                    if !across {
-                        between_sections.push(PairStress {
-                            inner_section: pi,
-                            outer_section: si,
-                            inner: w[pk].name.clone(),
-                            outer: w[k].name.clone(),
-                            // No shared reference is assumed: at worst the two add.
-                            voltage_v: f64::from(pturns + *turns) * vpt,
-                            limit_v: film(pk)
-                                + film(k)
-                                + f64::from(wraps_since) * TAPE_WRAP_WORKING_V,
-                            wraps: wraps_since,
-                        });
-                    }
+                if let Some(prev) = last {
+                    between_sections.extend(section_pair(
+                        w,
+                        op.reset_side,
+                        prev,
+                        (si, k, *turns),
+                        wraps_since,
+                        vpt,
+                    ));
                 }
                 last = Some((si, k, *turns));
                 wraps_since = 0;
@@ -190,5 +173,72 @@ pub fn evaluate(build: &Build, laid: &[Laid], c: &ConverterEval) -> Option<Stres
         layers,
         bifilar,
         between_sections,
+    })
+}
+
+/// The voltage (V) between the turns of a bifilar pair `(k, j)` in section `si`, against
+/// what the two enamel films stand: the switch's off-state voltage for a primary wound with
+/// a reset that clamps to the input, otherwise both windings' turns at the worst V per turn.
+fn bifilar_pair(
+    w: &[Winding],
+    op: &Operating,
+    c: &ConverterEval,
+    si: usize,
+    (k, j): (usize, usize),
+    vpt: f64,
+) -> PairStress {
+    let film = |k: usize| film_working_v(w[k].insulation);
+    let pr = [w[k].role, w[j].role];
+    let v = if op.reset_side == ResetSide::Primary
+        && pr.contains(&Role::Primary)
+        && pr.contains(&Role::Reset)
+    {
+        // The switch end of the primary lies beside the reset's end at the
+        // input rail or ground: the off-state voltage between neighbours.
+        c.switch_voltage_v
+    } else {
+        f64::from(w[k].turns + w[j].turns) * vpt
+    };
+    PairStress {
+        inner_section: si,
+        outer_section: si,
+        inner: w[k].name.clone(),
+        outer: w[j].name.clone(),
+        voltage_v: v,
+        limit_v: film(k) + film(j),
+        wraps: 0,
+    }
+}
+
+/// The voltage (V) between two winding sections on the same side of the barrier, each
+/// `(section, winding, turns)`, against their films and the `wraps` of tape between them;
+/// `None` across the barrier, where the isolation checks rule.
+fn section_pair(
+    w: &[Winding],
+    reset_side: ResetSide,
+    (pi, pk, pturns): (usize, usize, u32),
+    (si, k, turns): (usize, usize, u32),
+    wraps_since: u32,
+    vpt: f64,
+) -> Option<PairStress> {
+    let film = |k: usize| film_working_v(w[k].insulation);
+    let sides = (
+        primary_side(w[pk].role, reset_side),
+        primary_side(w[k].role, reset_side),
+    );
+    // Across the barrier the isolation checks and the working voltage rule.
+    let across = matches!(sides, (Some(a), Some(b)) if a != b);
+    if across {
+        return None;
+    }
+    Some(PairStress {
+        inner_section: pi,
+        outer_section: si,
+        inner: w[pk].name.clone(),
+        outer: w[k].name.clone(),
+        // No shared reference is assumed: at worst the two add.
+        voltage_v: f64::from(pturns + turns) * vpt,
+        limit_v: film(pk) + film(k) + f64::from(wraps_since) * TAPE_WRAP_WORKING_V,
+        wraps: wraps_since,
     })
 }

@@ -4,6 +4,7 @@
 /// McLyman, Transformer and Inductor Design Handbook, 3rd ed. (2004): the rise in C is
 /// `450 psi^0.826` with `psi` the loss per outer surface area in W/cm^2.
 pub const MCLYMAN_COEFF_C: f64 = 450.0;
+/// The exponent of `psi` in McLyman's correlation (same source).
 pub const MCLYMAN_EXPONENT: f64 = 0.826;
 
 /// McLyman (3rd ed.), surface area from the area product: `A_t = K_s Ap^0.5` (cm^2, Ap in
@@ -66,12 +67,16 @@ pub fn class_letter(index_c: f64) -> Option<&'static str> {
 /// The part of the insulation system whose class binds the hot spot.
 #[derive(Debug, Clone, Copy, PartialEq, Eq)]
 pub enum InsulationPart {
+    /// The wire's enamel.
     Wire,
+    /// The insulation tape.
     Tape,
+    /// The bobbin's plastic.
     Bobbin,
 }
 
 impl InsulationPart {
+    /// The word reports and JSON show for it (`wire`, `tape`, `bobbin`).
     pub fn key(self) -> &'static str {
         match self {
             InsulationPart::Wire => "wire",

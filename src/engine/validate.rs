@@ -15,12 +15,15 @@ pub enum Place {
     Top(&'static str),
     /// A key of the bobbin (`window.width_mm`, `tube.diameter_mm`, ...).
     Bobbin(&'static str),
+    /// A key of `[setup]`.
     Setup(&'static str),
     /// A key of the n-th `[[winding]]` (0-based).
     Winding(usize, &'static str),
     /// A key of the n-th `[[stack]]` (0-based).
     Section(usize, &'static str),
+    /// A key of `[operating]` (`""` for the table as a whole).
     Operating(&'static str),
+    /// A key of `[material]`.
     Material(&'static str),
     /// A key of the n-th `[[output]]` (0-based).
     Output(usize, &'static str),
@@ -46,7 +49,9 @@ impl fmt::Display for Place {
 /// One reason a build is refused.
 #[derive(Debug, Clone, PartialEq)]
 pub struct Invalid {
+    /// Where in the build the problem is.
     pub place: Place,
+    /// What is wrong and what would be accepted.
     pub message: String,
 }
 
@@ -59,7 +64,9 @@ impl fmt::Display for Invalid {
 /// Upper bounds that keep a typing slip (an extra digit or three) from laying out millions
 /// of layers: far beyond anything wound by hand on a small bobbin.
 pub const MAX_TURNS: u32 = 10_000;
+/// Most strands in parallel a winding may have.
 pub const MAX_STRANDS: u32 = 100;
+/// Most wraps of tape a tape section or a layer tape may have.
 pub const MAX_WRAPS: u32 = 100;
 
 fn positive(v: f64) -> bool {

@@ -19,7 +19,7 @@ use super::magnetics::{self, AlSource};
 use super::measured_core as core_test;
 use super::resistance::temperature_ratio;
 use crate::library::wires;
-use crate::model::{Build, Name, Role, WireSize};
+use crate::model::{Build, Measured, Name, Role, WireSize};
 
 /// Tolerance on a winding's DC resistance, either way: the copper diameter tolerance of
 /// IEC 60317 (about +/-1 % of the nominal diameter for the sizes wound by hand, from memory;
@@ -57,13 +57,29 @@ pub const WIRE_MATCH: f64 = 0.03;
 #[derive(Debug, Clone, PartialEq)]
 pub enum Quantity {
     /// DC resistance of a winding (ohm).
-    Dcr { winding: Name },
+    Dcr {
+        /// The winding measured.
+        winding: Name,
+    },
     /// Inductance at the first primary, the others open (uH).
-    Magnetising { primary: Name },
+    Magnetising {
+        /// The first primary, where the meter is.
+        primary: Name,
+    },
     /// Inductance at the first primary with the first secondary shorted (uH).
-    Leakage { primary: Name, secondary: Name },
+    Leakage {
+        /// The first primary, where the meter is.
+        primary: Name,
+        /// The first secondary, shorted.
+        secondary: Name,
+    },
     /// A winding's open-circuit voltage over the first primary's.
-    Ratio { winding: Name, primary: Name },
+    Ratio {
+        /// The winding whose voltage is read.
+        winding: Name,
+        /// The first primary, driven.
+        primary: Name,
+    },
 }
 
 /// Where a tolerance comes from (the report says it in words).
@@ -82,14 +98,20 @@ pub enum Basis {
 /// What the plan predicts for one reading, and the band a good part falls in.
 #[derive(Debug, Clone, PartialEq)]
 pub struct Prediction {
+    /// What the reading is of.
     pub quantity: Quantity,
+    /// The value the plan predicts (ohm, uH, or a ratio).
     pub expected: f64,
+    /// Lowest value a part wound as planned reads.
     pub low: f64,
+    /// Highest value a part wound as planned reads.
     pub high: f64,
+    /// Where the band comes from.
     pub basis: Basis,
 }
 
 impl Prediction {
+    /// True when `x` falls within the band (ends included).
     pub fn contains(&self, x: f64) -> bool {
         x >= self.low && x <= self.high
     }
@@ -100,6 +122,7 @@ impl Prediction {
 pub enum Finding {
     /// Less inductance than planned: the core's path has more gap than the plan says.
     GapLarger {
+        /// AL as measured (nH): L / Np^2.
         al_nh: f64,
         /// mu_e = AL le / (mu0 Ae) of the part as measured (IEC 60205).
         mu_e: f64,
@@ -113,44 +136,62 @@ pub enum Finding {
     /// More inductance than planned: AL is above the figure used (another grade, a smaller
     /// gap than stated, or core figures that are off).
     AlHigher {
+        /// AL as measured (nH): L / Np^2.
         al_nh: f64,
+        /// mu_e = AL le / (mu0 Ae) of the part as measured (IEC 60205).
         mu_e: f64,
+        /// The whole effective gap (mm), when the material's mu_i is known.
         total_gap_mm: Option<f64>,
+        /// The plan has a gap (so a smaller one explains the reading).
         gapped: bool,
     },
     /// The ratio points at a whole turns count other than the plan's on `winding`.
     TurnsOff {
+        /// The winding whose turns are off.
         winding: Name,
+        /// Its turns in the plan.
         planned: u32,
+        /// The whole turns count the ratio points at.
         likely: u32,
     },
     /// The ratio matches no whole turns count on either winding (meter, wiring, a short).
-    RatioUnexplained { implied_turns: f64 },
+    RatioUnexplained {
+        /// The turns the ratio implies on the winding (not a whole number).
+        implied_turns: f64,
+    },
     /// The resistance of a winding is off: a wire size or a length.
     ResistanceOff {
         /// Measured over expected, both at the reading temperature.
         factor: f64,
+        /// The plan's bare diameter (mm).
         planned_bare_mm: f64,
         /// The diameter that gives the measured resistance over the planned length.
         implied_bare_mm: f64,
         /// A wire size of the plan's series within `WIRE_MATCH` of the implied diameter.
         likely_wire: Option<WireSize>,
+        /// The plan's wire length of the winding (m).
         planned_length_m: f64,
         /// The length that gives the measured resistance with the planned wire.
         implied_length_m: f64,
     },
     /// Measured over estimated leakage: a correction the user may keep for the next build on
     /// this bobbin with the same arrangement.
-    LeakageFactor { factor: f64 },
+    LeakageFactor {
+        /// Measured over estimated leakage inductance.
+        factor: f64,
+    },
 }
 
 /// One reading set against its prediction.
 #[derive(Debug, Clone, PartialEq)]
 pub struct ReadingCheck {
+    /// What the reading is of.
     pub quantity: Quantity,
+    /// The reading (ohm, uH, or a ratio).
     pub measured: f64,
     /// `None` when the plan cannot predict it (no core figures for an inductance).
     pub prediction: Option<Prediction>,
+    /// What the reading most likely means, when it is out (and the leakage correction).
     pub findings: Vec<Finding>,
 }
 
@@ -169,15 +210,20 @@ impl ReadingCheck {
     }
 }
 
+/// The `[measured]` table's readings, each against the plan's prediction.
 #[derive(Debug, Clone, PartialEq)]
 pub struct Verification {
     /// Temperature the resistances are compared at (C).
     pub reading_c: f64,
     /// The table gave no `reading_c`; the bench default was taken.
     pub reading_c_assumed: bool,
+    /// The inductance meter's test frequency (kHz), when given.
     pub frequency_khz: Option<f64>,
+    /// Every reading: the DCRs, magnetising, leakage, then the ratios.
     pub checks: Vec<ReadingCheck>,
+    /// The hipot result as recorded (not judged).
     pub hipot: Option<String>,
+    /// The user's note on the readings.
     pub note: Option<String>,
 }
 
@@ -187,6 +233,7 @@ impl Verification {
         self.checks.iter().all(|c| c.within() != Some(false))
     }
 
+    /// The readings out of their tolerance.
     pub fn out_of_tolerance(&self) -> impl Iterator<Item = &ReadingCheck> {
         self.checks.iter().filter(|c| c.within() == Some(false))
     }
@@ -279,35 +326,7 @@ pub fn verify(build: &Build, eval: &Evaluation) -> Option<Verification> {
     let preds = predictions(build, eval, at_c);
     let find = |q: &Quantity| preds.iter().find(|p| p.quantity == *q).cloned();
     let mut checks = Vec::new();
-    for (name, r) in &m.dcr_ohm {
-        let quantity = Quantity::Dcr {
-            winding: name.clone(),
-        };
-        let prediction = find(&quantity);
-        let mut findings = Vec::new();
-        if let (Some(p), Some(e)) = (&prediction, eval.windings.iter().find(|e| e.name == *name))
-            && !p.contains(*r)
-            && p.expected > 0.0
-        {
-            let factor = r / p.expected;
-            let implied_bare_mm = e.bare_mm / factor.sqrt();
-            let size = build.winding(name).map(|w| w.wire);
-            findings.push(Finding::ResistanceOff {
-                factor,
-                planned_bare_mm: e.bare_mm,
-                implied_bare_mm,
-                likely_wire: size.and_then(|s| likely_wire(s, e.bare_mm, implied_bare_mm)),
-                planned_length_m: e.length_m,
-                implied_length_m: e.length_m * factor,
-            });
-        }
-        checks.push(ReadingCheck {
-            quantity,
-            measured: *r,
-            prediction,
-            findings,
-        });
-    }
+    dcr_checks(build, eval, m, &find, &mut checks);
     let primary = build.first_of(Role::Primary);
     if let (Some(l), Some(p)) = (m.magnetising_uh, primary) {
         let quantity = Quantity::Magnetising {
@@ -378,6 +397,46 @@ pub fn verify(build: &Build, eval: &Evaluation) -> Option<Verification> {
         hipot: m.hipot.clone(),
         note: m.note.clone(),
     })
+}
+
+/// Each DCR reading (ohm) against its prediction; one off its tolerance says what bare
+/// diameter (mm) or length (m) of wire would read so.
+fn dcr_checks(
+    build: &Build,
+    eval: &Evaluation,
+    m: &Measured,
+    find: &dyn Fn(&Quantity) -> Option<Prediction>,
+    checks: &mut Vec<ReadingCheck>,
+) {
+    for (name, r) in &m.dcr_ohm {
+        let quantity = Quantity::Dcr {
+            winding: name.clone(),
+        };
+        let prediction = find(&quantity);
+        let mut findings = Vec::new();
+        if let (Some(p), Some(e)) = (&prediction, eval.windings.iter().find(|e| e.name == *name))
+            && !p.contains(*r)
+            && p.expected > 0.0
+        {
+            let factor = r / p.expected;
+            let implied_bare_mm = e.bare_mm / factor.sqrt();
+            let size = build.winding(name).map(|w| w.wire);
+            findings.push(Finding::ResistanceOff {
+                factor,
+                planned_bare_mm: e.bare_mm,
+                implied_bare_mm,
+                likely_wire: size.and_then(|s| likely_wire(s, e.bare_mm, implied_bare_mm)),
+                planned_length_m: e.length_m,
+                implied_length_m: e.length_m * factor,
+            });
+        }
+        checks.push(ReadingCheck {
+            quantity,
+            measured: *r,
+            prediction,
+            findings,
+        });
+    }
 }
 
 /// What a magnetising inductance `measured_uh` off its prediction says of the core's gap.

@@ -35,57 +35,7 @@ pub(super) fn collect(build: &Build, problems: &[Invalid], eval: &mut Evaluation
             },
         );
     }
-    let last_winding = eval
-        .sections
-        .iter()
-        .rposition(|s| matches!(s.kind, SectionKind::Winding { .. }));
-    for (i, s) in eval.sections.iter().enumerate() {
-        let SectionKind::Winding {
-            winding,
-            turns_per_layer,
-            last_layer_turns,
-            layer_count,
-            pitch_mm,
-            ..
-        } = &s.kind
-        else {
-            continue;
-        };
-        if s.past_window {
-            warn(
-                WarningAt::Section(i),
-                WarningKind::PastWindow {
-                    section: i,
-                    winding: winding.clone(),
-                },
-            );
-        }
-        if *layer_count > 0 && last_layer_turns < turns_per_layer && Some(i) != last_winding {
-            warn(
-                WarningAt::Section(i),
-                WarningKind::PartialLayer {
-                    section: i,
-                    winding: winding.clone(),
-                    last_layer_turns: *last_layer_turns,
-                    turns_per_layer: *turns_per_layer,
-                },
-            );
-        }
-        let spare = eval.usable_width_mm - f64::from(*turns_per_layer) * pitch_mm;
-        if build.setup.margin_mm > 0.0
-            && *layer_count > 1
-            && spare < MARGIN_CROWDING_PITCHES * pitch_mm
-        {
-            warn(
-                WarningAt::Section(i),
-                WarningKind::MarginCrowded {
-                    section: i,
-                    winding: winding.clone(),
-                    spare_mm: spare,
-                },
-            );
-        }
-    }
+    section_warnings(build, eval, &mut warn);
     if eval.fill_factor > FILL_FACTOR_HAND_LIMIT {
         warn(
             WarningAt::Build,
@@ -142,6 +92,68 @@ pub(super) fn collect(build: &Build, problems: &[Invalid], eval: &mut Evaluation
     }
 }
 
+/// Per winding section: past the window, a partial layer below another section, and a full
+/// layer crowding the margin tape (less than `MARGIN_CROWDING_PITCHES` of a pitch spare).
+fn section_warnings(
+    build: &Build,
+    eval: &Evaluation,
+    warn: &mut impl FnMut(WarningAt, WarningKind),
+) {
+    let last_winding = eval
+        .sections
+        .iter()
+        .rposition(|s| matches!(s.kind, SectionKind::Winding { .. }));
+    for (i, s) in eval.sections.iter().enumerate() {
+        let SectionKind::Winding {
+            winding,
+            turns_per_layer,
+            last_layer_turns,
+            layer_count,
+            pitch_mm,
+            ..
+        } = &s.kind
+        else {
+            continue;
+        };
+        if s.past_window {
+            warn(
+                WarningAt::Section(i),
+                WarningKind::PastWindow {
+                    section: i,
+                    winding: winding.clone(),
+                },
+            );
+        }
+        if *layer_count > 0 && last_layer_turns < turns_per_layer && Some(i) != last_winding {
+            warn(
+                WarningAt::Section(i),
+                WarningKind::PartialLayer {
+                    section: i,
+                    winding: winding.clone(),
+                    last_layer_turns: *last_layer_turns,
+                    turns_per_layer: *turns_per_layer,
+                },
+            );
+        }
+        let spare = eval.usable_width_mm - f64::from(*turns_per_layer) * pitch_mm;
+        if build.setup.margin_mm > 0.0
+            && *layer_count > 1
+            && spare < MARGIN_CROWDING_PITCHES * pitch_mm
+        {
+            warn(
+                WarningAt::Section(i),
+                WarningKind::MarginCrowded {
+                    section: i,
+                    winding: winding.clone(),
+                    spare_mm: spare,
+                },
+            );
+        }
+    }
+}
+
+/// The converter's warnings: duty short of what the lowest input needs, a secondary-side
+/// reset that cannot settle, and a flux swing past the headroom to saturation (mT).
 fn converter_warnings(
     c: &super::converter::ConverterEval,
     warn: &mut impl FnMut(WarningAt, WarningKind),
@@ -271,46 +283,7 @@ fn operating_warnings(
         );
     }
     if let Some(st) = &eval.stress {
-        for ls in st.layers.iter().filter(|x| x.voltage_v > x.limit_v) {
-            warn(
-                WarningAt::Section(ls.section),
-                WarningKind::LayerVoltage {
-                    section: ls.section,
-                    winding: ls.winding.clone(),
-                    volts: ls.voltage_v,
-                    limit_v: ls.limit_v,
-                    layer_tape: ls.layer_tape,
-                },
-            );
-        }
-        for b in st.bifilar.iter().filter(|x| x.voltage_v > x.limit_v) {
-            warn(
-                WarningAt::Section(b.inner_section),
-                WarningKind::BifilarVoltage {
-                    section: b.inner_section,
-                    a: b.inner.clone(),
-                    b: b.outer.clone(),
-                    volts: b.voltage_v,
-                    limit_v: b.limit_v,
-                },
-            );
-        }
-        for p in st
-            .between_sections
-            .iter()
-            .filter(|x| x.voltage_v > x.limit_v)
-        {
-            warn(
-                WarningAt::Section(p.outer_section),
-                WarningKind::SectionVoltage {
-                    inner: (p.inner_section, p.inner.clone()),
-                    outer: (p.outer_section, p.outer.clone()),
-                    volts: p.voltage_v,
-                    limit_v: p.limit_v,
-                    wraps: p.wraps,
-                },
-            );
-        }
+        stress_warnings(st, warn);
     }
     let Some(c) = &eval.converter else {
         return;
@@ -330,5 +303,49 @@ fn operating_warnings(
         if !l.windings_without_current.is_empty() {
             notes.push(Note::NoCurrent(l.windings_without_current.clone()));
         }
+    }
+}
+
+/// Layer, bifilar and section-to-section voltages (V) above what their enamel and tape stand.
+fn stress_warnings(st: &super::stress::StressEval, warn: &mut impl FnMut(WarningAt, WarningKind)) {
+    for ls in st.layers.iter().filter(|x| x.voltage_v > x.limit_v) {
+        warn(
+            WarningAt::Section(ls.section),
+            WarningKind::LayerVoltage {
+                section: ls.section,
+                winding: ls.winding.clone(),
+                volts: ls.voltage_v,
+                limit_v: ls.limit_v,
+                layer_tape: ls.layer_tape,
+            },
+        );
+    }
+    for b in st.bifilar.iter().filter(|x| x.voltage_v > x.limit_v) {
+        warn(
+            WarningAt::Section(b.inner_section),
+            WarningKind::BifilarVoltage {
+                section: b.inner_section,
+                a: b.inner.clone(),
+                b: b.outer.clone(),
+                volts: b.voltage_v,
+                limit_v: b.limit_v,
+            },
+        );
+    }
+    for p in st
+        .between_sections
+        .iter()
+        .filter(|x| x.voltage_v > x.limit_v)
+    {
+        warn(
+            WarningAt::Section(p.outer_section),
+            WarningKind::SectionVoltage {
+                inner: (p.inner_section, p.inner.clone()),
+                outer: (p.outer_section, p.outer.clone()),
+                volts: p.voltage_v,
+                limit_v: p.limit_v,
+                wraps: p.wraps,
+            },
+        );
     }
 }

@@ -3,14 +3,19 @@
 use std::fmt;
 use std::path::{Path, PathBuf};
 
+/// A problem with a build, bobbin or readings file: the file, line:column and key where it
+/// is, and what was expected, printed as one line (`file:line:col: key: message`).
 #[derive(Debug, Clone, PartialEq)]
 pub struct LoadError {
+    /// The file, when the text came from one.
     pub path: Option<PathBuf>,
     /// 1-based line and column, where known.
     pub line: Option<usize>,
+    /// 1-based column, where known.
     pub column: Option<usize>,
     /// The key the problem is about, e.g. `winding #2 turns`.
     pub key: Option<String>,
+    /// What is wrong and what was expected, in words a user can act on.
     pub message: String,
     /// The offending source line, for a caret display.
     pub source_line: Option<String>,
@@ -21,6 +26,7 @@ pub struct LoadError {
 impl std::error::Error for LoadError {}
 
 impl LoadError {
+    /// The error of a file that cannot be read ("no such file" for a missing one).
     pub fn io(path: &Path, e: &std::io::Error) -> Self {
         let why = match e.kind() {
             std::io::ErrorKind::NotFound => "no such file".to_string(),

@@ -342,92 +342,8 @@ fn same_table(b: &Table, g: &Table, path: &str) -> bool {
 fn merge_array(b: &mut ArrayOfTables, g: &ArrayOfTables, path: &str) {
     let old: Vec<Table> = b.iter().cloned().collect();
     let new: Vec<&Table> = g.iter().collect();
-    let same = |o: &Table, n: &Table| -> bool {
-        if path == "winding" || path == "output" {
-            o.get("name").and_then(Item::as_str).is_some()
-                && o.get("name").and_then(Item::as_str) == n.get("name").and_then(Item::as_str)
-        } else {
-            same_table(o, n, path)
-        }
-    };
-    // Longest common subsequence of equal entries.
     let (m, n) = (old.len(), new.len());
-    let mut lcs = vec![vec![0usize; n + 1]; m + 1];
-    for i in (0..m).rev() {
-        for j in (0..n).rev() {
-            lcs[i][j] = if same(&old[i], new[j]) {
-                lcs[i + 1][j + 1] + 1
-            } else {
-                lcs[i + 1][j].max(lcs[i][j + 1])
-            };
-        }
-    }
-    let mut pairs: Vec<Option<usize>> = vec![None; n];
-    // The runs of entries between two common ones: (old indices, new indices).
-    let mut gaps: Vec<(Vec<usize>, Vec<usize>)> = vec![(Vec::new(), Vec::new())];
-    let (mut i, mut j) = (0, 0);
-    while i < m || j < n {
-        if i < m && j < n && same(&old[i], new[j]) && lcs[i][j] == lcs[i + 1][j + 1] + 1 {
-            pairs[j] = Some(i);
-            gaps.push((Vec::new(), Vec::new()));
-            i += 1;
-            j += 1;
-        } else if j < n && (i == m || lcs[i][j + 1] >= lcs[i + 1][j]) {
-            gaps.last_mut().unwrap().1.push(j);
-            j += 1;
-        } else {
-            gaps.last_mut().unwrap().0.push(i);
-            i += 1;
-        }
-    }
-    // An entry moved elsewhere keeps its text (and the comments above it): first one that
-    // says the same, then one of the same kind (the same winding and partner, or tape).
-    let kin = |o: &Table, n: &Table| -> bool {
-        let s = |t: &Table, k: &str| t.get(k).and_then(Item::as_str).map(str::to_string);
-        s(o, "winding") == s(n, "winding")
-            && s(o, "with") == s(n, "with")
-            && o.contains_key("tape") == n.contains_key("tape")
-    };
-    let mut used = vec![false; m];
-    pairs.iter().flatten().for_each(|&o| used[o] = true);
-    // Each looked for in the same run first, then anywhere.
-    for alike in [&same as &dyn Fn(&Table, &Table) -> bool, &kin] {
-        for (local, gi) in [true, false]
-            .into_iter()
-            .flat_map(|l| (0..gaps.len()).map(move |g| (l, g)))
-        {
-            for &jn in &gaps[gi].1 {
-                if pairs[jn].is_some() {
-                    continue;
-                }
-                let moved = gaps
-                    .iter()
-                    .enumerate()
-                    .filter(|(gk, _)| !local || *gk == gi)
-                    .flat_map(|(_, (olds, _))| olds.iter().copied())
-                    .find(|&o| !used[o] && alike(&old[o], new[jn]));
-                if let Some(o) = moved {
-                    used[o] = true;
-                    pairs[jn] = Some(o);
-                }
-            }
-        }
-    }
-    // What is left in a run is the same entry edited, in order.
-    for (olds, news) in &gaps {
-        let olds = olds.iter().filter(|&&o| !used[o]);
-        let news = news.iter().filter(|&&jn| pairs[jn].is_none());
-        for (&o, &jn) in olds.zip(news).collect::<Vec<_>>() {
-            used[o] = true;
-            pairs[jn] = Some(o);
-        }
-    }
-    // Then any left over, in order (an entry both moved and edited).
-    let olds: Vec<usize> = (0..m).filter(|&o| !used[o]).collect();
-    let news: Vec<usize> = (0..n).filter(|&jn| pairs[jn].is_none()).collect();
-    for (&o, &jn) in olds.iter().zip(news.iter()) {
-        pairs[jn] = Some(o);
-    }
+    let pairs = pair_entries(&old, &new, path);
     let mut out = ArrayOfTables::new();
     for (jn, gt) in new.iter().enumerate() {
         match pairs[jn] {
@@ -458,6 +374,123 @@ fn merge_array(b: &mut ArrayOfTables, g: &ArrayOfTables, path: &str) {
         }
     }
     *b = out;
+}
+
+/// For each generated entry, the base entry whose text it keeps (`None`: a new entry):
+/// the common ones in order, then moved ones, then edited ones left in a run, then any left.
+fn pair_entries(old: &[Table], new: &[&Table], path: &str) -> Vec<Option<usize>> {
+    let same = |o: &Table, n: &Table| -> bool {
+        if path == "winding" || path == "output" {
+            o.get("name").and_then(Item::as_str).is_some()
+                && o.get("name").and_then(Item::as_str) == n.get("name").and_then(Item::as_str)
+        } else {
+            same_table(o, n, path)
+        }
+    };
+    let (m, n) = (old.len(), new.len());
+    let (mut pairs, gaps) = common_runs(old, new, &same);
+    let mut used = vec![false; m];
+    pairs.iter().flatten().for_each(|&o| used[o] = true);
+    pair_moved(old, new, &gaps, &mut pairs, &mut used, &same);
+    // What is left in a run is the same entry edited, in order.
+    for (olds, news) in &gaps {
+        let olds = olds.iter().filter(|&&o| !used[o]);
+        let news = news.iter().filter(|&&jn| pairs[jn].is_none());
+        for (&o, &jn) in olds.zip(news).collect::<Vec<_>>() {
+            used[o] = true;
+            pairs[jn] = Some(o);
+        }
+    }
+    // Then any left over, in order (an entry both moved and edited).
+    let olds: Vec<usize> = (0..m).filter(|&o| !used[o]).collect();
+    let news: Vec<usize> = (0..n).filter(|&jn| pairs[jn].is_none()).collect();
+    for (&o, &jn) in olds.iter().zip(news.iter()) {
+        pairs[jn] = Some(o);
+    }
+    pairs
+}
+
+/// The entries `same` pairs along the longest common subsequence, and the runs of entries
+/// between two common ones: (old indices, new indices).
+#[allow(clippy::type_complexity)]
+fn common_runs(
+    old: &[Table],
+    new: &[&Table],
+    same: &dyn Fn(&Table, &Table) -> bool,
+) -> (Vec<Option<usize>>, Vec<(Vec<usize>, Vec<usize>)>) {
+    // Longest common subsequence of equal entries.
+    let (m, n) = (old.len(), new.len());
+    let mut lcs = vec![vec![0usize; n + 1]; m + 1];
+    for i in (0..m).rev() {
+        for j in (0..n).rev() {
+            lcs[i][j] = if same(&old[i], new[j]) {
+                lcs[i + 1][j + 1] + 1
+            } else {
+                lcs[i + 1][j].max(lcs[i][j + 1])
+            };
+        }
+    }
+    let mut pairs: Vec<Option<usize>> = vec![None; n];
+    // The runs of entries between two common ones: (old indices, new indices).
+    let mut gaps: Vec<(Vec<usize>, Vec<usize>)> = vec![(Vec::new(), Vec::new())];
+    let (mut i, mut j) = (0, 0);
+    while i < m || j < n {
+        if i < m && j < n && same(&old[i], new[j]) && lcs[i][j] == lcs[i + 1][j + 1] + 1 {
+            pairs[j] = Some(i);
+            gaps.push((Vec::new(), Vec::new()));
+            i += 1;
+            j += 1;
+        } else if j < n && (i == m || lcs[i][j + 1] >= lcs[i + 1][j]) {
+            gaps.last_mut().unwrap().1.push(j);
+            j += 1;
+        } else {
+            gaps.last_mut().unwrap().0.push(i);
+            i += 1;
+        }
+    }
+    (pairs, gaps)
+}
+
+/// Pairs a new entry left over with an old one moved elsewhere.
+fn pair_moved(
+    old: &[Table],
+    new: &[&Table],
+    gaps: &[(Vec<usize>, Vec<usize>)],
+    pairs: &mut [Option<usize>],
+    used: &mut [bool],
+    same: &dyn Fn(&Table, &Table) -> bool,
+) {
+    // An entry moved elsewhere keeps its text (and the comments above it): first one that
+    // says the same, then one of the same kind (the same winding and partner, or tape).
+    let kin = |o: &Table, n: &Table| -> bool {
+        let s = |t: &Table, k: &str| t.get(k).and_then(Item::as_str).map(str::to_string);
+        s(o, "winding") == s(n, "winding")
+            && s(o, "with") == s(n, "with")
+            && o.contains_key("tape") == n.contains_key("tape")
+    };
+    // Each looked for in the same run first, then anywhere.
+    for alike in [same, &kin as &dyn Fn(&Table, &Table) -> bool] {
+        for (local, gi) in [true, false]
+            .into_iter()
+            .flat_map(|l| (0..gaps.len()).map(move |g| (l, g)))
+        {
+            for &jn in &gaps[gi].1 {
+                if pairs[jn].is_some() {
+                    continue;
+                }
+                let moved = gaps
+                    .iter()
+                    .enumerate()
+                    .filter(|(gk, _)| !local || *gk == gi)
+                    .flat_map(|(_, (olds, _))| olds.iter().copied())
+                    .find(|&o| !used[o] && alike(&old[o], new[jn]));
+                if let Some(o) = moved {
+                    used[o] = true;
+                    pairs[jn] = Some(o);
+                }
+            }
+        }
+    }
 }
 
 fn set_prefix(t: &mut Table, prefix: Option<toml_edit::RawString>) {

@@ -18,15 +18,21 @@ pub fn user_bobbin_dir() -> Option<PathBuf> {
     }
 }
 
+/// Where a bobbin file of the library was found (in lookup order).
 #[derive(Debug, Clone, PartialEq)]
 pub enum BobbinOrigin {
+    /// In the `bobbins/` folder beside the build file (that folder).
     BesideBuild(PathBuf),
+    /// In the user's bobbin folder (that folder).
     User(PathBuf),
+    /// In a folder added with `BobbinLibrary::with_folder` (that folder).
     Folder(PathBuf),
+    /// In the set compiled into the program.
     Bundled,
 }
 
 impl BobbinOrigin {
+    /// The few words lists show for the origin ("beside the build", "bundled", ...).
     pub fn label(&self) -> &'static str {
         match self {
             BobbinOrigin::BesideBuild(_) => "beside the build",
@@ -37,16 +43,22 @@ impl BobbinOrigin {
     }
 }
 
+/// One bobbin of the library: its id, where it was found and the bobbin, or why its file
+/// cannot be read.
 #[derive(Debug, Clone)]
 pub struct BobbinEntry {
+    /// The id a build names it by (the file name without `.toml`).
     pub id: String,
+    /// Where it was found.
     pub origin: BobbinOrigin,
+    /// The bobbin, or the error of its file.
     pub bobbin: Result<Bobbin, LoadError>,
 }
 
 /// How a folder's entries are labelled.
 type Labeller = fn(PathBuf) -> BobbinOrigin;
 
+/// The folders bobbins are looked up in, in order, and whether the bundled set follows.
 #[derive(Debug, Clone, Default)]
 pub struct BobbinLibrary {
     folders: Vec<(PathBuf, Labeller)>,

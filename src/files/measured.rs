@@ -50,14 +50,6 @@ pub(super) fn convert(
             None => Ok(None),
         }
     };
-    let names = windings
-        .iter()
-        .map(|w| w.name.to_string())
-        .collect::<Vec<_>>()
-        .join(", ");
-    let primary = windings.iter().find(|w| w.role == Role::Primary);
-    let secondary = windings.iter().find(|w| w.role == Role::Secondary);
-
     if let Some(r) = &t.reading_c {
         let c = *r.get_ref();
         if !(c.is_finite() && c >= READING_C_RANGE.0 && c <= READING_C_RANGE.1) {
@@ -74,6 +66,36 @@ pub(super) fn convert(
     let frequency_khz = positive(&t.frequency_khz, "measured.frequency_khz")?;
     let magnetising_uh = positive(&t.magnetising_uh, "measured.magnetising_uh")?;
     let leakage_uh = positive(&t.leakage_uh, "measured.leakage_uh")?;
+    check_inductances(text, path, &t, magnetising_uh, windings)?;
+
+    let dcr_ohm = by_winding(text, path, windings, t.dcr_ohm, "measured.dcr_ohm", false)?;
+    let ratio = by_winding(text, path, windings, t.ratio, "measured.ratio", true)?;
+    Ok(Some(Measured {
+        reading_c: t.reading_c.map(Spanned::into_inner),
+        frequency_khz,
+        dcr_ohm,
+        magnetising_uh,
+        leakage_uh,
+        ratio,
+        hipot: t.hipot,
+        note: t.note,
+    }))
+}
+
+/// The bench inductances against the windings: magnetising needs a primary, leakage a
+/// primary and a secondary, and leakage (uH) must read below magnetising (uH).
+fn check_inductances(
+    text: &str,
+    path: Option<&Path>,
+    t: &MeasuredTable,
+    magnetising_uh: Option<f64>,
+    windings: &[Winding],
+) -> Result<(), LoadError> {
+    let err = |span: std::ops::Range<usize>, key: &str, message: String| {
+        LoadError::at(text, path, Some(span), Some(key.to_string()), message)
+    };
+    let primary = windings.iter().find(|w| w.role == Role::Primary);
+    let secondary = windings.iter().find(|w| w.role == Role::Secondary);
     if let (Some(m), None) = (&t.magnetising_uh, primary) {
         return Err(err(
             m.span(),
@@ -105,57 +127,62 @@ pub(super) fn convert(
             ));
         }
     }
+    Ok(())
+}
 
-    let by_winding = |map: Option<Spanned<BTreeMap<String, Spanned<f64>>>>,
-                      key: &str,
-                      refuse_primary: bool|
-     -> Result<Vec<(Name, f64)>, LoadError> {
-        let Some(map) = map else {
-            return Ok(Vec::new());
-        };
-        let mut out: Vec<(usize, Name, f64)> = Vec::new();
-        for (name, v) in map.into_inner() {
-            let place = format!("{key}.{name}");
-            let Some(i) = windings.iter().position(|w| *w.name == *name) else {
-                return Err(err(
-                    v.span(),
-                    &place,
-                    format!("unknown winding \"{name}\"; the windings are {names}"),
-                ));
-            };
-            if refuse_primary && primary.is_some_and(|p| p.name == windings[i].name) {
-                return Err(err(
-                    v.span(),
-                    &place,
-                    format!(
-                        "the ratio is a winding's voltage over the first primary's ({name}); \
-                         give it for the other windings"
-                    ),
-                ));
-            }
-            let x = *v.get_ref();
-            if !(x.is_finite() && x > 0.0) {
-                return Err(err(
-                    v.span(),
-                    &place,
-                    format!("must be a number above 0, not {x}"),
-                ));
-            }
-            out.push((i, windings[i].name.clone(), x));
-        }
-        out.sort_by_key(|(i, _, _)| *i);
-        Ok(out.into_iter().map(|(_, n, x)| (n, x)).collect())
+/// A table of one figure per winding (`dcr_ohm`, `ratio`) as (winding, value) in the
+/// windings' order; refuses an unknown name, a value not above 0 and, with
+/// `refuse_primary`, the first primary itself.
+fn by_winding(
+    text: &str,
+    path: Option<&Path>,
+    windings: &[Winding],
+    map: Option<Spanned<BTreeMap<String, Spanned<f64>>>>,
+    key: &str,
+    refuse_primary: bool,
+) -> Result<Vec<(Name, f64)>, LoadError> {
+    let err = |span: std::ops::Range<usize>, key: &str, message: String| {
+        LoadError::at(text, path, Some(span), Some(key.to_string()), message)
     };
-    let dcr_ohm = by_winding(t.dcr_ohm, "measured.dcr_ohm", false)?;
-    let ratio = by_winding(t.ratio, "measured.ratio", true)?;
-    Ok(Some(Measured {
-        reading_c: t.reading_c.map(Spanned::into_inner),
-        frequency_khz,
-        dcr_ohm,
-        magnetising_uh,
-        leakage_uh,
-        ratio,
-        hipot: t.hipot,
-        note: t.note,
-    }))
+    let names = windings
+        .iter()
+        .map(|w| w.name.to_string())
+        .collect::<Vec<_>>()
+        .join(", ");
+    let primary = windings.iter().find(|w| w.role == Role::Primary);
+    let Some(map) = map else {
+        return Ok(Vec::new());
+    };
+    let mut out: Vec<(usize, Name, f64)> = Vec::new();
+    for (name, v) in map.into_inner() {
+        let place = format!("{key}.{name}");
+        let Some(i) = windings.iter().position(|w| *w.name == *name) else {
+            return Err(err(
+                v.span(),
+                &place,
+                format!("unknown winding \"{name}\"; the windings are {names}"),
+            ));
+        };
+        if refuse_primary && primary.is_some_and(|p| p.name == windings[i].name) {
+            return Err(err(
+                v.span(),
+                &place,
+                format!(
+                    "the ratio is a winding's voltage over the first primary's ({name}); \
+                     give it for the other windings"
+                ),
+            ));
+        }
+        let x = *v.get_ref();
+        if !(x.is_finite() && x > 0.0) {
+            return Err(err(
+                v.span(),
+                &place,
+                format!("must be a number above 0, not {x}"),
+            ));
+        }
+        out.push((i, windings[i].name.clone(), x));
+    }
+    out.sort_by_key(|(i, _, _)| *i);
+    Ok(out.into_iter().map(|(_, n, x)| (n, x)).collect())
 }

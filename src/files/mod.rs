@@ -1,6 +1,7 @@
 //! Loading build and bobbin files with clear errors, bobbin lookup, and atomic saving.
 //! The only module besides the front ends that touches the file system.
 
+#![warn(missing_docs)]
 mod build_id;
 mod convert;
 mod demo;

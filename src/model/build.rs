@@ -2,17 +2,25 @@
 
 use super::{Bobbin, Conductor, Insulation, Isolation, Material, Name, Operating, WireSize};
 
+/// What a winding does in the forward converter; the engine finds the primary, secondary
+/// and reset by it.
 #[derive(Debug, Clone, Copy, PartialEq, Eq, Hash)]
 pub enum Role {
+    /// Driven by the switch from the input.
     Primary,
+    /// Feeds the output rectifier.
     Secondary,
+    /// Returns the magnetising energy each cycle (wound bifilar with the primary as a rule).
     Reset,
+    /// Any other winding (bias supply, sense); carries no current in the converter figures.
     Auxiliary,
 }
 
 impl Role {
+    /// Every role, in the order the planner cycles through them.
     pub const ALL: [Role; 4] = [Role::Primary, Role::Secondary, Role::Reset, Role::Auxiliary];
 
+    /// The word used in build files (`primary`, `secondary`, `reset`, `auxiliary`).
     pub fn key(self) -> &'static str {
         match self {
             Role::Primary => "primary",
@@ -22,6 +30,7 @@ impl Role {
         }
     }
 
+    /// The role a build file's word names; `None` for an unknown word.
     pub fn from_key(s: &str) -> Option<Self> {
         Self::ALL.into_iter().find(|r| r.key() == s)
     }
@@ -30,13 +39,16 @@ impl Role {
 /// Where the bobbin came from: a library id (saved as `bobbin = "id"`) or written inline.
 #[derive(Debug, Clone, PartialEq)]
 pub enum BobbinSource {
+    /// A bobbin looked up by id (beside the build, the user's folder, then the bundled set).
     Id(String),
+    /// Written out in the build file's own `[bobbin]` table.
     Inline,
 }
 
 /// Every key optional in the file; these are the values after defaults.
 #[derive(Debug, Clone, PartialEq)]
 pub struct Setup {
+    /// Winding temperature at which resistances are worked out (C); default 20.
     pub temperature_c: f64,
     /// The file (or the user) gave `temperature_c`; without it, and with an operating point
     /// whose rise can be predicted, the engine takes the windings at ambient + rise.
@@ -44,11 +56,17 @@ pub struct Setup {
     /// Thermal class (IEC 60085 temperature index, C) of the wire's enamel, the tape and the
     /// bobbin; `None` takes the engine's defaults (`engine::thermal`).
     pub wire_class_c: Option<f64>,
+    /// Thermal class of the insulation tape (C); `None` takes the engine's default.
     pub tape_class_c: Option<f64>,
+    /// Thermal class of the bobbin's plastic (C); `None` takes the engine's default.
     pub bobbin_class_c: Option<f64>,
+    /// Allowance multiplied onto the build height for hand winding (1.0-2.0; default 1.10).
     pub bulge: f64,
+    /// Width of margin tape at each flange (mm); winding sections lose twice this of width.
     pub margin_mm: f64,
+    /// Thickness of one wrap of insulation tape (mm); default 0.06.
     pub tape_mm: f64,
+    /// Switching frequency (kHz) for the AC figures; `None` leaves them out.
     pub frequency_khz: Option<f64>,
     /// The `[measured]` table (bench readings), kept here so every builder of a Build gets it
     /// from `Setup::default()`; read it through `Build::measured`.
@@ -75,18 +93,25 @@ impl Default for Setup {
 /// One winding: its name, role, turns and conductor.
 #[derive(Debug, Clone, PartialEq)]
 pub struct Winding {
+    /// The name sections and readings refer to it by (unique in a build).
     pub name: Name,
+    /// What it does in the converter.
     pub role: Role,
+    /// Total turns, over every section that carries it.
     pub turns: u32,
     /// Round wire's size; for litz the strand's, for foil a placeholder (see [`Conductor`]).
     pub wire: WireSize,
+    /// The enamel grade, or triple-insulated wire.
     pub insulation: Insulation,
     /// Round wires in parallel; for litz, bundles in parallel; 1 for foil.
     pub strands: u32,
     /// Round wire, foil or litz (see [`Conductor`] for how `wire` and `strands` read).
     pub conductor: Conductor,
+    /// RMS current (A) when the file gives it; otherwise the operating point sets it.
     pub current_rms_a: Option<f64>,
+    /// Label of the pin the winding starts on, for the sheet.
     pub start_pin: Option<String>,
+    /// Label of the pin the winding finishes on, for the sheet.
     pub finish_pin: Option<String>,
 }
 
@@ -95,48 +120,71 @@ pub struct Winding {
 /// tape).
 #[derive(Debug, Clone, Copy, Default, PartialEq, Eq)]
 pub struct SectionRef {
+    /// The section's winding.
     pub winding: Option<usize>,
     /// The bifilar partner.
     pub with: Option<usize>,
+    /// Turns of this section (0 for tape).
     pub turns: u32,
 }
 
 /// One winding section of the stack (optionally bifilar with a second winding).
 #[derive(Debug, Clone, PartialEq)]
 pub struct WindingSection {
+    /// Name of the winding whose turns this section carries.
     pub winding: String,
     /// This section's share; `None` takes what is left (see `Build::section_turns`).
     pub turns: Option<u32>,
+    /// Name of the bifilar partner wound in the same turns, when there is one.
     pub with: Option<String>,
     /// Wraps of tape between the layers of this section.
     pub layer_tape: u32,
 }
 
+/// One entry of the stack, from the tube outward.
 #[derive(Debug, Clone, PartialEq)]
 pub enum Section {
+    /// Turns of a winding (and its bifilar partner).
     Winding(WindingSection),
-    Tape { wraps: u32 },
+    /// Insulation tape wrapped over the whole width.
+    Tape {
+        /// Wraps of insulation tape, each `Setup::tape_mm` thick.
+        wraps: u32,
+    },
 }
 
+/// A whole transformer build: the bobbin, the setup, the windings, the stack of sections from
+/// the tube outward, and optionally the operating point, the core material and the declared
+/// isolation.
 #[derive(Debug, Clone, PartialEq)]
 pub struct Build {
+    /// The build's title, as printed on reports and sheets.
     pub title: String,
+    /// Whether the bobbin was named by id or written inline (saving keeps the same).
     pub bobbin_source: BobbinSource,
+    /// The bobbin (and its core, when known), resolved.
     pub bobbin: Bobbin,
+    /// Temperature, allowance, margins, tape and frequency, after defaults.
     pub setup: Setup,
+    /// The windings, in file order.
     pub windings: Vec<Winding>,
+    /// The sections from the tube outward.
     pub stack: Vec<Section>,
+    /// The converter's operating point, when the file gives one.
     pub operating: Option<Operating>,
+    /// The core's ferrite, when the file gives one.
     pub material: Option<Material>,
     /// The declared insulation between primary and secondary sides, when the file gives one.
     pub isolation: Option<Isolation>,
 }
 
 impl Build {
+    /// The winding of that name.
     pub fn winding(&self, name: &str) -> Option<&Winding> {
         self.windings.iter().find(|w| w.name == name)
     }
 
+    /// The position in `windings` of the winding of that name.
     pub fn winding_index(&self, name: &str) -> Option<usize> {
         self.windings.iter().position(|w| w.name == name)
     }

@@ -13,12 +13,14 @@ pub enum IsolationClass {
 }
 
 impl IsolationClass {
+    /// Every class, from the least to the most protection.
     pub const ALL: [IsolationClass; 3] = [
         IsolationClass::Functional,
         IsolationClass::Basic,
         IsolationClass::Reinforced,
     ];
 
+    /// The word used in build files (`functional`, `basic`, `reinforced`).
     pub fn key(self) -> &'static str {
         match self {
             IsolationClass::Functional => "functional",
@@ -27,6 +29,7 @@ impl IsolationClass {
         }
     }
 
+    /// The class a build file's word names; `None` for an unknown word.
     pub fn from_key(s: &str) -> Option<Self> {
         Self::ALL.into_iter().find(|c| c.key() == s)
     }
@@ -35,6 +38,7 @@ impl IsolationClass {
 /// `[isolation]` in a build file.
 #[derive(Debug, Clone, PartialEq)]
 pub struct Isolation {
+    /// The class the builder intends between primary and secondary sides.
     pub class: IsolationClass,
     /// Working voltage across the barrier, as the builder states it (peak or DC).
     pub working_voltage_v: Option<f64>,

@@ -28,6 +28,7 @@ pub struct Measured {
 pub const DEFAULT_READING_C: f64 = 20.0;
 
 impl Measured {
+    /// The part's temperature at the resistance readings (C), 20 when not given.
     pub fn reading_temperature_c(&self) -> f64 {
         self.reading_c.unwrap_or(DEFAULT_READING_C)
     }
@@ -47,6 +48,7 @@ impl Build {
         self.setup.measured.as_ref()
     }
 
+    /// Replaces (or removes, with `None`) the bench readings.
     pub fn set_measured(&mut self, m: Option<Measured>) {
         self.setup.measured = m;
     }

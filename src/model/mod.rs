@@ -1,6 +1,7 @@
 //! Plain data: the bobbin, the wire, the windings, the stack of sections, the build.
 //! No I/O and no computation beyond trivial accessors; the engine reads these.
 
+#![warn(missing_docs)]
 mod bobbin;
 mod build;
 mod conductor;

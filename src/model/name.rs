@@ -5,10 +5,12 @@ use std::fmt;
 use std::ops::Deref;
 use std::sync::Arc;
 
+/// A winding's name, shared by reference count; compares and hashes as its text.
 #[derive(Clone, PartialEq, Eq, Hash, PartialOrd, Ord)]
 pub struct Name(Arc<str>);
 
 impl Name {
+    /// The name's text.
     pub fn as_str(&self) -> &str {
         &self.0
     }

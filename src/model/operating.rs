@@ -1,5 +1,6 @@
 //! The converter's operating point and the core material, both optional in a build.
 
+/// Where the reset winding returns the magnetising energy.
 #[derive(Debug, Clone, Copy, PartialEq, Eq)]
 pub enum ResetSide {
     /// The reset winding clamps to the input.
@@ -30,16 +31,21 @@ pub struct OutputFigures<'a> {
     pub rectifier_drop_v: f64,
 }
 
+/// The forward converter's operating point: input range, output and the switch.
 #[derive(Debug, Clone, PartialEq)]
 pub struct Operating {
+    /// Where the reset winding returns its energy; default the input.
     pub reset_side: ResetSide,
+    /// Lowest input voltage (V), where the duty is highest.
     pub vin_min_v: f64,
+    /// Highest input voltage (V), where the switch sees the most off-state voltage.
     pub vin_max_v: f64,
     /// The regulated output's voltage and current. Without `outputs` these are the one-output
     /// shorthand (`[operating] vout_v`, `iout_a`, on the first secondary); with `outputs` they
     /// mirror the first output's (the loader and [`Operating::set_regulated`] keep them so),
     /// and the engine reads [`Operating::regulated`].
     pub vout_v: f64,
+    /// Output current (A).
     pub iout_a: f64,
     /// `[operating] rectifier_drop_v`: the shorthand's drop, and the drop of every output
     /// that does not give its own.
@@ -47,6 +53,7 @@ pub struct Operating {
     /// The `[[output]]` tables in file order, the first the regulated one; empty for the
     /// one-output shorthand.
     pub outputs: Vec<Output>,
+    /// The controller's maximum duty (0 to 1); `None` leaves the reset limit alone to cap it.
     pub duty_limit: Option<f64>,
     /// Temperature rise the user accepts; `None` takes the engine's default.
     pub rise_limit_c: Option<f64>,
@@ -121,8 +128,11 @@ impl Operating {
 /// Steinmetz coefficients: P in kW/m^3 with f in kHz and B in T.
 #[derive(Debug, Clone, Copy, PartialEq)]
 pub struct Steinmetz {
+    /// Coefficient k (kW/m^3 at 1 kHz and 1 T).
     pub k: f64,
+    /// Frequency exponent alpha.
     pub alpha: f64,
+    /// Flux density exponent beta.
     pub beta: f64,
 }
 
@@ -130,10 +140,15 @@ pub struct Steinmetz {
 /// file's explicit keys written over them; the values here are always the resolved ones.
 #[derive(Debug, Clone, PartialEq)]
 pub struct Material {
+    /// The generic ferrite grade the typical figures come from, when one is named.
     pub grade: Option<String>,
+    /// Saturation flux density (mT) at the working temperature.
     pub bsat_mt: f64,
+    /// Remanent flux density (mT), where the flux returns to after each cycle.
     pub br_mt: f64,
+    /// Initial permeability of the ferrite, when known.
     pub mu_i: Option<f64>,
+    /// Core-loss coefficients, when known.
     pub steinmetz: Option<Steinmetz>,
     /// Total air gap in the magnetic path of the assembled core; with `mu_i` it sets AL.
     pub gap_mm: Option<f64>,

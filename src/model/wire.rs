@@ -5,13 +5,18 @@ use std::fmt;
 /// Enamel grade (IEC 60317: grade 1 thin, 2 medium, 3 thick) or triple-insulated wire.
 #[derive(Debug, Clone, Copy, PartialEq, Eq, Hash)]
 pub enum Insulation {
+    /// Enamel grade 1 (thin build), IEC 60317.
     Grade1,
+    /// Enamel grade 2 (medium build), IEC 60317; the usual choice.
     Grade2,
+    /// Enamel grade 3 (thick build), IEC 60317.
     Grade3,
+    /// Triple-insulated wire: three extruded layers, each able to stand as insulation.
     Tiw,
 }
 
 impl Insulation {
+    /// Every insulation, in the order the planner cycles through them.
     pub const ALL: [Insulation; 4] = [
         Insulation::Grade1,
         Insulation::Grade2,
@@ -29,6 +34,7 @@ impl Insulation {
         }
     }
 
+    /// The insulation a build file's word names (`grade2`, `tiw`); `None` for an unknown word.
     pub fn from_key(s: &str) -> Option<Self> {
         Self::ALL.into_iter().find(|g| g.key() == s)
     }
@@ -51,9 +57,17 @@ pub enum WireSize {
     /// American Wire Gauge number (ASTM B258), 10..=44 in the bundled table.
     Awg(u32),
     /// Nominal bare diameter in millimetres (IEC 60317 series).
-    Metric { bare_mm: f64 },
+    Metric {
+        /// Nominal bare copper diameter (mm).
+        bare_mm: f64,
+    },
     /// Measured bare and overall diameters; `od_mm` overrides any insulation table.
-    Measured { bare_mm: f64, od_mm: f64 },
+    Measured {
+        /// Bare copper diameter as measured (mm).
+        bare_mm: f64,
+        /// Overall diameter over the insulation as measured (mm).
+        od_mm: f64,
+    },
 }
 
 impl WireSize {

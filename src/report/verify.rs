@@ -106,22 +106,7 @@ pub fn finding_words(f: &Finding) -> String {
             extra_gap_mm,
             total_gap_mm,
             ungapped,
-        } => {
-            let total = total_gap_mm.map_or(String::new(), |g| {
-                format!(", an effective gap of {:.0} um in all", g * 1000.0)
-            });
-            let advice = if *ungapped {
-                "the core is planned without a gap, so the mating faces need cleaning (dust, \
-                 glue, tape or a burr between the halves), or the clamp is loose"
-            } else {
-                "the gap is larger than planned (a thicker spacer, or the faces do not close)"
-            };
-            format!(
-                "AL is {al_nh:.0} nH and mu_e {mu_e:.0} (IEC 60205): the core acts as if it had \
-                 {:.0} um more gap than planned{total}; {advice}",
-                extra_gap_mm * 1000.0
-            )
-        }
+        } => gap_larger_words(*al_nh, *mu_e, *extra_gap_mm, *total_gap_mm, *ungapped),
         Finding::AlHigher {
             al_nh,
             mu_e,
@@ -168,25 +153,68 @@ pub fn finding_words(f: &Finding) -> String {
             likely_wire,
             planned_length_m,
             implied_length_m,
-        } => {
-            let wire = match likely_wire {
-                Some(w) => format!(
-                    "the resistance per metre of {w} gives it (the plan has {planned_bare_mm:.3} \
-                     mm bare; {implied_bare_mm:.3} mm would match): most likely the wrong wire"
-                ),
-                None => format!(
-                    "no size near {implied_bare_mm:.3} mm bare fits the plan's wire series, so \
-                     the wire is most likely right and the length is off: {implied_length_m:.2} m \
-                     instead of {planned_length_m:.2} m (turns, a looser mean turn, or long leads)"
-                ),
-            };
-            format!("{:.2} times the expected resistance; {wire}", factor)
-        }
+        } => resistance_words(
+            *factor,
+            *planned_bare_mm,
+            *implied_bare_mm,
+            *likely_wire,
+            *planned_length_m,
+            *implied_length_m,
+        ),
         Finding::LeakageFactor { factor } => format!(
             "measured / estimated = {factor:.2}: a correction you may keep for the next build \
              on this bobbin with the same arrangement"
         ),
     }
+}
+
+/// The words of a magnetising inductance below its prediction: AL (nH) and mu_e as
+/// measured, the extra gap (mm) they imply and what to look at.
+fn gap_larger_words(
+    al_nh: f64,
+    mu_e: f64,
+    extra_gap_mm: f64,
+    total_gap_mm: Option<f64>,
+    ungapped: bool,
+) -> String {
+    let total = total_gap_mm.map_or(String::new(), |g| {
+        format!(", an effective gap of {:.0} um in all", g * 1000.0)
+    });
+    let advice = if ungapped {
+        "the core is planned without a gap, so the mating faces need cleaning (dust, \
+         glue, tape or a burr between the halves), or the clamp is loose"
+    } else {
+        "the gap is larger than planned (a thicker spacer, or the faces do not close)"
+    };
+    format!(
+        "AL is {al_nh:.0} nH and mu_e {mu_e:.0} (IEC 60205): the core acts as if it had \
+         {:.0} um more gap than planned{total}; {advice}",
+        extra_gap_mm * 1000.0
+    )
+}
+
+/// The words of a DCR off its prediction: the wire whose resistance per metre gives it, or
+/// the length (m) that would, when no size near the implied bare diameter (mm) fits.
+fn resistance_words(
+    factor: f64,
+    planned_bare_mm: f64,
+    implied_bare_mm: f64,
+    likely_wire: Option<crate::model::WireSize>,
+    planned_length_m: f64,
+    implied_length_m: f64,
+) -> String {
+    let wire = match likely_wire {
+        Some(w) => format!(
+            "the resistance per metre of {w} gives it (the plan has {planned_bare_mm:.3} \
+             mm bare; {implied_bare_mm:.3} mm would match): most likely the wrong wire"
+        ),
+        None => format!(
+            "no size near {implied_bare_mm:.3} mm bare fits the plan's wire series, so \
+             the wire is most likely right and the length is off: {implied_length_m:.2} m \
+             instead of {planned_length_m:.2} m (turns, a looser mean turn, or long leads)"
+        ),
+    };
+    format!("{:.2} times the expected resistance; {wire}", factor)
 }
 
 fn result_word(c: &ReadingCheck) -> &'static str {
@@ -222,22 +250,7 @@ pub fn render(build: &Build, v: &Verification) -> String {
         let _ = writeln!(out, "Inductances measured at {f} kHz.");
     }
     for c in &v.checks {
-        out.push('\n');
-        let _ = writeln!(out, "{}: {}", what(&c.quantity), result_word(c));
-        let _ = writeln!(out, "  measured  {}", value(&c.quantity, c.measured));
-        if let Some(p) = &c.prediction {
-            let dev = c.deviation().map_or(String::new(), |d| match c.quantity {
-                Quantity::Ratio { .. } => format!(" ({:+.2} %)", d * 100.0),
-                _ => format!(" ({:+.1} %)", d * 100.0),
-            });
-            let _ = writeln!(out, "  expected  {}{dev}", value(&c.quantity, p.expected));
-            let _ = writeln!(out, "  tolerance {}", tolerance(p));
-        }
-        for f in &c.findings {
-            for line in wrap(&format!("- {}", finding_words(f)), 78, "    ") {
-                let _ = writeln!(out, "  {line}");
-            }
-        }
+        check_lines(&mut out, c);
     }
     let mut bases: Vec<Basis> = Vec::new();
     for p in v.checks.iter().filter_map(|c| c.prediction.as_ref()) {
@@ -272,6 +285,32 @@ pub fn render(build: &Build, v: &Verification) -> String {
             let _ = writeln!(out, "{line}");
         }
     }
+    verdict_lines(&mut out, v);
+    out
+}
+
+/// One reading's lines: measured, expected with its deviation (%), tolerance and findings.
+fn check_lines(out: &mut String, c: &ReadingCheck) {
+    out.push('\n');
+    let _ = writeln!(out, "{}: {}", what(&c.quantity), result_word(c));
+    let _ = writeln!(out, "  measured  {}", value(&c.quantity, c.measured));
+    if let Some(p) = &c.prediction {
+        let dev = c.deviation().map_or(String::new(), |d| match c.quantity {
+            Quantity::Ratio { .. } => format!(" ({:+.2} %)", d * 100.0),
+            _ => format!(" ({:+.1} %)", d * 100.0),
+        });
+        let _ = writeln!(out, "  expected  {}{dev}", value(&c.quantity, p.expected));
+        let _ = writeln!(out, "  tolerance {}", tolerance(p));
+    }
+    for f in &c.findings {
+        for line in wrap(&format!("- {}", finding_words(f)), 78, "    ") {
+            let _ = writeln!(out, "  {line}");
+        }
+    }
+}
+
+/// The closing verdict: how many readings are out of tolerance, and which.
+fn verdict_lines(out: &mut String, v: &Verification) {
     out.push('\n');
     let off: Vec<String> = v.out_of_tolerance().map(|c| what(&c.quantity)).collect();
     let verdict = if v.checks.is_empty() {
@@ -289,7 +328,6 @@ pub fn render(build: &Build, v: &Verification) -> String {
     for line in wrap(&verdict, 80, "  ") {
         let _ = writeln!(out, "{line}");
     }
-    out
 }
 
 #[derive(Serialize)]

@@ -24,6 +24,7 @@ pub enum TemperatureSource {
 }
 
 impl TemperatureSource {
+    /// The words reports and JSON show for it (`given`, `ambient + rise`, ...).
     pub fn key(self) -> &'static str {
         match self {
             TemperatureSource::Given => "given",

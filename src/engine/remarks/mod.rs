@@ -17,15 +17,22 @@ pub use note::Note;
 /// What a warning is about, so that every front end can show it next to that thing.
 #[derive(Debug, Clone, PartialEq, Eq)]
 pub enum WarningAt {
+    /// The build as a whole.
     Build,
+    /// A section of the stack (0-based index).
     Section(usize),
+    /// A winding (index into `build.windings`).
     Winding(usize),
+    /// The converter's figures.
     Converter,
 }
 
+/// A warning: where the fronts show it and what it is, with its figures.
 #[derive(Debug, Clone, PartialEq)]
 pub struct Warning {
+    /// What it is about.
     pub at: WarningAt,
+    /// Which warning, with the figures its sentence quotes.
     pub kind: WarningKind,
 }
 
@@ -47,49 +54,83 @@ impl Warning {
 pub enum WarningKind {
     /// The build is refused by validation; its figures are best effort.
     Invalid(Invalid),
+    /// The height with allowance is above the window height.
     DoesNotFit {
+        /// Build height times the allowance (mm).
         height_with_allowance_mm: f64,
+        /// The allowance factor.
         bulge: f64,
+        /// The window height (mm).
         window_height_mm: f64,
+        /// How much too high (mm).
         over_mm: f64,
     },
+    /// A section lies (partly) beyond the window height.
     PastWindow {
+        /// The section.
         section: usize,
+        /// Its winding.
         winding: Name,
     },
+    /// A section's last layer is not full: the section above sits on a step.
     PartialLayer {
+        /// The section.
         section: usize,
+        /// Its winding.
         winding: Name,
+        /// Turns in its last layer.
         last_layer_turns: u32,
+        /// Turns a full layer holds.
         turns_per_layer: u32,
     },
+    /// A full layer leaves too little room to the margin tape; its end turns climb onto it.
     MarginCrowded {
+        /// The section.
         section: usize,
+        /// Its winding.
         winding: Name,
+        /// Width left over in a full layer (mm).
         spare_mm: f64,
     },
+    /// The fill factor is above what hand winding reaches (`FILL_FACTOR_HAND_LIMIT`).
     FillHigh {
+        /// The build's fill factor.
         fill_factor: f64,
     },
+    /// Triple-insulated wire in parallel strands: unusual; the pitch wants checking.
     TiwStrands {
+        /// The winding.
         winding: Name,
     },
+    /// The controller's duty limit is above the reset limit: a transient can saturate the core.
     ResetBelowController {
+        /// The controller's maximum duty.
         duty_limit: f64,
+        /// The largest duty at which the core still resets.
         reset_duty_limit: f64,
     },
+    /// The duty needed at the lowest input is above the duty available.
     DutyShort {
+        /// Duty needed at `vin_min_v`.
         needed: f64,
+        /// Duty the converter may use.
         available: f64,
     },
+    /// Secondary-side reset with reset turns not fewer than the secondary's: the core never resets.
     ResetImpossible {
+        /// Reset turns.
         nr: u32,
+        /// Secondary turns.
         ns: u32,
     },
+    /// Secondary-side reset: the duty needed is above the steady-state ceiling `1 - Nr/Ns`.
     ResetSteady {
+        /// The steady-state duty ceiling.
         ceiling: f64,
+        /// Duty needed at `vin_min_v`.
         needed: f64,
     },
+    /// Secondary-side reset: at start-up, with the output low, the core does not reset.
     ResetStartup,
     /// A further output's turns make a voltage off its target by more than
     /// `engine::outputs::OUTPUT_TOLERANCE_FRACTION`; `step_v` is what one turn moves it.
@@ -100,25 +141,42 @@ pub enum WarningKind {
         error_fraction: f64,
         step_v: f64,
     },
+    /// The worst-case flux swing is above the headroom `Bsat - Br`.
     Saturation {
+        /// Worst-case flux swing (mT).
         swing_mt: f64,
+        /// Headroom to saturation (mT).
         headroom_mt: f64,
     },
+    /// A winding's current density is above the band.
     CurrentDensity {
+        /// The winding.
         winding: Name,
+        /// Its current density (A/mm^2 RMS).
         density_a_mm2: f64,
         /// The band's ends (A/mm^2), quoted for windings other than a reset winding.
         band: (f64, f64),
+        /// It is a reset winding (thin by design, carrying the magnetising current: the band is not
+        /// quoted).
         reset: bool,
     },
+    /// The temperature rise is above the limit.
     TemperatureRise {
+        /// The predicted rise (C).
         rise_c: f64,
+        /// The rise allowed (C).
         limit_c: f64,
+        /// The total loss that makes it (W).
         loss_w: f64,
+        /// The surface it leaves by (cm2).
         surface_cm2: f64,
     },
+    /// Primary and secondary wound bifilar: the layer model gives them no AC figures, so their
+    /// copper loss is taken at DC resistance.
     AcBifilarPs {
+        /// The primary.
         primary: Name,
+        /// The secondary.
         secondary: Name,
     },
     /// A litz winding's strand is thicker than the skin depth: litz no longer pays.
@@ -133,57 +191,98 @@ pub enum WarningKind {
         strands: u32,
         ac_factor: f64,
     },
+    /// A section winds a primary-side and a secondary-side winding together: no barrier.
     IsolationBifilar {
+        /// The declared class.
         class: IsolationClass,
+        /// The section.
         section: usize,
+        /// One winding.
         a: Name,
+        /// The other.
         b: Name,
     },
+    /// Fewer wraps of tape between the two sides than the class asks.
     IsolationWraps {
+        /// The declared class.
         class: IsolationClass,
+        /// Wraps between the two sections.
         wraps: u32,
+        /// Wraps the class asks for.
         need: u32,
+        /// The inner section and its winding.
         inner: (usize, Name),
+        /// The outer section and its winding.
         outer: (usize, Name),
     },
+    /// The margin tape is narrower than half the creepage distance.
     IsolationMargin {
+        /// The declared class.
         class: IsolationClass,
+        /// The margin at each flange (mm).
         margin_mm: f64,
+        /// The creepage distance declared (mm).
         creepage_mm: f64,
     },
+    /// An isolation class is declared without a creepage distance to check the margins by.
     IsolationCreepageUnset {
+        /// The declared class.
         class: IsolationClass,
     },
+    /// The hot spot (ambient + rise) is above the lowest thermal class of the insulation.
     HotSpot {
+        /// The hot-spot temperature (C).
         hot_c: f64,
+        /// The ambient (C).
         ambient_c: f64,
+        /// The lowest class (C).
         class_c: f64,
+        /// Whose class it is (`wire`, `tape`, `bobbin`).
         part: &'static str,
     },
+    /// The voltage between two layers is above what their films and layer tape stand.
     LayerVoltage {
+        /// The section.
         section: usize,
+        /// Its winding.
         winding: Name,
+        /// The voltage (V).
         volts: f64,
+        /// What the films and tape stand (V).
         limit_v: f64,
+        /// Wraps of layer tape.
         layer_tape: u32,
     },
+    /// The voltage between the wires of a bifilar pair is above what their films stand.
     BifilarVoltage {
+        /// The section.
         section: usize,
+        /// One winding.
         a: Name,
+        /// The other.
         b: Name,
+        /// The voltage (V).
         volts: f64,
+        /// What the two films stand (V).
         limit_v: f64,
     },
+    /// The voltage between two sections on one side is above what films and tape stand.
     SectionVoltage {
+        /// The inner section and its winding.
         inner: (usize, Name),
+        /// The outer section and its winding.
         outer: (usize, Name),
+        /// The voltage (V).
         volts: f64,
+        /// What the films and tape stand (V).
         limit_v: f64,
+        /// Wraps of tape between them.
         wraps: u32,
     },
 }
 
 impl WarningKind {
+    /// The stable code of the warning (FORMAT.md's table).
     pub fn code(&self) -> &'static str {
         match self {
             WarningKind::Invalid(_) => "invalid",

@@ -8,10 +8,15 @@ use super::*;
 pub enum Note {
     /// Bifilar sections, as (winding, with) in stack order, a repeat of the one before left out.
     BifilarPairs(Vec<(Name, Name)>),
+    /// The bobbin has no core data: flux, magnetising current and core loss are left out.
     NoCoreData,
+    /// Neither AL nor mu_i is known: the magnetising current is taken as zero.
     NoInductance,
+    /// The material has no Steinmetz coefficients: core loss is left out.
     NoSteinmetz,
+    /// The surface area for the temperature rise was estimated from the window and Ae.
     SurfaceEstimated,
+    /// These windings have no current: their copper loss is not counted.
     NoCurrent(Vec<Name>),
 }
 

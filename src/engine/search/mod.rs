@@ -19,27 +19,34 @@ use std::sync::atomic::{AtomicBool, AtomicUsize, Ordering};
 /// Which wire series the search draws sizes from.
 #[derive(Debug, Clone, Copy, PartialEq, Eq)]
 pub enum Series {
+    /// Nominal metric sizes (IEC 60317 rows).
     Metric,
+    /// American Wire Gauge sizes (ASTM B258).
     Awg,
 }
 
+/// What the search may try and what it must meet.
 #[derive(Debug, Clone, PartialEq)]
 pub struct Settings {
+    /// The wire series sizes are drawn from.
     pub series: Series,
     /// Strands in parallel tried per winding: 1..=max_strands, for wire of at least
     /// `min_strand_mm` bare (finer wire is not paralleled by hand).
     pub max_strands: u32,
+    /// Finest wire (bare mm) that is paralleled.
     pub min_strand_mm: f64,
     /// Finest wire tried (bare mm): finer wire breaks too easily to wind by hand.
     pub min_wire_mm: f64,
     /// Current density band (A/mm^2 RMS) a wire must fall in.
     pub j_min_a_mm2: f64,
+    /// Upper end of the current density band (A/mm^2 RMS).
     pub j_max_a_mm2: f64,
     /// Tape wraps between the primary side (primary, reset) and the secondary side; `None`
     /// takes the most the build has between those sides (at least 1).
     pub isolation_wraps: Option<u32>,
     /// Tape wraps between other adjacent sections.
     pub section_wraps: u32,
+    /// Most primary-secondary leakage allowed (uH); `None` for no limit.
     pub max_leakage_uh: Option<f64>,
     /// Highest temperature rise allowed (C); `None` takes the build's own `rise_limit_c`
     /// where the operating point gives a rise.
@@ -76,10 +83,15 @@ impl Default for Settings {
 /// One reported candidate.
 #[derive(Debug, Clone, PartialEq)]
 pub struct Candidate {
+    /// The candidate's wires and arrangement in a few words.
     pub description: String,
+    /// The build as the candidate would wind it.
     pub build: Build,
+    /// Its evaluation.
     pub eval: Evaluation,
+    /// Its loss, leakage and spare height, as the Pareto set compares them.
     pub objectives: Objectives,
+    /// Its copper loss (W).
     pub copper_loss_w: f64,
 }
 
@@ -110,16 +122,23 @@ pub enum Binding {
     /// The current-density band (A/mm^2 RMS): no wire tried puts `windings` inside it, or,
     /// when `windings` is empty, no one choice puts every winding inside it together.
     CurrentBand {
+        /// Lower end of the band (A/mm^2 RMS).
         j_min_a_mm2: f64,
+        /// Upper end of the band (A/mm^2 RMS).
         j_max_a_mm2: f64,
+        /// The windings no wire tried puts inside the band.
         windings: Vec<Name>,
     },
     /// The window height: none of the `in_band` combinations with wire inside the band
     /// fits; `least` is the least height seen or bounded, where known.
     WindowHeight {
+        /// Lower end of the band (A/mm^2 RMS).
         j_min_a_mm2: f64,
+        /// Upper end of the band (A/mm^2 RMS).
         j_max_a_mm2: f64,
+        /// Combinations whose wires all fall inside the band.
         in_band: usize,
+        /// The least height seen or bounded, against the window.
         least: Option<LeastHeight>,
     },
     /// The builds that fit within the band run hotter than the temperature-rise limit.
@@ -132,18 +151,36 @@ pub enum Binding {
 #[derive(Debug, Clone, Copy, PartialEq)]
 pub enum LeastHeight {
     /// Of an evaluated candidate.
-    Evaluated { height_mm: f64, window_mm: f64 },
+    Evaluated {
+        /// The least height with allowance (mm).
+        height_mm: f64,
+        /// The window height (mm).
+        window_mm: f64,
+    },
     /// A lower bound found while pruning (no candidate in the band was evaluated).
-    Bound { height_mm: f64, window_mm: f64 },
+    Bound {
+        /// The least lower bound on the height with allowance (mm).
+        height_mm: f64,
+        /// The window height (mm).
+        window_mm: f64,
+    },
 }
 
 /// A remark on how the search's space was built: a winding whose wire is kept, and why.
 #[derive(Debug, Clone, PartialEq)]
 pub enum SearchNote {
     /// The winding has no current (no `current_rms_a`, none from an operating point).
-    NoCurrent { winding: Name },
+    NoCurrent {
+        /// The winding kept as it is.
+        winding: Name,
+    },
     /// No wire in the series suits the winding at its current.
-    NoWireSuits { winding: Name, current_a: f64 },
+    NoWireSuits {
+        /// The winding kept as it is.
+        winding: Name,
+        /// Its RMS current (A).
+        current_a: f64,
+    },
     /// Reset and primary turns differ, so the reset is not tried bifilar with the primary.
     ResetTurnsDiffer,
 }

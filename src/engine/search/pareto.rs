@@ -4,8 +4,11 @@
 /// Objectives of one candidate: lower loss, lower leakage and more spare height are better.
 #[derive(Debug, Clone, Copy, PartialEq)]
 pub struct Objectives {
+    /// Total loss (W).
     pub loss_w: f64,
+    /// Primary-secondary leakage (uH).
     pub leakage_uh: f64,
+    /// Window height left over (mm).
     pub spare_height_mm: f64,
 }
 

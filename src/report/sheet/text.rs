@@ -33,10 +33,9 @@ fn para(o: &mut Vec<String>, text: &str, first: &str, rest: &str) {
     }
 }
 
-/// The blocks of the sheet, each kept on one page.
-pub fn blocks(s: &Sheet) -> Vec<Vec<String>> {
-    let mut out = Vec::new();
-
+/// The head: title, build id, bobbin, core, the plan's verdict and, when it does not fit,
+/// the refusal to wind.
+fn head_block(s: &Sheet) -> Vec<String> {
     let mut head = Vec::new();
     para(&mut head, &format!("WINDING SHEET: {}", s.title), "", "  ");
     head.push(format!(
@@ -51,8 +50,12 @@ pub fn blocks(s: &Sheet) -> Vec<Vec<String>> {
     if !s.fits {
         head.push("DO NOT WIND: the plan does not fit this bobbin. See `turnstack fit`.".into());
     }
-    out.push(head);
+    head
+}
 
+/// The bill of materials: each winding's wire, strands, turns, wound length (m) and cut
+/// lengths (mm), how the cuts are reckoned, then the other materials.
+fn bom_block(s: &Sheet) -> Vec<String> {
     let mut bom = Vec::new();
     block_title(&mut bom, "Bill of materials");
     bom.push(format!(
@@ -88,8 +91,11 @@ pub fn blocks(s: &Sheet) -> Vec<Vec<String>> {
     for (k, v) in &s.materials {
         labelled(&mut bom, k, v, 15);
     }
-    out.push(bom);
+    bom
+}
 
+/// The pin map: each winding's start and finish pins (blanks to fill in), and the convention.
+fn pins_block(s: &Sheet) -> Vec<String> {
     let mut pins = Vec::new();
     block_title(&mut pins, "Pin map");
     pins.push(format!(
@@ -111,7 +117,18 @@ pub fn blocks(s: &Sheet) -> Vec<Vec<String>> {
         "  ",
         "  ",
     );
-    out.push(pins);
+    pins
+}
+
+/// The blocks of the sheet, each kept on one page.
+pub fn blocks(s: &Sheet) -> Vec<Vec<String>> {
+    let mut out = Vec::new();
+
+    out.push(head_block(s));
+
+    out.push(bom_block(s));
+
+    out.push(pins_block(s));
 
     let mut first = true;
     for step in &s.steps {

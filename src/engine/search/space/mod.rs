@@ -18,9 +18,13 @@ pub use reasons::Reasons;
 /// A wire for one winding: size and strands in parallel.
 #[derive(Debug, Clone, Copy, PartialEq)]
 pub struct WireChoice {
+    /// The wire size.
     pub size: WireSize,
+    /// Strands in parallel.
     pub strands: u32,
+    /// Copper area of all the strands together (mm2).
     pub copper_area_mm2: f64,
+    /// Overall diameter of one strand (mm).
     pub od_mm: f64,
     /// Round wire, or a foil or litz the search proposes (see `conductor_choices`).
     pub conductor: Conductor,
@@ -120,9 +124,12 @@ pub enum ResetPlace {
     Outside,
 }
 
+/// The order of the sections: the primary-secondary split and the reset's place.
 #[derive(Debug, Clone, Copy, PartialEq, Eq)]
 pub struct Arrangement {
+    /// How the primary and secondary are ordered and split.
     pub split: Split,
+    /// Where the reset winding goes (`None` without one).
     pub reset: Option<ResetPlace>,
 }
 
