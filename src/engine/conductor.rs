@@ -241,23 +241,36 @@ pub enum ConductorFigures {
     /// Foil: thickness, the width used, the interleaf, the layer height (`foil + interleaf`)
     /// and Dowell's porosity `width / wound breadth`.
     Foil {
+        /// Foil thickness (mm).
         thickness_mm: f64,
+        /// Foil width used (mm).
         width_mm: f64,
+        /// Interleaf under each turn (mm).
         interleaf_mm: f64,
+        /// `foil + interleaf` (mm).
         layer_height_mm: f64,
+        /// Dowell's porosity: foil width over the wound breadth.
         porosity: f64,
     },
     /// Litz: strands, strand bare and overall diameter, bundle under the serving, overall
     /// diameter, the packing and lay factors used; with a frequency, the strand's diameter
     /// over the skin depth (set by the AC figures).
     Litz {
+        /// Strands in the bundle.
         strands: u32,
+        /// Strand bare diameter (mm).
         strand_mm: f64,
+        /// Strand overall diameter, enamel included (mm).
         strand_od_mm: f64,
+        /// Bundle diameter under the serving (mm).
         bundle_mm: f64,
+        /// Overall diameter over the serving (mm).
         od_mm: f64,
+        /// Packing factor used.
         packing: f64,
+        /// Lay-length factor on the DC resistance.
         lay_factor: f64,
+        /// Strand diameter over the skin depth, with a frequency.
         strand_over_skin: Option<f64>,
     },
 }

@@ -20,6 +20,7 @@ pub const OUTPUT_TOLERANCE_FRACTION: f64 = 0.05;
 pub struct OutputAt<'a> {
     /// Index into `Build::windings`.
     pub winding: usize,
+    /// Its target, current and rectifier drop after defaults.
     pub figures: OutputFigures<'a>,
 }
 
@@ -52,10 +53,13 @@ pub struct OutputEval {
     pub winding: Name,
     /// The first output: the controller holds it at its target.
     pub regulated: bool,
+    /// The winding's turns.
     pub turns: u32,
     /// The target voltage (`vout_v`).
     pub vout_v: f64,
+    /// The output's load current (A).
     pub iout_a: f64,
+    /// The output's rectifier drop (V).
     pub rectifier_drop_v: f64,
     /// `(Vreg + Vd_reg) Nk / Nreg - Vd_k` (continuous conduction, ideal switch and diodes);
     /// the target itself for the regulated output.

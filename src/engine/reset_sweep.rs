@@ -12,11 +12,15 @@ const NR_SEARCH_MAX: u32 = 1_000_000;
 /// What the sweep needs: the converter's side of reset, its inputs and the two limits.
 #[derive(Debug, Clone, Copy, PartialEq)]
 pub struct ResetInputs {
+    /// Where the reset winding returns the energy.
     pub reset_side: ResetSide,
+    /// Highest input (V).
     pub vin_max_v: f64,
     /// `vout_v + rectifier_drop_v` (V).
     pub vo_v: f64,
+    /// Primary turns.
     pub np: u32,
+    /// Regulated secondary turns.
     pub ns: u32,
     /// The reset turns the build has now.
     pub nr: u32,
@@ -32,8 +36,11 @@ pub struct ResetInputs {
 /// The two figures at one number of reset turns.
 #[derive(Debug, Clone, Copy, PartialEq)]
 pub struct SweepPoint {
+    /// Reset turns.
     pub nr: u32,
+    /// Largest duty at which the core resets at the highest input.
     pub reset_duty_limit: f64,
+    /// Off-state switch voltage at the highest input, no spike (V).
     pub switch_voltage_v: f64,
 }
 
@@ -49,6 +56,7 @@ pub enum ResetLimit {
 /// The sweep and what it says about the build's reset turns.
 #[derive(Debug, Clone, PartialEq)]
 pub struct ResetSweep {
+    /// What the sweep was worked from.
     pub inputs: ResetInputs,
     /// `rating x derating` (V), when a rating is given.
     pub switch_allowed_v: Option<f64>,

@@ -15,7 +15,9 @@ pub enum ResetSide {
 pub struct Output {
     /// The name of a secondary winding.
     pub winding: String,
+    /// Target voltage (V).
     pub vout_v: f64,
+    /// Load current (A).
     pub iout_a: f64,
     /// This output's rectifier drop; `None` takes `[operating] rectifier_drop_v`.
     pub rectifier_drop_v: Option<f64>,
@@ -26,8 +28,11 @@ pub struct Output {
 pub struct OutputFigures<'a> {
     /// The secondary winding's name; `None` for the shorthand (the first secondary).
     pub winding: Option<&'a str>,
+    /// Target voltage (V).
     pub vout_v: f64,
+    /// Load current (A).
     pub iout_a: f64,
+    /// Rectifier drop (V), the output's own or `[operating]`'s.
     pub rectifier_drop_v: f64,
 }
 

@@ -7,6 +7,7 @@ use super::{Material, Operating, Setup};
 /// off-state voltage may take before the turn-off spike.
 #[derive(Debug, Clone, Copy, PartialEq)]
 pub struct SwitchSpec {
+    /// Rated off-state voltage of the switch (V).
     pub voltage_rating_v: f64,
     /// Fraction of the rating the off-state voltage (no spike) may use; default 0.8.
     pub derating: f64,
@@ -27,13 +28,16 @@ impl SwitchSpec {
 /// the switch, and optionally the bobbins to try.
 #[derive(Debug, Clone, PartialEq)]
 pub struct Requirements {
+    /// The file's `title`.
     pub title: String,
     /// `[setup]`; `frequency_khz` is required here.
     pub setup: Setup,
     /// `[operating]` and the `[[output]]` tables; `duty_limit` is required here, and
     /// `switch_rating_v` mirrors `switch.voltage_rating_v`.
     pub operating: Operating,
+    /// `[material]`: the core material, needed for the flux headroom and core loss.
     pub material: Material,
+    /// `[switch]`: the rating and derating.
     pub switch: SwitchSpec,
     /// `bobbins = [...]`: the ids to try; `None` tries every bobbin the library sees.
     pub bobbins: Option<Vec<String>>,

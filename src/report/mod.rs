@@ -4,8 +4,8 @@
 pub mod design;
 pub mod fit;
 pub mod json;
-pub mod json_outputs;
 pub mod json_conductor;
+pub mod json_outputs;
 pub mod search;
 pub mod sheet;
 pub mod text;

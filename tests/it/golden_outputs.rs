@@ -7,7 +7,7 @@
 use std::path::Path;
 use std::process::Command;
 
-const EXAMPLES: [&str; 5] = [
+const EXAMPLES: [&str; 6] = [
     "foil-litz-300k",
     "first-try",
     "bench-forward",

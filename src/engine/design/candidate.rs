@@ -48,6 +48,7 @@ fn winding(name: &str, role: Role, turns: u32) -> Winding {
         wire: WireSize::Metric { bare_mm: 0.3 },
         insulation: Insulation::Grade2,
         strands: 1,
+        conductor: Default::default(),
         current_rms_a: None,
         start_pin: None,
         finish_pin: None,

@@ -47,16 +47,22 @@ impl Default for DesignSettings {
 /// The turns of one design: primary, each output's secondary (regulated first), reset.
 #[derive(Debug, Clone, PartialEq)]
 pub struct Turns {
+    /// Primary turns.
     pub np: u32,
+    /// Each output's secondary turns, the regulated output first.
     pub outputs: Vec<u32>,
+    /// Reset turns.
     pub nr: u32,
 }
 
 /// One output as the turns make it.
 #[derive(Debug, Clone, PartialEq)]
 pub struct DesignOutput {
+    /// The secondary winding that feeds it.
     pub winding: Name,
+    /// Its turns.
     pub turns: u32,
+    /// Its target voltage (V).
     pub vout_v: f64,
     /// The voltage the turns give (the target itself for the regulated output).
     pub vout_from_turns_v: f64,
@@ -67,14 +73,21 @@ pub struct DesignOutput {
 pub struct Design {
     /// The bobbin's id.
     pub bobbin: String,
+    /// The build this design writes (`--out`).
     pub build: Build,
+    /// The build's evaluation, every figure the listing shows.
     pub eval: Evaluation,
     /// The search's words for the wires and the order.
     pub description: String,
+    /// The turns chosen.
     pub turns: Turns,
+    /// The reset turns and what they give.
     pub reset: ResetChoice,
+    /// Each output's voltage as the turns make it, regulated first.
     pub outputs: Vec<DesignOutput>,
+    /// Copper plus core loss (W).
     pub total_loss_w: f64,
+    /// Window height left over (mm).
     pub spare_height_mm: f64,
     /// The requirement with the least margin left.
     pub binding: DesignLimit,
@@ -98,11 +111,17 @@ pub enum BobbinVerdict {
 pub enum DesignBinding {
     /// At the duty limit the least off-state voltage is over the derated switch rating.
     SwitchRating {
+        /// The controller's duty limit.
         duty_limit: f64,
+        /// Highest input (V).
         vin_max_v: f64,
+        /// `vin_max / (1 - duty_limit)`: the least off-state voltage that duty allows (V).
         least_v: f64,
+        /// The switch's rating (V).
         rating_v: f64,
+        /// The share of the rating allowed.
         derating: f64,
+        /// `derating x rating` (V).
         allowed_v: f64,
     },
     /// No bobbin to try (the `bobbins` list and the library give none).

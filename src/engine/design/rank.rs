@@ -7,9 +7,13 @@ use crate::engine::{Constraint, Evaluation};
 /// allowed`), and the figures.
 #[derive(Debug, Clone, Copy, PartialEq)]
 pub struct DesignLimit {
+    /// Which requirement.
     pub constraint: Constraint,
+    /// `1 - used / allowed`: the share of the allowance left.
     pub margin: f64,
+    /// What the design takes (in the constraint's unit).
     pub used: f64,
+    /// What the requirement allows (same unit).
     pub allowed: f64,
 }
 

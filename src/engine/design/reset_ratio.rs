@@ -32,6 +32,7 @@ impl ResetBind {
 /// The reset turns chosen for a primary, with the figures they give.
 #[derive(Debug, Clone, Copy, PartialEq)]
 pub struct ResetChoice {
+    /// Reset turns.
     pub nr: u32,
     /// Largest duty at which the core resets at the highest input.
     pub reset_duty_limit: f64,
@@ -41,13 +42,16 @@ pub struct ResetChoice {
     pub duty_headroom: f64,
     /// `(allowed_v - switch_voltage_v) / allowed_v`.
     pub voltage_headroom: f64,
+    /// Which of the two limits is nearer its bound.
     pub binds: ResetBind,
 }
 
 /// What the reset must satisfy.
 #[derive(Debug, Clone, Copy, PartialEq)]
 pub struct ResetNeeds {
+    /// Where the reset winding returns the energy.
     pub side: ResetSide,
+    /// Highest input (V).
     pub vin_max_v: f64,
     /// The regulated output plus its rectifier drop (V), for reset to the output.
     pub vo_v: f64,

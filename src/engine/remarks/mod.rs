@@ -135,10 +135,15 @@ pub enum WarningKind {
     /// A further output's turns make a voltage off its target by more than
     /// `engine::outputs::OUTPUT_TOLERANCE_FRACTION`; `step_v` is what one turn moves it.
     OutputOffTarget {
+        /// The output's winding.
         winding: Name,
+        /// Target voltage (V).
         target_v: f64,
+        /// The voltage its turns make (V).
         from_turns_v: f64,
+        /// `(from_turns_v - target_v) / target_v`.
         error_fraction: f64,
+        /// What one turn moves the voltage (V).
         step_v: f64,
     },
     /// The worst-case flux swing is above the headroom `Bsat - Br`.
@@ -181,14 +186,20 @@ pub enum WarningKind {
     },
     /// A litz winding's strand is thicker than the skin depth: litz no longer pays.
     LitzStrandThick {
+        /// The litz winding.
         winding: Name,
+        /// Strand bare diameter (mm).
         strand_mm: f64,
+        /// Skin depth at the frequency (mm).
         skin_depth_mm: f64,
     },
     /// A litz winding's AC factor passes `LITZ_FACTOR_LIMIT`: too many strands for the field.
     LitzTooManyStrands {
+        /// The litz winding.
         winding: Name,
+        /// Strands in the bundle.
         strands: u32,
+        /// The litz AC factor it reaches.
         ac_factor: f64,
     },
     /// A section winds a primary-side and a secondary-side winding together: no barrier.

@@ -199,7 +199,12 @@ pub enum SearchError {
     /// The caller's cancel flag was set: the search stopped after `tried` of `space`
     /// combinations and reports nothing.
     #[error("the search was stopped after {tried} of {space} combinations")]
-    Cancelled { tried: usize, space: usize },
+    Cancelled {
+        /// Combinations gone through before the stop.
+        tried: usize,
+        /// Combinations in the whole space.
+        space: usize,
+    },
 }
 
 /// RMS current of each winding the search sizes wire for, as the evaluation has it: the
