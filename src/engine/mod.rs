@@ -24,6 +24,7 @@ pub mod limits;
 pub mod litz;
 pub mod losses;
 pub mod magnetics;
+mod material_checks;
 pub mod measured_core;
 pub mod memo;
 pub mod outputs;

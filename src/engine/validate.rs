@@ -2,6 +2,7 @@
 //! file loader can point at a line and the editor can refuse an edit with a message.
 
 use super::layout::{Resolved, turns_per_layer, usable_width_mm};
+use super::material_checks::check_material;
 use crate::library::wires::AWG_RANGE;
 use crate::model::{Bobbin, Build, Conductor, Role, Section, Tube, WindingSection, WireSize};
 use std::fmt;
@@ -69,7 +70,7 @@ pub const MAX_STRANDS: u32 = 100;
 /// Most wraps of tape a tape section or a layer tape may have.
 pub const MAX_WRAPS: u32 = 100;
 
-fn positive(v: f64) -> bool {
+pub(super) fn positive(v: f64) -> bool {
     v.is_finite() && v > 0.0
 }
 
@@ -563,48 +564,6 @@ fn check_operating(build: &Build, _resolved: &Resolved, bad: &mut dyn FnMut(Plac
             {
                 bad(Place::Operating(key), format!("must be positive, got {v}"));
             }
-        }
-    }
-}
-
-/// The core material: saturation, remanence, permeability, Steinmetz figures and gap.
-fn check_material(build: &Build, _resolved: &Resolved, bad: &mut dyn FnMut(Place, String)) {
-    if let Some(m) = &build.material {
-        if !positive(m.bsat_mt) {
-            bad(
-                Place::Material("bsat_mt"),
-                format!("must be positive, got {}", m.bsat_mt),
-            );
-        }
-        if !(m.br_mt.is_finite() && m.br_mt >= 0.0 && m.br_mt < m.bsat_mt) {
-            bad(
-                Place::Material("br_mt"),
-                format!("expected 0 <= br_mt < bsat_mt, got {}", m.br_mt),
-            );
-        }
-        if let Some(mu) = m.mu_i
-            && !positive(mu)
-        {
-            bad(
-                Place::Material("mu_i"),
-                format!("must be positive, got {mu}"),
-            );
-        }
-        if let Some(st) = m.steinmetz
-            && !(positive(st.k) && positive(st.alpha) && positive(st.beta))
-        {
-            bad(
-                Place::Material("steinmetz"),
-                "k, alpha and beta must all be positive".into(),
-            );
-        }
-        if let Some(g) = m.gap_mm
-            && !(g.is_finite() && g >= 0.0)
-        {
-            bad(
-                Place::Material("gap_mm"),
-                format!("must be zero or a positive length in mm, got {g}"),
-            );
         }
     }
 }

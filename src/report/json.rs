@@ -13,6 +13,11 @@ use crate::engine::{
 use crate::model::{BobbinSource, Build, Name, ResetSide};
 use serde::Serialize;
 
+pub use super::json_stress::{
+    CapacitanceJson, LayerStressJson, PairStressJson, SelfCapacitanceJson, StressJson,
+};
+use super::json_stress::{capacitance, stress};
+
 /// The whole report: the top-level object of `check --json`.
 #[derive(Debug, Serialize)]
 pub struct Report<'a> {
@@ -264,52 +269,6 @@ pub struct LossesJson<'a> {
     pub temperature_rise_c: Option<f64>,
 }
 
-/// The `capacitance` object.
-#[derive(Debug, Serialize)]
-pub struct CapacitanceJson<'a> {
-    pub primary_secondary_pf: f64,
-    pub ringing_khz: Option<f64>,
-    pub self_pf: Vec<SelfCapacitanceJson<'a>>,
-}
-
-/// One winding's own capacitance (`null` where the layer method does not apply).
-#[derive(Debug, Serialize)]
-pub struct SelfCapacitanceJson<'a> {
-    pub winding: &'a Name,
-    pub pf: Option<f64>,
-}
-
-/// The `voltage_stress` object.
-#[derive(Debug, Serialize)]
-pub struct StressJson<'a> {
-    pub volts_per_turn_v: f64,
-    pub layers: Vec<LayerStressJson<'a>>,
-    pub bifilar: Vec<PairStressJson<'a>>,
-    pub between_sections: Vec<PairStressJson<'a>>,
-}
-
-/// The highest voltage between two adjacent layers of a section.
-#[derive(Debug, Serialize)]
-pub struct LayerStressJson<'a> {
-    pub section: usize,
-    pub winding: &'a Name,
-    pub voltage_v: f64,
-    pub limit_v: f64,
-    pub layer_tape: u32,
-}
-
-/// The voltage across a bifilar pair or between two adjacent sections.
-#[derive(Debug, Serialize)]
-pub struct PairStressJson<'a> {
-    pub inner_section: usize,
-    pub outer_section: usize,
-    pub inner: &'a Name,
-    pub outer: &'a Name,
-    pub voltage_v: f64,
-    pub limit_v: f64,
-    pub wraps: u32,
-}
-
 /// One entry of `limits`, binding first.
 #[derive(Debug, Serialize)]
 pub struct LimitJson<'a> {
@@ -455,54 +414,6 @@ fn ac(a: &AcFigures) -> AcJson {
         skin_depth_mm: a.skin_depth_mm,
         ac_factor_waveform: a.ac_factor_waveform,
         rac_waveform_ohm: a.rac_waveform_ohm,
-    }
-}
-
-fn capacitance(eval: &Evaluation) -> CapacitanceJson<'_> {
-    let cap = &eval.capacitance;
-    CapacitanceJson {
-        primary_secondary_pf: cap.primary_secondary_pf,
-        ringing_khz: cap.ringing_khz,
-        self_pf: eval
-            .windings
-            .iter()
-            .zip(&cap.self_pf)
-            .map(|(w, pf)| SelfCapacitanceJson {
-                winding: &w.name,
-                pf: *pf,
-            })
-            .collect(),
-    }
-}
-
-fn stress(st: &crate::engine::stress::StressEval) -> StressJson<'_> {
-    StressJson {
-        volts_per_turn_v: st.volts_per_turn_v,
-        layers: st
-            .layers
-            .iter()
-            .map(|l| LayerStressJson {
-                section: l.section,
-                winding: &l.winding,
-                voltage_v: l.voltage_v,
-                limit_v: l.limit_v,
-                layer_tape: l.layer_tape,
-            })
-            .collect(),
-        bifilar: st.bifilar.iter().map(pair).collect(),
-        between_sections: st.between_sections.iter().map(pair).collect(),
-    }
-}
-
-fn pair(p: &crate::engine::stress::PairStress) -> PairStressJson<'_> {
-    PairStressJson {
-        inner_section: p.inner_section,
-        outer_section: p.outer_section,
-        inner: &p.inner,
-        outer: &p.outer,
-        voltage_v: p.voltage_v,
-        limit_v: p.limit_v,
-        wraps: p.wraps,
     }
 }
 

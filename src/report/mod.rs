@@ -6,6 +6,7 @@ pub mod fit;
 pub mod json;
 pub mod json_conductor;
 pub mod json_outputs;
+pub mod json_stress;
 pub mod search;
 pub mod sheet;
 pub mod text;
