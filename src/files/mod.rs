@@ -15,7 +15,7 @@ mod save;
 
 pub use build_id::{build_id, fnv1a64};
 pub use convert::{MAX_SECTIONS, MAX_WINDINGS};
-pub use demo::demo_build;
+pub use demo::{demo_build, demo_requirements};
 pub use error::LoadError;
 pub use keep::merge_onto;
 pub use lookup::{BobbinEntry, BobbinLibrary, BobbinOrigin, USER_BOBBINS_ENV, user_bobbin_dir};
@@ -63,6 +63,15 @@ pub fn parse_requirements(
     library: &BobbinLibrary,
 ) -> Result<crate::model::Requirements, LoadError> {
     convert::requirements(text, path, library)
+}
+
+/// What the loader's checks of a requirements file find in requirements typed in (the
+/// planner's form), each as the sentence the file's message would give; empty when none.
+pub fn requirements_problems(req: &crate::model::Requirements) -> Vec<String> {
+    convert::build_problems(req)
+        .iter()
+        .map(ToString::to_string)
+        .collect()
 }
 
 /// Check a bobbin file's text.

@@ -72,7 +72,7 @@ fn design_json(d: &Design, allowed_v: f64) -> DesignJson {
             .iter()
             .map(|w| (w.name.to_string(), w.turns))
             .collect(),
-        reset_ratio: f64::from(d.turns.nr) / f64::from(d.turns.np),
+        reset_ratio: reset_ratio(d),
         reset_duty_limit: c.map_or(d.reset.reset_duty_limit, |c| c.reset_duty_limit),
         duty_limit: d
             .build
@@ -170,6 +170,31 @@ fn verdict_words(v: &BobbinVerdict) -> String {
     }
 }
 
+/// A design's turns in winding order: "24/6/24".
+pub fn turns_text(d: &Design) -> String {
+    let turns: Vec<String> = d
+        .build
+        .windings
+        .iter()
+        .map(|w| w.turns.to_string())
+        .collect();
+    turns.join("/")
+}
+
+/// Nr / Np.
+pub fn reset_ratio(d: &Design) -> f64 {
+    f64::from(d.turns.nr) / f64::from(d.turns.np)
+}
+
+/// The requirement with the least margin and what is left of it: "rise (35 % left)".
+pub fn binds_text(d: &Design) -> String {
+    format!(
+        "{} ({:.0} % left)",
+        d.binding.constraint.key(),
+        d.binding.margin * 100.0
+    )
+}
+
 /// The designs as a table, 80 columns, best first; or the binding sentence.
 pub fn render(title: &str, outcome: &DesignOutcome) -> String {
     let mut s = String::new();
@@ -206,19 +231,13 @@ pub fn render(title: &str, outcome: &DesignOutcome) -> String {
     );
     for (i, d) in outcome.designs.iter().enumerate() {
         let c = d.eval.converter.as_ref();
-        let turns: Vec<String> = d
-            .build
-            .windings
-            .iter()
-            .map(|w| w.turns.to_string())
-            .collect();
         let _ = writeln!(
             s,
             "{:>3}  {:<10} {:<12} {:>5.2}  {:>5.1}  {:>5.3}  {:>4.0}  {:>6.3}  {:>6}  {:>5.2}",
             i + 1,
             crate::report::textfmt::truncate(&d.bobbin, 10),
-            crate::report::textfmt::truncate(&turns.join("/"), 12),
-            f64::from(d.turns.nr) / f64::from(d.turns.np),
+            crate::report::textfmt::truncate(&turns_text(d), 12),
+            reset_ratio(d),
             c.map_or(0.0, |c| c.switch_voltage_v),
             c.map_or(0.0, |c| c.duty_margin),
             c.and_then(|c| c.flux_swing_worst_mt).unwrap_or(0.0),
@@ -243,11 +262,10 @@ pub fn render(title: &str, outcome: &DesignOutcome) -> String {
             })
             .collect();
         let line = format!(
-            "turns {}; {}; binds: {} ({:.0} % left); reset: {}; {}",
+            "turns {}; {}; binds: {}; reset: {}; {}",
             names.join("/"),
             outs.join(", "),
-            d.binding.constraint.key(),
-            d.binding.margin * 100.0,
+            binds_text(d),
             d.reset.binds.key(),
             d.description
         );

@@ -35,8 +35,10 @@ pub enum Effect {
     WriteSheet(PathBuf),
     /// Write a bobbin file into the user's bobbin folder.
     SaveBobbin { path: PathBuf, text: String },
-    /// Run the search on the current build (the loop draws "searching..." first).
+    /// Start the search on the current build, in the background.
     Search,
+    /// Start the design from these requirements over the library, in the background.
+    Design(Box<crate::model::Requirements>),
     /// Stop the planner.
     Quit,
     /// A write the user agreed may replace the file there: carried out without asking.
@@ -51,7 +53,11 @@ impl Effect {
             Effect::Save(p) | Effect::SaveThenQuit(p) => (own != Some(p.as_path())).then_some(p),
             Effect::WriteSheet(p) => Some(p),
             Effect::SaveBobbin { path, .. } => Some(path),
-            Effect::Open(_) | Effect::Search | Effect::Quit | Effect::Confirmed(_) => None,
+            Effect::Open(_)
+            | Effect::Search
+            | Effect::Design(_)
+            | Effect::Quit
+            | Effect::Confirmed(_) => None,
         }
     }
 }
@@ -67,6 +73,8 @@ pub struct App {
     /// The bobbins the build can use (bundled, the user's, beside its file), as the run loop
     /// last read them (`run::read_library`); the bobbin lists are made from these.
     pub library: Vec<BobbinEntry>,
+    /// The search or design under way, if any; its result comes back through `poll_job`.
+    pub job: Option<super::job::Job>,
 }
 
 impl App {
@@ -77,6 +85,7 @@ impl App {
             ui: Ui::new(Theme::from_env()),
             bobbin_dir: crate::files::user_bobbin_dir(),
             library: Vec::new(),
+            job: None,
         }
     }
 
@@ -87,8 +96,8 @@ impl App {
         let mut app = App::new(edit::new_build(&id, bobbin), Some(path));
         app.library = library;
         app.doc.saved = None;
-        app.open_bobbin_picker(PickPurpose::NewBuild);
-        app.info("a new build: pick its bobbin (Esc keeps the one shown)");
+        app.open_new_chooser();
+        app.info("a new build: from a bobbin or from requirements (Esc keeps the one shown)");
         app
     }
 
@@ -110,6 +119,9 @@ impl App {
     /// The key tables that apply now: the top overlay's, or the focused panel's and the
     /// main screen's.
     pub fn contexts(&self) -> Vec<Context> {
+        if self.job.is_some() {
+            return vec![Context::Job];
+        }
         match self.ui.overlays.last() {
             Some(Overlay::Help { .. }) => vec![Context::HelpScreen],
             Some(Overlay::Readings { .. }) => vec![Context::Readings],
@@ -131,12 +143,16 @@ impl App {
 
     /// Carry out an action: the top overlay takes it, or the main screen.
     pub fn update(&mut self, action: Action) -> Option<Effect> {
+        if self.job.is_some() {
+            self.job_key(action);
+            return None;
+        }
         self.ui.status = None;
         match self.ui.overlays.last().cloned() {
             Some(Overlay::Help { scroll }) => self.help_key(action, scroll),
             Some(Overlay::Readings { scroll }) => self.readings_key(action, scroll),
             Some(Overlay::Picker(p)) => self.picker_key(action, p),
-            Some(Overlay::Form(f)) => self.form_key(action, f),
+            Some(Overlay::Form(f)) => return self.form_key(action, f),
             Some(Overlay::Prompt(p)) => return self.prompt_key(action, p),
             Some(Overlay::Question(q)) => return self.question_key(action, &q),
             None => return self.main_key(action),

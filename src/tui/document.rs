@@ -13,6 +13,18 @@ pub struct UndoStep {
     pub build: Build,
     /// What the edit was, as the status line said it.
     pub label: String,
+    /// The file the build belonged to, for an edit that left it (a design opened as a new
+    /// build): undoing goes back to that file too. `None` for an edit of the same document.
+    pub file: Option<FileState>,
+}
+
+/// The document's file and the build as last saved there.
+#[derive(Debug, Clone, PartialEq)]
+pub struct FileState {
+    /// The file, or none.
+    pub path: Option<PathBuf>,
+    /// The build as last opened or saved; `None` for one never saved.
+    pub saved: Option<Build>,
 }
 
 /// The build being edited and everything that belongs to it rather than to the screen.
@@ -79,18 +91,48 @@ impl Document {
         self.undo.push(UndoStep {
             build: old,
             label: label.clone(),
+            file: None,
         });
         self.redo.clear();
         self.recompute(label);
+    }
+
+    /// Take `next` as a build of its own, not of the document's file: one undo step that
+    /// also leaves the file. A file already written is let go (the path is unset, so saving
+    /// asks where); a file not yet written keeps its path. Undo returns to the old build
+    /// and its file.
+    pub fn commit_apart(&mut self, next: Build, label: String) {
+        let file = FileState {
+            path: self.path.clone(),
+            saved: self.saved.take(),
+        };
+        if file.saved.is_some() {
+            self.path = None;
+        }
+        self.commit(next, label);
+        if let Some(step) = self.undo.last_mut() {
+            step.file = Some(file);
+        }
+    }
+
+    /// Put back the file of a step that left it; what it replaces goes to the other step.
+    fn swap_file(&mut self, file: Option<FileState>) -> Option<FileState> {
+        let f = file?;
+        Some(FileState {
+            path: std::mem::replace(&mut self.path, f.path),
+            saved: std::mem::replace(&mut self.saved, f.saved),
+        })
     }
 
     /// Go back one edit; the label of the edit undone, `None` when there is none.
     pub fn undo(&mut self) -> Option<String> {
         let step = self.undo.pop()?;
         let current = std::mem::replace(&mut self.build, step.build);
+        let file = self.swap_file(step.file);
         self.redo.push(UndoStep {
             build: current,
             label: step.label.clone(),
+            file,
         });
         self.recompute(format!("undo of {}", step.label));
         Some(step.label)
@@ -100,9 +142,11 @@ impl Document {
     pub fn redo(&mut self) -> Option<String> {
         let step = self.redo.pop()?;
         let current = std::mem::replace(&mut self.build, step.build);
+        let file = self.swap_file(step.file);
         self.undo.push(UndoStep {
             build: current,
             label: step.label.clone(),
+            file,
         });
         self.recompute(format!("redo of {}", step.label));
         Some(step.label)

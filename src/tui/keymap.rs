@@ -23,6 +23,8 @@ pub enum Context {
     HelpScreen,
     /// The readings against the plan.
     Readings,
+    /// While a search or a design runs.
+    Job,
 }
 
 impl Context {
@@ -36,6 +38,7 @@ impl Context {
             Context::Question => "questions",
             Context::HelpScreen => "this help",
             Context::Readings => "readings against the plan",
+            Context::Job => "while a search or a design runs",
         }
     }
 }
@@ -526,6 +529,13 @@ pub const BINDINGS: &[Binding] = &[
         Action::Cancel,
         "back",
         "back to the readings form",
+    ),
+    b(
+        C::Job,
+        &[K::Esc, K::Ctrl('c')],
+        Action::Cancel,
+        "cancel",
+        "stop the search or design under way; the build stays as it was",
     ),
 ];
 

@@ -75,8 +75,7 @@ impl App {
             Action::SaveAs => self.ask_save_path(false),
             Action::Open if self.doc.dirty() => self.ask(Question::DiscardForOpen),
             Action::Open => self.prompt("open build file", "", PromptPurpose::OpenPath),
-            Action::NewBuild if self.doc.dirty() => self.ask(Question::DiscardForNew),
-            Action::NewBuild => self.open_bobbin_picker(PickPurpose::NewBuild),
+            Action::NewBuild => self.open_new_chooser(),
             Action::Search => {
                 self.info("searching... (wires, strands and section orders on this bobbin)");
                 return Some(Effect::Search);
@@ -252,6 +251,7 @@ impl App {
             }
             _ => return,
         };
-        self.activate(kind, f);
+        // A winding's fields edit the build; none hands the loop an effect.
+        let _ = self.activate(kind, f);
     }
 }

@@ -11,6 +11,7 @@ mod core_form;
 pub mod document;
 pub mod edit;
 pub mod fields;
+pub mod job;
 pub mod keymap;
 mod main_keys;
 pub mod overlay;

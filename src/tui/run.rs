@@ -14,6 +14,9 @@ use ratatui::crossterm::event::{self, Event, KeyEventKind};
 use std::io::{BufRead, Write};
 use std::path::{Path, PathBuf};
 
+/// How often the loop redraws a job's progress while no key comes.
+const JOB_TICK: std::time::Duration = std::time::Duration::from_millis(100);
+
 /// Run the planner until the user quits.
 pub fn run(mut app: App) -> std::io::Result<()> {
     if app.library.is_empty() {
@@ -30,17 +33,18 @@ pub fn run(mut app: App) -> std::io::Result<()> {
 fn event_loop(terminal: &mut DefaultTerminal, app: &mut App) -> std::io::Result<()> {
     let mut recovery = Recovery::new(crate::files::recovery_dir());
     loop {
+        app.poll_job();
         recovery.update(app);
         terminal.draw(|f| view::draw(app, f))?;
+        // While a job runs, wake every tick to redraw its progress and take its result.
+        if app.job.is_some() && !event::poll(JOB_TICK)? {
+            continue;
+        }
         // A resize needs nothing: the next draw takes the new size.
         if let Event::Key(key) = event::read()?
             && key.kind == KeyEventKind::Press
             && let Some(effect) = app.handle_key(&key)
         {
-            // A search takes a moment: show its "searching..." before it starts.
-            if effect == Effect::Search {
-                terminal.draw(|f| view::draw(app, f))?;
-            }
             if effect == Effect::Quit {
                 recovery.quit(app);
             }
@@ -76,7 +80,11 @@ pub fn perform(app: &mut App, effect: Effect) -> bool {
         }
         Effect::SaveThenQuit(p) => save(app, &p),
         Effect::Search => {
-            app.run_search();
+            app.start_search();
+            false
+        }
+        Effect::Design(req) => {
+            app.start_design(*req);
             false
         }
         Effect::WriteSheet(p) => {

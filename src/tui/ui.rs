@@ -5,6 +5,7 @@
 use super::core_form::CoreDraft;
 use super::overlay::Overlay;
 use super::theme::Theme;
+use crate::model::Requirements;
 
 /// Which list on the main screen has the keys.
 #[derive(Debug, Clone, Copy, PartialEq, Eq)]
@@ -51,6 +52,11 @@ pub struct Ui {
     pub theme: Theme,
     /// The measured core being typed in the measured-bobbin form, not yet applied.
     pub core_draft: CoreDraft,
+    /// The requirements typed in the "from requirements" form, kept between its openings.
+    pub needs: Option<Requirements>,
+    /// Why the last design found nothing (the engine's binding sentence), shown under the
+    /// requirements form until a field changes.
+    pub design_note: Option<String>,
 }
 
 impl Ui {
@@ -64,6 +70,8 @@ impl Ui {
             status: None,
             theme,
             core_draft: CoreDraft::default(),
+            needs: None,
+            design_note: None,
         }
     }
 }

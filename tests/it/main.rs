@@ -35,6 +35,7 @@ mod sheet_print;
 mod tui_app;
 mod tui_foil_litz;
 mod tui_forms;
+mod tui_jobs;
 mod tui_overlays;
 mod tui_overwrite;
 mod tui_readings;

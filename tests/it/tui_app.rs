@@ -437,7 +437,7 @@ fn a_new_file_starts_from_a_picked_bobbin() {
     let library = turnstack::tui::run::read_library(Some(&path));
     let mut app = App::new_file(path.clone(), library);
     assert!(matches!(app.ui.overlays.last(), Some(Overlay::Picker(_))));
-    press(&mut app, "etd29<enter>");
+    press(&mut app, "<enter>etd29<enter>");
     assert_eq!(
         app.doc.build.bobbin_source,
         turnstack::model::BobbinSource::Id("etd29".into())

@@ -403,6 +403,7 @@ fn search_lists_candidates_and_taking_one_is_one_undoable_edit() {
     assert_eq!(effect, Some(Effect::Search));
     assert!(status(&app).starts_with("searching"));
     perform(&mut app, Effect::Search);
+    finish_job(&mut app);
     let Some(Overlay::Picker(p)) = app.ui.overlays.last().cloned() else {
         panic!("no candidate list: {}", status(&app));
     };

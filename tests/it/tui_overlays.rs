@@ -22,6 +22,7 @@ fn overlays() -> Vec<(&'static str, App)> {
     }
     let mut app = demo_app();
     perform(&mut app, Effect::Search);
+    finish_job(&mut app);
     v.push(("search", app));
     v
 }

@@ -144,7 +144,8 @@ pub struct DesignOutcome {
 }
 
 /// Design on every bobbin of `bobbins` (id, bobbin). `progress(done, total)` is called
-/// after each bobbin; setting `cancel` stops after the bobbin under way.
+/// after each bobbin; setting `cancel` stops the search under way within milliseconds, and
+/// the bobbin it stopped in counts as not tried.
 pub fn design(
     req: &Requirements,
     bobbins: &[(String, Bobbin)],
@@ -178,8 +179,13 @@ pub fn design(
             cancelled = true;
             break;
         }
+        let found = design_on(req, &needs, id, bobbin, settings, cancel);
+        if cancel.load(Ordering::Relaxed) {
+            cancelled = true;
+            break;
+        }
         tried += 1;
-        match design_on(req, &needs, id, bobbin, settings) {
+        match found {
             Ok(d) => designs.push(d),
             Err(v) => verdicts.push((id.clone(), v)),
         }
@@ -250,6 +256,7 @@ fn design_on(
     id: &str,
     bobbin: &Bobbin,
     settings: &DesignSettings,
+    cancel: &AtomicBool,
 ) -> Result<Design, BobbinVerdict> {
     let core = bobbin.core.as_ref().ok_or(BobbinVerdict::NoCoreData)?;
     let f_hz = req.setup.frequency_khz.unwrap_or(100.0) * 1e3;
@@ -283,7 +290,15 @@ fn design_on(
     let mut first_verdict = None;
     for (_, _, turns, reset, build) in weighed.into_iter().take(settings.primaries_searched.max(1))
     {
-        match searched(req, needs, id, &build, &turns, reset, &settings.search) {
+        match searched(
+            req,
+            needs,
+            id,
+            &build,
+            (&turns, reset),
+            &settings.search,
+            cancel,
+        ) {
             Ok(d) => {
                 if best.as_ref().is_none_or(|b| rank::better(&d, b)) {
                     best = Some(d);
@@ -303,11 +318,11 @@ fn searched(
     needs: &ResetNeeds,
     id: &str,
     build: &Build,
-    turns: &Turns,
-    reset: ResetChoice,
+    (turns, reset): (&Turns, ResetChoice),
     settings: &Settings,
+    cancel: &AtomicBool,
 ) -> Result<Design, BobbinVerdict> {
-    let outcome = search::search(build, settings, &|_, _| {})
+    let outcome = search::search_cancellable(build, settings, &|_, _| {}, cancel)
         .map_err(|_| BobbinVerdict::Breaks(Vec::new()))?;
     if let Some(b) = outcome.binding {
         return Err(BobbinVerdict::Search(b));

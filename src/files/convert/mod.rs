@@ -29,7 +29,7 @@ use bobbin::bobbin_of;
 use material::material;
 use operating::operating_of;
 use outputs::{outputs_of, regulated_of};
-pub(super) use requirements::requirements;
+pub(super) use requirements::{build_problems, requirements};
 use setup::setup_of;
 use stack::stack_of;
 use windings::windings_of;

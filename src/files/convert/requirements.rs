@@ -116,21 +116,7 @@ pub(in crate::files) fn requirements(
         switch,
         bobbins,
     };
-    // The build's own checks, on a build of these requirements with one turn a winding.
-    let turns = Turns {
-        np: 1,
-        outputs: vec![1; req.operating.outputs.len().max(1)],
-        nr: 1,
-    };
-    let problems: Vec<Invalid> = validate(&build_for(&req, "", &stand_in_bobbin(), &turns))
-        .into_iter()
-        .filter(|p| {
-            !matches!(
-                p.place,
-                Place::Winding(..) | Place::Section(..) | Place::Bobbin(_)
-            )
-        })
-        .collect();
+    let problems = build_problems(&req);
     if !problems.is_empty() {
         return Err(cx.invalid(&spans, &problems));
     }
@@ -147,6 +133,25 @@ pub(in crate::files) fn requirements(
         ));
     }
     Ok(req)
+}
+
+/// The build's own checks, on a build of these requirements with one turn a winding: what
+/// they find of the setup, the operating point and the material.
+pub(in crate::files) fn build_problems(req: &Requirements) -> Vec<Invalid> {
+    let turns = Turns {
+        np: 1,
+        outputs: vec![1; req.operating.outputs.len().max(1)],
+        nr: 1,
+    };
+    validate(&build_for(req, "", &stand_in_bobbin(), &turns))
+        .into_iter()
+        .filter(|p| {
+            !matches!(
+                p.place,
+                Place::Winding(..) | Place::Section(..) | Place::Bobbin(_)
+            )
+        })
+        .collect()
 }
 
 /// `[switch]`: the rating (required) and the derating (default 0.8).

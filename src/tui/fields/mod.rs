@@ -8,15 +8,16 @@ mod isolation;
 mod material;
 mod operating;
 pub mod readings;
+pub mod requirements;
 mod setup;
 pub mod winding;
 
 pub use isolation::{NO_SUBSTITUTE, isolation_caution};
 
-use super::app::App;
+use super::app::{App, Effect};
 use super::core_form::CoreDraft;
 use super::edit::Refusal;
-use crate::model::Build;
+use crate::model::{Build, Requirements};
 
 /// What a field's row reads from: the build, the winding the form is about (its index; 0 for
 /// the forms that are not about one) and the measured core being typed in.
@@ -27,6 +28,8 @@ pub struct Ctx<'a> {
     pub k: usize,
     /// The measured core of the bobbin form, not yet applied.
     pub draft: &'a CoreDraft,
+    /// The requirements being typed in for a design, once the form has been opened.
+    pub needs: Option<&'a Requirements>,
 }
 
 /// What Enter on a field does.
@@ -42,8 +45,15 @@ pub enum Enter {
         text: fn(&CoreDraft) -> String,
         write: fn(&mut CoreDraft, &str) -> Result<(), Refusal>,
     },
+    /// Ask for a value of the requirements being typed in, then keep it there.
+    Need {
+        text: fn(&Requirements) -> String,
+        write: fn(&mut Requirements, &str) -> Result<(), Refusal>,
+    },
     /// Act at once: cycle the value, add or remove a table, open a list.
     Act(fn(&mut App, usize)),
+    /// Act, and hand the run loop what it must carry out (start the design).
+    Start(fn(&mut App) -> Option<Effect>),
 }
 
 /// One row of a form.
@@ -76,6 +86,8 @@ pub enum FormKind {
     Isolation,
     /// `[measured]`: the bench readings of the wound part.
     Readings,
+    /// The requirements of a new build designed from them.
+    Requirements,
 }
 
 impl FormKind {
@@ -89,6 +101,7 @@ impl FormKind {
             FormKind::Material => material::FIELDS,
             FormKind::Isolation => isolation::FIELDS,
             FormKind::Readings => readings::FIELDS,
+            FormKind::Requirements => requirements::FIELDS,
         }
     }
 

@@ -4,7 +4,7 @@
 use super::{Overlay, PromptPurpose};
 use crate::library::materials;
 use crate::tui::action::Action;
-use crate::tui::app::App;
+use crate::tui::app::{App, Effect};
 use crate::tui::fields::{self, Ctx, Enter, FormKind, NO_SUBSTITUTE, Row, isolation_caution};
 
 /// An open form.
@@ -22,6 +22,7 @@ impl App {
             build: &self.doc.build,
             k: kind.winding(),
             draft: &self.ui.core_draft,
+            needs: self.ui.needs.as_ref(),
         }
     }
 
@@ -38,7 +39,7 @@ impl App {
     }
 
     /// A key in a form: move, change the selected field, or close.
-    pub(crate) fn form_key(&mut self, action: Action, mut f: Form) {
+    pub(crate) fn form_key(&mut self, action: Action, mut f: Form) -> Option<Effect> {
         let top = self.ui.overlays.len() - 1;
         let rows = self.form_rows(f.kind);
         match action {
@@ -46,42 +47,41 @@ impl App {
             Action::Down => f.selected = (f.selected + 1).min(rows.len().saturating_sub(1)),
             Action::Cancel => {
                 self.ui.overlays.pop();
-                return;
+                return None;
             }
             Action::Confirm => {
                 self.ui.overlays[top] = Overlay::Form(f.clone());
-                if let Some(row) = rows.get(f.selected) {
-                    self.activate(f.kind, row.field);
-                }
-                return;
+                return rows
+                    .get(f.selected)
+                    .and_then(|row| self.activate(f.kind, row.field));
             }
             _ => {}
         }
         self.ui.overlays[top] = Overlay::Form(f);
+        None
     }
 
     /// Change field `field` of form `kind`: act at once, or ask for its value. A field whose
     /// row is not shown (a winding gone, a table the build has not got) does nothing.
-    pub(crate) fn activate(&mut self, kind: FormKind, field: usize) {
-        let Some(spec) = kind.fields().get(field) else {
-            return;
-        };
+    pub(crate) fn activate(&mut self, kind: FormKind, field: usize) -> Option<Effect> {
+        let spec = kind.fields().get(field)?;
         let cx = self.ctx(kind);
-        if (spec.read)(&cx).is_none() {
-            return;
-        }
+        (spec.read)(&cx)?;
         let text = match &spec.enter {
             Enter::Act(act) => {
                 act(self, kind.winding());
-                return;
+                return None;
             }
+            Enter::Start(start) => return start(self),
             Enter::Type { text, .. } => text(&cx),
             Enter::Draft { text, .. } => Ok(text(cx.draft)),
+            Enter::Need { text, .. } => Ok(cx.needs.map(text).unwrap_or_default()),
         };
         match text {
             Ok(text) => self.prompt(spec.label, text, PromptPurpose::Field { kind, field }),
             Err(why) => self.refuse(why),
         }
+        None
     }
 
     /// A typed value for field `field` of form `kind`: written as its spec says.
@@ -104,7 +104,16 @@ impl App {
                     self.refuse(why);
                 }
             }
-            Enter::Act(_) => {}
+            Enter::Need { write, .. } => {
+                let Some(r) = self.ui.needs.as_mut() else {
+                    return;
+                };
+                match write(r, t) {
+                    Ok(()) => self.ui.design_note = None,
+                    Err(why) => self.refuse(why),
+                }
+            }
+            Enter::Act(_) | Enter::Start(_) => {}
         }
     }
 
@@ -162,6 +171,7 @@ impl App {
                  primary. An empty entry clears a reading."
                     .into(),
             ],
+            FormKind::Requirements => self.requirements_notes(),
             FormKind::Setup | FormKind::Winding(_) => Vec::new(),
         }
     }

@@ -2,6 +2,7 @@
 //! the pick lists, the forms, the line editor (prompt), the questions and the search's
 //! list. The help screen is small enough to live here.
 
+mod design;
 pub mod form;
 pub mod picker;
 mod pickers;

@@ -35,6 +35,15 @@ pub enum PickValue {
     Candidate { n: usize, candidate: Box<Candidate> },
     /// A bundled ferrite grade, or `None` for the user's own figures.
     Grade(Option<String>),
+    /// Start a new build on a bobbin of the library.
+    NewFromBobbin,
+    /// Start a new build from requirements (the form, then the designs).
+    NewFromRequirements,
+    /// The design `n` (counted from 0) of the ranked list, carried whole.
+    Design {
+        n: usize,
+        design: Box<crate::engine::design::Design>,
+    },
 }
 
 impl PickValue {
@@ -66,6 +75,10 @@ pub enum PickPurpose {
     Search,
     /// The ferrite grade.
     Grade,
+    /// How to start a new build.
+    NewStart,
+    /// Open one of the designs from requirements.
+    Design,
 }
 
 /// One line of a list.
@@ -208,6 +221,11 @@ impl App {
                 self.take_candidate(n, *candidate)
             }
             (PickPurpose::Grade, PickValue::Grade(g)) => self.set_grade(g),
+            (PickPurpose::NewStart, PickValue::NewFromBobbin) => self.new_from_bobbin(),
+            (PickPurpose::NewStart, PickValue::NewFromRequirements) => {
+                self.open_requirements_form()
+            }
+            (PickPurpose::Design, PickValue::Design { n, design }) => self.open_design(n, *design),
             _ => {}
         }
     }

@@ -2,17 +2,19 @@
 //! choosing one takes its build as one edit.
 
 use super::{Overlay, PickItem, PickPurpose, PickValue, Picker};
-use crate::engine::search::{self, Candidate, Settings};
+use crate::engine::search::{self, Candidate, Outcome, SearchError, Settings};
 use crate::tui::app::App;
+use crate::tui::job::{Job, thousands};
 
-/// Most combinations the planner searches while it waits: at the search's usual rate (about
-/// a million a second on two cores, `cargo bench --bench search`) a few seconds. A larger
-/// space goes to `turnstack search`, which shows progress and stops on Ctrl-C.
+/// Most combinations the planner searches: at the search's usual rate (about a million a
+/// second on two cores, `cargo bench --bench search`) a few seconds. A larger space goes to
+/// `turnstack search`.
 pub const PLANNER_MAX_SPACE: usize = 5_000_000;
 
 impl App {
-    /// Search on the current build and list the trade-offs found.
-    pub fn run_search(&mut self) {
+    /// Start the search on the current build in the background (`tui::job`); its result
+    /// comes back through `search_done`.
+    pub fn start_search(&mut self) {
         let settings = Settings {
             threads: 2,
             ..Settings::default()
@@ -20,12 +22,35 @@ impl App {
         let size = search::space_size(&self.doc.build, &settings);
         if size > PLANNER_MAX_SPACE {
             self.refuse(format!(
-                "search: {size} combinations is more than the planner goes through while you wait ({PLANNER_MAX_SPACE}); run `turnstack search FILE`, which shows progress and stops on Ctrl-C"
+                "search: {size} combinations is more than the planner goes through ({PLANNER_MAX_SPACE}); run `turnstack search FILE`, which shows progress and stops on Ctrl-C"
             ));
             return;
         }
-        let outcome = match search::search(&self.doc.build, &settings, &|_, _| {}) {
+        if let Err(e) = search::search_ready(&self.doc.build) {
+            self.refuse(format!("search: {e}"));
+            return;
+        }
+        self.info("searching...");
+        self.job = Some(Job::search(self.doc.build.clone(), settings));
+    }
+
+    /// The search's result: the trade-offs found as a list, or why there are none. A
+    /// cancelled search leaves the build as it was and says so.
+    pub(crate) fn search_done(&mut self, r: Result<Outcome, SearchError>, cancelled: bool) {
+        let outcome = match r {
+            _ if cancelled => {
+                self.info("search cancelled; the build is as it was");
+                return;
+            }
             Ok(o) => o,
+            Err(SearchError::Cancelled { tried, space }) => {
+                self.info(format!(
+                    "search cancelled after {} of {} tried; the build is as it was",
+                    thousands(tried),
+                    thousands(space)
+                ));
+                return;
+            }
             Err(e) => {
                 self.refuse(format!("search: {e}"));
                 return;

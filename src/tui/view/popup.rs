@@ -122,6 +122,7 @@ pub fn form(app: &App, frame: &mut Frame, area: Rect, f: &Form) {
         super::super::app::FormKind::Material => "Core material [material]".to_string(),
         super::super::app::FormKind::Isolation => "Isolation [isolation]".to_string(),
         super::super::app::FormKind::Readings => "Bench readings [measured]".to_string(),
+        super::super::app::FormKind::Requirements => "New build from requirements".to_string(),
     };
     let width = 72u16.min(area.width);
     let notes: Vec<String> = app

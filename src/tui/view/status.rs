@@ -63,6 +63,13 @@ pub fn header(app: &App, frame: &mut Frame, area: Rect) {
 pub fn status_line(app: &App, frame: &mut Frame, area: Rect) {
     let t = &app.ui.theme;
     let width = area.width as usize;
+    if let Some(job) = &app.job {
+        frame.render_widget(
+            Line::from(Span::styled(fit(&job.words(), width), t.key())),
+            area,
+        );
+        return;
+    }
     if let Some(s) = &app.ui.status {
         let style = match s.kind {
             StatusKind::Info => t.base(),

@@ -109,3 +109,14 @@ pub fn drive(app: &mut App, keys: &str) {
         turnstack::tui::run::perform(app, e);
     }
 }
+
+/// Wait for the search or design under way and hand its result to the App, as the run
+/// loop does on its next tick. Panics when no job runs or it takes over two minutes.
+pub fn finish_job(app: &mut App) {
+    assert!(app.job.is_some(), "no job under way");
+    let end = std::time::Instant::now() + std::time::Duration::from_secs(120);
+    while !app.poll_job() {
+        assert!(std::time::Instant::now() < end, "the job did not finish");
+        std::thread::sleep(std::time::Duration::from_millis(5));
+    }
+}

@@ -1,0 +1,111 @@
+//! The planner's background work: a search started, cancelled with Esc or finished; and a
+//! new build from requirements, designed, opened and undone.
+
+use crate::tui_support::*;
+use std::sync::atomic::AtomicBool;
+use turnstack::engine::design::{DesignSettings, design};
+use turnstack::tui::app::{Overlay, PickValue};
+use turnstack::tui::{App, Effect, run::perform};
+
+fn status(app: &App) -> String {
+    app.ui
+        .status
+        .as_ref()
+        .map(|s| s.text.clone())
+        .unwrap_or_default()
+}
+
+#[test]
+fn esc_cancels_a_search_and_leaves_the_build() {
+    let mut app = demo_app();
+    let before = app.doc.build.clone();
+    perform(&mut app, Effect::Search);
+    assert!(app.job.is_some(), "{}", status(&app));
+    press(&mut app, "<esc>");
+    finish_job(&mut app);
+    assert_eq!(app.doc.build, before);
+    assert!(status(&app).contains("cancelled"), "{}", status(&app));
+    assert!(app.ui.overlays.is_empty());
+}
+
+#[test]
+fn a_finished_search_lists_candidates() {
+    let mut app = demo_app();
+    perform(&mut app, Effect::Search);
+    finish_job(&mut app);
+    let Some(Overlay::Picker(p)) = app.ui.overlays.last() else {
+        panic!("no list: {}", status(&app));
+    };
+    assert!(matches!(p.items[0].value, PickValue::Candidate { .. }));
+}
+
+/// The demo's requirements on one bobbin: the form, the designs, Enter opens the first one
+/// with the turns `engine::design::design` gives, and u returns to the old build.
+#[test]
+fn requirements_flow_opens_the_engines_design_and_undo_returns() {
+    let mut app = bench_app();
+    let before = app.doc.build.clone();
+    press(&mut app, "N<down><enter>");
+    assert!(matches!(app.ui.overlays.last(), Some(Overlay::Form(_))));
+    let mut req = app.ui.needs.clone().unwrap();
+    req.bobbins = Some(vec!["e25-13-7".into()]);
+    app.ui.needs = Some(req.clone());
+    let effects = press(&mut app, &"<down>".repeat(20));
+    assert!(effects.is_empty());
+    for e in press(&mut app, "<enter>") {
+        perform(&mut app, e);
+    }
+    finish_job(&mut app);
+    let lib = turnstack::files::BobbinLibrary::standard();
+    let b = lib.find("e25-13-7").unwrap().unwrap();
+    let want = design(
+        &req,
+        &[("e25-13-7".into(), b)],
+        &DesignSettings::default(),
+        &|_, _| {},
+        &AtomicBool::new(false),
+    );
+    assert!(!want.designs.is_empty());
+    let s = screen(&app, 80, 24);
+    assert!(s.contains("e25-13-7"), "{s}");
+    press(&mut app, "<enter>");
+    let turns: Vec<u32> = app.doc.build.windings.iter().map(|w| w.turns).collect();
+    let want_turns: Vec<u32> = want.designs[0]
+        .build
+        .windings
+        .iter()
+        .map(|w| w.turns)
+        .collect();
+    assert_eq!(turns, want_turns);
+    assert_eq!(app.doc.path, None, "the design is not the old file's build");
+    press(&mut app, "u");
+    assert_eq!(app.doc.build, before);
+    assert!(app.doc.path.is_some());
+    assert!(!app.dirty());
+}
+
+/// Equal reset and primary turns give a 50 % reset duty limit and an off-state voltage of
+/// 2 Vin (common practice): a 60 V switch at 0.8 derating (48 V) cannot take 2 x 28 V = 56 V.
+#[test]
+fn an_impossible_switch_rating_is_named_under_the_form() {
+    let mut app = demo_app();
+    press(&mut app, "N<down><enter>");
+    let mut req = app.ui.needs.clone().unwrap();
+    req.operating.vin_max_v = 28.0;
+    req.operating.duty_limit = Some(0.5);
+    req.switch.voltage_rating_v = 60.0;
+    req.switch.derating = 0.8;
+    req.bobbins = Some(vec!["e25-13-7".into()]);
+    app.ui.needs = Some(req);
+    press(&mut app, &"<down>".repeat(20));
+    for e in press(&mut app, "<enter>") {
+        perform(&mut app, e);
+    }
+    finish_job(&mut app);
+    let least_v = 2.0 * 28.0;
+    let note = app.ui.design_note.clone().unwrap_or_default();
+    assert!(note.contains("switch rating"), "{note}");
+    assert!(note.contains(&format!("{least_v} V")), "{note}");
+    let s = render(&app, 80, 24).join(" ");
+    assert!(s.contains("switch rating"), "{s}");
+}
