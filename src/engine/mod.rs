@@ -27,6 +27,7 @@ pub mod magnetics;
 mod material_checks;
 pub mod measured_core;
 pub mod memo;
+mod operating_checks;
 pub mod outputs;
 mod remarks;
 pub mod reset_sweep;
