@@ -1,6 +1,7 @@
 //! The keys of `check --json` against the contract: the key lists of the build-format spec
 //! ("The JSON report: `check FILE --json`") and the additions FORMAT.md documents ("JSON
-//! additions", "JSON extras"), written out here, so a renamed, lost or undocumented key fails.
+//! additions", "JSON extras"), written out here, so a renamed, lost or undocumented key fails;
+//! and the keys of `design --json` (FORMAT.md, "Requirements file and `turnstack design`").
 
 use crate::common::example;
 use serde_json::Value;
