@@ -42,5 +42,6 @@ mod tui_readings;
 mod tui_render;
 mod validation_messages;
 mod verify_cli;
+mod verify_foil_litz;
 mod verify_readings;
 mod wire_tables;
