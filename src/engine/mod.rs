@@ -37,6 +37,7 @@ pub mod stress;
 pub mod thermal;
 pub mod validate;
 pub mod verify;
+pub mod verify_conductor;
 mod warnings;
 
 pub use bench::primary_secondary_leakage;
