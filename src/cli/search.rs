@@ -89,7 +89,7 @@ pub fn run(args: &SearchArgs) -> Result<ExitCode, Error> {
     }
     let mut build = load_or_demo(args.file)?;
     // The bench readings belong to the part wound from this build, not to other candidates.
-    build.set_measured(None);
+    build.measured = None;
     if let Err(e) = search::search_ready(&build) {
         return Err(Error::input(match args.file {
             Some(p) => format!("{}: {e}", p.display()),

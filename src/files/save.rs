@@ -460,7 +460,7 @@ pub fn build_to_toml(build: &Build) -> String {
             let _ = writeln!(out, "creepage_mm = {}", num(c));
         }
     }
-    if let Some(m) = build.measured() {
+    if let Some(m) = &build.measured {
         measured_keys(&mut out, m);
     }
     out

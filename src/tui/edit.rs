@@ -546,5 +546,6 @@ pub fn new_build(id: &str, bobbin: crate::model::Bobbin) -> Build {
         operating: None,
         material: None,
         isolation: None,
+        measured: None,
     }
 }
