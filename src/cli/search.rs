@@ -114,7 +114,7 @@ pub fn run(args: &SearchArgs) -> Result<ExitCode, Error> {
 fn ready_build(args: &SearchArgs) -> Result<crate::model::Build, Error> {
     let mut build = load_or_demo(args.file)?;
     // The bench readings belong to the part wound from this build, not to other candidates.
-    build.set_measured(None);
+    build.measured = None;
     if let Err(e) = search::search_ready(&build) {
         return Err(Error::input(match args.file {
             Some(p) => format!("{}: {e}", p.display()),

@@ -325,7 +325,7 @@ pub fn magnetising_uh(build: &Build, turns: u32) -> Option<(f64, AlSource)> {
 
 /// The readings of the build's `[measured]` table against the plan; `None` without a table.
 pub fn verify(build: &Build, eval: &Evaluation) -> Option<Verification> {
-    let m = build.measured()?;
+    let m = build.measured.as_ref()?;
     let at_c = m.reading_temperature_c();
     let preds = predictions(build, eval, at_c);
     let find = |q: &Quantity| preds.iter().find(|p| p.quantity == *q).cloned();

@@ -40,7 +40,7 @@ pub fn build_to_toml(build: &Build) -> String {
     if let Some(i) = &build.isolation {
         isolation_keys(&mut out, i);
     }
-    if let Some(m) = build.measured() {
+    if let Some(m) = &build.measured {
         measured_keys(&mut out, m);
     }
     out

@@ -578,7 +578,7 @@ pub fn verify_json(v: &Verification) -> Value {
 /// Add `measured` and `verify` to a JSON report when the build has a `[measured]` table;
 /// a build without one gets no new key.
 pub fn add_json(build: &Build, eval: &Evaluation, out: &mut Value) {
-    let (Some(m), Some(v)) = (build.measured(), verify::verify(build, eval)) else {
+    let (Some(m), Some(v)) = (&build.measured, verify::verify(build, eval)) else {
         return;
     };
     if let Some(obj) = out.as_object_mut() {

@@ -286,7 +286,7 @@ pub(super) fn build(
     };
 
     let measured = super::measured::convert(text, path, file.measured, &windings)?;
-    let mut build = Build {
+    let build = Build {
         title: file.title.unwrap_or_default(),
         bobbin_source,
         bobbin,
@@ -296,12 +296,12 @@ pub(super) fn build(
         operating,
         material,
         isolation,
+        measured,
     };
     let problems = validate(&build);
     if !problems.is_empty() {
         return Err(cx.invalid(&spans, &problems));
     }
-    build.set_measured(measured);
     Ok(build)
 }
 
