@@ -19,6 +19,7 @@ mod fit_ranking;
 mod foil_litz;
 mod foil_search;
 mod golden_outputs;
+mod harmonic_sum_direct;
 mod json_contract;
 mod layering;
 mod layout_cases;
