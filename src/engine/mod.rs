@@ -13,6 +13,7 @@ pub mod converter;
 pub mod core_loss;
 pub mod currents;
 pub mod design;
+pub mod dowell_table;
 mod evaluation;
 pub mod foil_cut;
 pub mod geometry;

@@ -20,6 +20,7 @@ mod foil_litz;
 mod foil_search;
 mod golden_outputs;
 mod handbook_forward;
+mod harmonic_sum_direct;
 mod json_contract;
 mod layering;
 mod layout_cases;
