@@ -39,6 +39,7 @@ mod tui_overlays;
 mod tui_overwrite;
 mod tui_readings;
 mod tui_render;
+mod tui_reset_ratio;
 mod validation_messages;
 mod verify_cli;
 mod verify_readings;
