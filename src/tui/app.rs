@@ -113,6 +113,7 @@ impl App {
         match self.ui.overlays.last() {
             Some(Overlay::Help { .. }) => vec![Context::HelpScreen],
             Some(Overlay::Readings { .. }) => vec![Context::Readings],
+            Some(Overlay::ResetRatio) => vec![Context::ResetRatio],
             Some(Overlay::Picker(_) | Overlay::Form(_)) => vec![Context::List],
             Some(Overlay::Prompt(_)) => vec![Context::Prompt],
             Some(Overlay::Question(_)) => vec![Context::Question],
@@ -135,6 +136,7 @@ impl App {
         match self.ui.overlays.last().cloned() {
             Some(Overlay::Help { scroll }) => self.help_key(action, scroll),
             Some(Overlay::Readings { scroll }) => self.readings_key(action, scroll),
+            Some(Overlay::ResetRatio) => self.reset_ratio_key(action),
             Some(Overlay::Picker(p)) => self.picker_key(action, p),
             Some(Overlay::Form(f)) => self.form_key(action, f),
             Some(Overlay::Prompt(p)) => return self.prompt_key(action, p),

@@ -41,6 +41,7 @@ mod tui_overlays;
 mod tui_overwrite;
 mod tui_readings;
 mod tui_render;
+mod tui_reset_ratio;
 mod tui_turns;
 mod validation_messages;
 mod verify_cli;
