@@ -159,6 +159,16 @@ pub enum SeriesArg {
     Awg,
 }
 
+impl From<SeriesArg> for crate::engine::search::Series {
+    /// `--series` as the search's wire series.
+    fn from(s: SeriesArg) -> Self {
+        match s {
+            SeriesArg::Metric => Self::Metric,
+            SeriesArg::Awg => Self::Awg,
+        }
+    }
+}
+
 #[derive(Debug, Subcommand)]
 pub enum MeasureWhat {
     /// A salvaged bobbin (and its core): window, tube, centre leg, and optionally a test winding.

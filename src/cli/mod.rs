@@ -105,10 +105,7 @@ pub fn run(cli: Cli) -> Result<ExitCode, Error> {
         }) => search::run(&search::SearchArgs {
             file: file.as_deref(),
             settings: crate::engine::search::Settings {
-                series: match series {
-                    args::SeriesArg::Metric => crate::engine::search::Series::Metric,
-                    args::SeriesArg::Awg => crate::engine::search::Series::Awg,
-                },
+                series: series.into(),
                 max_strands,
                 j_min_a_mm2: j_min,
                 j_max_a_mm2: j_max,

@@ -80,6 +80,8 @@ fn check_flags(args: &SearchArgs) -> Result<(), String> {
     Ok(())
 }
 
+/// `turnstack search`: the flags checked, the build made ready, the search with a progress
+/// bar, the chosen candidate written when asked, then the report (exit 1 when none is found).
 pub fn run(args: &SearchArgs) -> Result<ExitCode, Error> {
     check_flags(args).map_err(|why| Error::input(format!("search: {why}")))?;
     // Before the search: its result never replaces the input, nor another file unasked.
@@ -87,9 +89,32 @@ pub fn run(args: &SearchArgs) -> Result<ExitCode, Error> {
         check_output(out, args.file, args.force)
             .map_err(|why| Error::input(format!("search --out: {why}")))?;
     }
+    let build = ready_build(args)?;
+    let Some(outcome) = search_with_progress(&build, &args.settings)? else {
+        return Ok(ExitCode::from(EXIT_INTERRUPTED));
+    };
+    if let Some(out) = args.out {
+        write_pick(args, out, &outcome)?;
+    }
+    let text = if args.json {
+        outcome_json(&outcome)
+    } else {
+        report(&outcome, &args.settings)
+    };
+    emit(&text)?;
+    Ok(if outcome.candidates.is_empty() {
+        ExitCode::from(super::EXIT_DOES_NOT_FIT)
+    } else {
+        ExitCode::SUCCESS
+    })
+}
+
+/// The build to search from, without its bench readings, refused when it cannot be searched
+/// or its search would be too large; a large one is announced.
+fn ready_build(args: &SearchArgs) -> Result<crate::model::Build, Error> {
     let mut build = load_or_demo(args.file)?;
     // The bench readings belong to the part wound from this build, not to other candidates.
-    build.set_measured(None);
+    build.measured = None;
     if let Err(e) = search::search_ready(&build) {
         return Err(Error::input(match args.file {
             Some(p) => format!("{}: {e}", p.display()),
@@ -110,56 +135,54 @@ pub fn run(args: &SearchArgs) -> Result<ExitCode, Error> {
             args.settings.threads
         ));
     }
+    Ok(build)
+}
+
+/// The search with a progress bar; `None` when Ctrl-C stopped it (said on stderr).
+fn search_with_progress(
+    build: &crate::model::Build,
+    settings: &Settings,
+) -> Result<Option<Outcome>, Error> {
     let bar = super::progress::Progress::new("searching");
     let stop = super::progress::ctrl_c_flag()
         .unwrap_or_else(|| std::sync::Arc::new(std::sync::atomic::AtomicBool::new(false)));
-    let result =
-        search::search_cancellable(&build, &args.settings, &|d, t| bar.update(d, t), &stop);
+    let result = search::search_cancellable(build, settings, &|d, t| bar.update(d, t), &stop);
     bar.finish();
-    let outcome = match result {
+    match result {
         // Ctrl-C: stop cleanly, write nothing, exit as an interrupted program does (128 + 2).
         Err(e @ search::SearchError::Cancelled { .. }) => {
             super::notice(&format!("{e} (Ctrl-C); nothing was printed or written"));
-            return Ok(ExitCode::from(EXIT_INTERRUPTED));
+            Ok(None)
         }
-        r => r?,
-    };
-    if let Some(out) = args.out {
-        let Some(c) = outcome.candidates.get(args.pick.saturating_sub(1)) else {
-            return Err(Error::input(format!(
-                "there is no candidate {} to write ({} found)",
-                args.pick,
-                outcome.candidates.len()
-            )));
-        };
-        // Written onto the input's text: its comments and layout stay, only the values the
-        // search changed are rewritten.
-        let saved =
-            save_build_keeping(out, args.file, &c.build).map_err(|source| Error::Write {
-                path: out.to_path_buf(),
-                source,
-            })?;
-        if !saved.note().is_empty() {
-            super::notice(&saved.note());
-        }
-        say(&format!(
-            "wrote candidate {} to {}: {}",
-            args.pick,
-            out.display(),
-            c.description
-        ));
+        r => Ok(Some(r?)),
     }
-    let text = if args.json {
-        outcome_json(&outcome)
-    } else {
-        report(&outcome, &args.settings)
+}
+
+/// `--out`: candidate `--pick` written onto the input's text, and said.
+fn write_pick(args: &SearchArgs, out: &Path, outcome: &Outcome) -> Result<(), Error> {
+    let Some(c) = outcome.candidates.get(args.pick.saturating_sub(1)) else {
+        return Err(Error::input(format!(
+            "there is no candidate {} to write ({} found)",
+            args.pick,
+            outcome.candidates.len()
+        )));
     };
-    emit(&text)?;
-    Ok(if outcome.candidates.is_empty() {
-        ExitCode::from(super::EXIT_DOES_NOT_FIT)
-    } else {
-        ExitCode::SUCCESS
-    })
+    // Written onto the input's text: its comments and layout stay, only the values the
+    // search changed are rewritten.
+    let saved = save_build_keeping(out, args.file, &c.build).map_err(|source| Error::Write {
+        path: out.to_path_buf(),
+        source,
+    })?;
+    if !saved.note().is_empty() {
+        super::notice(&saved.note());
+    }
+    say(&format!(
+        "wrote candidate {} to {}: {}",
+        args.pick,
+        out.display(),
+        c.description
+    ));
+    Ok(())
 }
 
 /// `search --json` (FORMAT.md, "turnstack search").

@@ -13,7 +13,7 @@ pub const EXIT_READING_OFF: u8 = 1;
 
 pub(super) fn run(file: &Path, json: bool) -> Result<ExitCode, Error> {
     let build = load_build(file)?;
-    let Some(measured) = build.measured() else {
+    let Some(measured) = &build.measured else {
         return Err(Error::input(format!(
             "{}: the build has no [measured] table; add the bench readings, for \
              example\n\n[measured]\nreading_c = 22.0\ndcr_ohm = {{ P = 0.058, S = 0.020 }}\n\

@@ -3,7 +3,7 @@
 
 use super::magnetics::{self, AlSource};
 use super::outputs::{self, OutputEval};
-use crate::model::{Build, ResetSide, Role};
+use crate::model::{Build, Operating, ResetSide, Role};
 
 /// The single-switch forward converter's figures at the operating point: turns, duty
 /// limits and needs, switch voltage, reset time, flux swing and magnetising currents.
@@ -109,6 +109,44 @@ pub fn reset_limits(
     }
 }
 
+/// The duties at the operating point, as [`evaluate`] reports them.
+struct Duties {
+    /// min(duty_limit, reset duty limit).
+    max: f64,
+    /// `max`, and at most the steady ceiling for secondary-side reset.
+    available: f64,
+    /// Needed at `vin_min_v`, ideal switch.
+    needed_at_vin_min: f64,
+    /// Needed at `vin_min_v` with the switch's drop taken off the input.
+    needed_switch: f64,
+    /// Needed at `vin_max_v`, ideal switch.
+    needed_at_vin_max: f64,
+    /// The duty the currents use at `vin_min_v`: min(needed, available).
+    used: f64,
+}
+
+/// The duty figures from the output plus its rectifier drop (`vo`, V) and the primary and
+/// secondary turns, the reset's duty limit and, reset to the output, its steady ceiling.
+fn duties(
+    op: &Operating,
+    (vo, npf, nsf): (f64, f64, f64),
+    reset_limit: f64,
+    ceiling: Option<f64>,
+) -> Duties {
+    let max = op.duty_limit.map_or(reset_limit, |d| d.min(reset_limit));
+    let available = ceiling.map_or(max, |c| max.min(c.max(0.0)));
+    let needed_at_vin_min = vo * npf / (nsf * op.vin_min_v);
+    let vin_on = (op.vin_min_v - op.switch_drop_v).max(f64::MIN_POSITIVE);
+    Duties {
+        max,
+        available,
+        needed_at_vin_min,
+        needed_switch: vo * npf / (nsf * vin_on),
+        needed_at_vin_max: vo * npf / (nsf * op.vin_max_v),
+        used: needed_at_vin_min.min(available).max(0.0),
+    }
+}
+
 /// `None` when the build has no operating point or lacks what it needs (validation refuses
 /// those builds; this keeps `evaluate` total).
 pub fn evaluate(build: &Build) -> Option<ConverterEval> {
@@ -133,29 +171,22 @@ pub fn evaluate(build: &Build) -> Option<ConverterEval> {
         .sum();
     let (reset_duty_limit, switch_voltage_v, steady_duty_ceiling) =
         reset_limits(op.reset_side, op.vin_max_v, vo, (npf, nsf, nrf));
-    let duty_max = op
-        .duty_limit
-        .map_or(reset_duty_limit, |d| d.min(reset_duty_limit));
-    let duty_available = steady_duty_ceiling.map_or(duty_max, |c| duty_max.min(c.max(0.0)));
-    let duty_needed_at_vin_min = vo * npf / (nsf * op.vin_min_v);
-    let vin_on = (op.vin_min_v - op.switch_drop_v).max(f64::MIN_POSITIVE);
-    let duty_needed_switch = vo * npf / (nsf * vin_on);
-    let duty_needed_at_vin_max = vo * npf / (nsf * op.vin_max_v);
-    let duty_used = duty_needed_at_vin_min.min(duty_available).max(0.0);
+    let duty = duties(op, (vo, npf, nsf), reset_duty_limit, steady_duty_ceiling);
     // Volt-second balance: the reset voltage on the primary is Vin Np/Nr (clamped to the
     // input) or Vo' Np/Nr (clamped to the output).
-    let reset_fraction = |vin: f64, duty: f64| match op.reset_side {
-        ResetSide::Primary => duty * nrf / npf,
-        ResetSide::Secondary => vin * duty * nrf / (vo * npf),
+    let reset_fraction = |vin: f64, on: f64| match op.reset_side {
+        ResetSide::Primary => on * nrf / npf,
+        ResetSide::Secondary => vin * on * nrf / (vo * npf),
     };
-    let reset_used = reset_fraction(op.vin_min_v, duty_used);
+    let reset_used = reset_fraction(op.vin_min_v, duty.used);
     let core = build.bobbin.core.as_ref();
     let swing_mt =
-        |vin: f64, duty: f64| core.map(|c| vin * duty / (f_hz * npf * c.ae_mm2 * 1e-6) * 1e3);
+        |vin: f64, on: f64| core.map(|c| vin * on / (f_hz * npf * c.ae_mm2 * 1e-6) * 1e3);
     let al = core.and_then(|c| magnetics::al_nh(c, build.material.as_ref()));
     let lm_h = al.map(|(al, _)| al * 1e-9 * npf * npf).filter(|l| *l > 0.0);
-    let im_steady = lm_h.map(|l| op.vin_min_v * duty_used * period_s / l);
-    let im_worst = lm_h.map(|l| op.vin_max_v * duty_max * period_s / l);
+    // The magnetising current's peak: V t_on / Lm, steady at vin_min_v and worst at vin_max_v.
+    let peak = |vin: f64, on: f64| lm_h.map(|l| vin * on * period_s / l);
+    let (im_steady, im_worst) = (peak(op.vin_min_v, duty.used), peak(op.vin_max_v, duty.max));
     let reset_peak_a = im_steady.map(|i| i * npf / nrf);
     Some(ConverterEval {
         reset_side: op.reset_side,
@@ -164,23 +195,23 @@ pub fn evaluate(build: &Build) -> Option<ConverterEval> {
         nr,
         reset_duty_limit,
         reset_duty_limit_primary_side: npf / (npf + nrf),
-        duty_max,
-        duty_available,
+        duty_max: duty.max,
+        duty_available: duty.available,
         switch_voltage_v,
         switch_rating_v: op.switch_rating_v,
-        duty_needed_at_vin_min,
-        duty_needed_at_vin_max,
-        duty_margin: duty_available - duty_needed_switch,
-        duty_needed_total_at_vin_min: duty_needed_switch,
+        duty_needed_at_vin_min: duty.needed_at_vin_min,
+        duty_needed_at_vin_max: duty.needed_at_vin_max,
+        duty_margin: duty.available - duty.needed_switch,
+        duty_needed_total_at_vin_min: duty.needed_switch,
         leakage_ps_uh: None,
         clamp_peak_a: None,
         clamp_loss_w: None,
         duty_lost_to_leakage: None,
         steady_duty_ceiling,
         reset_time_us: reset_used * period_s * 1e6,
-        reset_time_worst_us: reset_fraction(op.vin_max_v, duty_max) * period_s * 1e6,
-        flux_swing_worst_mt: swing_mt(op.vin_max_v, duty_max),
-        flux_swing_steady_mt: swing_mt(op.vin_min_v, duty_used),
+        reset_time_worst_us: reset_fraction(op.vin_max_v, duty.max) * period_s * 1e6,
+        flux_swing_worst_mt: swing_mt(op.vin_max_v, duty.max),
+        flux_swing_steady_mt: swing_mt(op.vin_min_v, duty.used),
         flux_headroom_mt: build.material.as_ref().map(|m| m.bsat_mt - m.br_mt),
         al_nh: al.map(|a| a.0),
         al_source: al.map(|a| a.1),
@@ -192,7 +223,7 @@ pub fn evaluate(build: &Build) -> Option<ConverterEval> {
         // A triangle from the peak to zero over the reset time.
         reset_rms_a: reset_peak_a.map(|i| i * (reset_used.min(1.0) / 3.0).sqrt()),
         reset_current_density_a_mm2: None,
-        duty_used_at_vin_min: duty_used,
+        duty_used_at_vin_min: duty.used,
         reflected_a,
         outputs: outputs::evaluate(build),
     })

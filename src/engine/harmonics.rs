@@ -146,7 +146,8 @@ pub fn spectrum(w: &Waveform, count: usize) -> Spectrum {
     let mut z: Vec<(f64, f64)> = vec![(1.0, 0.0); ends.len()];
     let harmonic_rms_sq = (1..=count)
         .map(|n| {
-            let w = 2.0 * PI * n as f64;
+            let inv_w = 1.0 / (2.0 * PI * n as f64);
+            let inv_w2 = inv_w * inv_w;
             let (mut re, mut im) = (0.0, 0.0);
             for (k, e) in ends.iter().enumerate() {
                 let (zr, zi) = z[k];
@@ -154,7 +155,7 @@ pub fn spectrum(w: &Waveform, count: usize) -> Spectrum {
                 let (c, ms) = (zr * sr - zi * si, zr * si + zi * sr);
                 z[k] = (c, ms);
                 // e^(-j w t) (s / w^2 + j y / w), with e^(-j w t) = c + j ms.
-                let (a, b) = (e.2 / (w * w), e.1 / w);
+                let (a, b) = (e.2 * inv_w2, e.1 * inv_w);
                 re += e.3 * (c * a - ms * b);
                 im += e.3 * (c * b + ms * a);
             }
@@ -180,7 +181,9 @@ pub fn summed_terms(s: &Spectrum, d: f64) -> (f64, f64) {
         if p <= 1e-12 * s.rms_sq {
             continue;
         }
-        last = crate::engine::ac::d_terms(d * ((k + 1) as f64).sqrt());
+        // The terms from the table (to about 1e-7): an exp and a sin_cos per harmonic were
+        // most of a cold evaluation's time.
+        last = crate::engine::dowell_table::d_terms(d * ((k + 1) as f64).sqrt());
         a += p * last.0;
         b += p * last.1;
         summed += p;

@@ -3,8 +3,9 @@
 
 use super::layout::{Resolved, turns_per_layer, usable_width_mm};
 use super::material_checks::check_material;
+use super::operating_checks::check_operating;
 use crate::library::wires::AWG_RANGE;
-use crate::model::{Bobbin, Build, Conductor, Role, Section, Tube, WindingSection, WireSize};
+use crate::model::{Bobbin, Build, Conductor, Section, Tube, WindingSection, WireSize};
 use std::fmt;
 
 pub use super::build_size::{MAX_SECTIONS, MAX_WINDINGS};
@@ -467,103 +468,6 @@ fn check_turn_sums(build: &Build, resolved: &Resolved, bad: &mut dyn FnMut(Place
                 )
             };
             bad(Place::Winding(k, "turns"), msg);
-        }
-    }
-}
-
-/// The operating point: it needs a frequency, and its figures must be in range.
-fn check_operating(build: &Build, _resolved: &Resolved, bad: &mut dyn FnMut(Place, String)) {
-    let s = &build.setup;
-    // The operating point.
-    if let Some(op) = &build.operating {
-        if s.frequency_khz.is_none() {
-            bad(
-                Place::Operating(""),
-                "an [operating] point needs the switching frequency: add frequency_khz to [setup]"
-                    .into(),
-            );
-        }
-        for role in [Role::Primary, Role::Secondary, Role::Reset] {
-            if build.first_of(role).is_none() {
-                bad(
-                    Place::Top("operating"),
-                    format!(
-                        "an [operating] point needs a winding of role \"{}\"",
-                        role.key()
-                    ),
-                );
-            }
-        }
-        // With [[output]] tables the regulated output is checked as output #1.
-        let shorthand = op.outputs.is_empty();
-        for (key, v) in [
-            ("vin_min_v", op.vin_min_v),
-            ("vin_max_v", op.vin_max_v),
-            ("vout_v", if shorthand { op.vout_v } else { 1.0 }),
-        ] {
-            if !positive(v) {
-                bad(
-                    Place::Operating(key),
-                    format!("must be a positive voltage, got {v}"),
-                );
-            }
-        }
-        if op.vin_min_v > op.vin_max_v {
-            bad(
-                Place::Operating("vin_min_v"),
-                format!("is above vin_max_v ({} > {})", op.vin_min_v, op.vin_max_v),
-            );
-        }
-        if shorthand && !(op.iout_a.is_finite() && op.iout_a >= 0.0) {
-            bad(
-                Place::Operating("iout_a"),
-                format!("must be zero or positive, got {}", op.iout_a),
-            );
-        }
-        if !(op.rectifier_drop_v.is_finite() && op.rectifier_drop_v >= 0.0) {
-            bad(
-                Place::Operating("rectifier_drop_v"),
-                format!("must be zero or positive, got {}", op.rectifier_drop_v),
-            );
-        }
-        if let Some(d) = op.duty_limit
-            && !(d > 0.0 && d < 1.0)
-        {
-            bad(
-                Place::Operating("duty_limit"),
-                format!("expected a fraction between 0 and 1, got {d}"),
-            );
-        }
-        if !(op.switch_drop_v.is_finite()
-            && op.switch_drop_v >= 0.0
-            && op.switch_drop_v < op.vin_min_v)
-        {
-            bad(
-                Place::Operating("switch_drop_v"),
-                format!(
-                    "expected zero or a drop below vin_min_v, got {}",
-                    op.switch_drop_v
-                ),
-            );
-        }
-        if let Some(t) = op.ambient_c
-            && !(t.is_finite() && (-60.0..=200.0).contains(&t))
-        {
-            bad(
-                Place::Operating("ambient_c"),
-                format!("expected an ambient between -60 and 200 C, got {t}"),
-            );
-        }
-        for (key, v) in [
-            ("rise_limit_c", op.rise_limit_c),
-            ("surface_area_cm2", op.surface_area_cm2),
-            ("switch_rating_v", op.switch_rating_v),
-        ] {
-            if let Some(v) = v
-                && !positive(v)
-            {
-                bad(Place::Operating(key), format!("must be positive, got {v}"));
-            }
         }
     }
 }

@@ -18,6 +18,7 @@ use super::constants::{MM, MM2, MU0_H_PER_M};
 use super::magnetics::{self, AlSource};
 use super::measured_core as core_test;
 use super::resistance::temperature_ratio;
+use super::verify_conductor::{ImpliedConductor, implied_conductor};
 use crate::library::wires;
 use crate::model::{Build, Measured, Name, Role, WireSize};
 
@@ -167,8 +168,11 @@ pub enum Finding {
         planned_bare_mm: f64,
         /// The diameter that gives the measured resistance over the planned length.
         implied_bare_mm: f64,
-        /// A wire size of the plan's series within `WIRE_MATCH` of the implied diameter.
+        /// A wire size of the plan's series within `WIRE_MATCH` of the implied diameter
+        /// (round wire only: foil and litz say what `conductor` holds instead).
         likely_wire: Option<WireSize>,
+        /// Foil: the thickness implied; litz: the strands implied; `None` for round wire.
+        conductor: Option<ImpliedConductor>,
         /// The plan's wire length of the winding (m).
         planned_length_m: f64,
         /// The length that gives the measured resistance with the planned wire.
@@ -321,7 +325,7 @@ pub fn magnetising_uh(build: &Build, turns: u32) -> Option<(f64, AlSource)> {
 
 /// The readings of the build's `[measured]` table against the plan; `None` without a table.
 pub fn verify(build: &Build, eval: &Evaluation) -> Option<Verification> {
-    let m = build.measured()?;
+    let m = build.measured.as_ref()?;
     let at_c = m.reading_temperature_c();
     let preds = predictions(build, eval, at_c);
     let find = |q: &Quantity| preds.iter().find(|p| p.quantity == *q).cloned();
@@ -420,12 +424,18 @@ fn dcr_checks(
         {
             let factor = r / p.expected;
             let implied_bare_mm = e.bare_mm / factor.sqrt();
-            let size = build.winding(name).map(|w| w.wire);
+            let conductor = implied_conductor(&e.conductor, factor);
+            // A foil or a bundle has no round size to be mistaken for.
+            let size = build
+                .winding(name)
+                .map(|w| w.wire)
+                .filter(|_| conductor.is_none());
             findings.push(Finding::ResistanceOff {
                 factor,
                 planned_bare_mm: e.bare_mm,
                 implied_bare_mm,
                 likely_wire: size.and_then(|s| likely_wire(s, e.bare_mm, implied_bare_mm)),
+                conductor,
                 planned_length_m: e.length_m,
                 implied_length_m: e.length_m * factor,
             });

@@ -20,9 +20,9 @@ pub fn fnv1a64(bytes: &[u8]) -> u64 {
 /// The `[measured]` table is left out: readings of a part do not change its plan.
 pub fn build_id(build: &Build) -> String {
     let plan;
-    let build = if build.measured().is_some() {
+    let build = if build.measured.is_some() {
         let mut b = build.clone();
-        b.set_measured(None);
+        b.measured = None;
         plan = b;
         &plan
     } else {

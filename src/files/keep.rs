@@ -11,7 +11,7 @@
 //! above it. Windings are matched by name, stack sections by content (a longest common
 //! subsequence), so an insertion or deletion in the middle leaves the others alone.
 
-use super::save::build_to_toml;
+use super::build_toml::build_to_toml;
 use crate::model::WireSize;
 use toml_edit::{ArrayOfTables, DocumentMut, InlineTable, Item, Table, Value};
 

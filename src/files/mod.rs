@@ -3,6 +3,7 @@
 
 #![warn(missing_docs)]
 mod build_id;
+mod build_toml;
 mod convert;
 mod demo;
 mod error;
@@ -14,6 +15,7 @@ mod recovery;
 mod save;
 
 pub use build_id::{build_id, fnv1a64};
+pub use build_toml::build_to_toml;
 pub use convert::{MAX_SECTIONS, MAX_WINDINGS};
 pub use demo::{demo_build, demo_requirements};
 pub use error::LoadError;
@@ -22,9 +24,7 @@ pub use lookup::{BobbinEntry, BobbinLibrary, BobbinOrigin, USER_BOBBINS_ENV, use
 pub use recovery::{
     RECOVERY_ENV, discard_recovery, read_recovery, recovery_dir, recovery_path, write_recovery,
 };
-pub use save::{
-    bobbin_to_toml, build_to_toml, check_output, resolve_target, wire_text, write_atomic,
-};
+pub use save::{bobbin_to_toml, check_output, resolve_target, wire_text, write_atomic};
 
 use crate::model::{Bobbin, Build};
 use std::path::{Path, PathBuf};

@@ -1,15 +1,13 @@
-//! Writing builds and bobbins as tidy, hand-editable TOML, and replacing files atomically.
+//! Writing bobbins as tidy, hand-editable TOML (with the number, string and bobbin forms the
+//! build file's text in `build_toml.rs` shares), and replacing files atomically.
 
-use crate::model::{
-    Bobbin, BobbinSource, Build, Conductor, Foil, Insulation, Litz, Measured, ResetSide, Section,
-    Tube, WireSize,
-};
+use crate::model::{Bobbin, Tube, WireSize};
 use std::fmt::Write as _;
 use std::io::Write as _;
 use std::path::{Path, PathBuf};
 
 /// Shortest text that reads back as the same number, always with a decimal point.
-fn num(x: f64) -> String {
+pub(super) fn num(x: f64) -> String {
     let s = format!("{x:?}");
     if s.contains(['.', 'e', 'E']) || !x.is_finite() {
         s
@@ -28,41 +26,8 @@ pub fn wire_text(w: &WireSize) -> String {
     }
 }
 
-/// A foil's inline wire table with every key the build states (defaults stay left out).
-fn foil_table(f: &Foil) -> String {
-    let mut keys = vec![format!("foil_mm = {}", num(f.thickness_mm))];
-    for (k, v) in [
-        ("width_mm", f.width_mm),
-        ("interleaf_mm", f.interleaf_mm),
-        ("overhang_mm", f.overhang_mm),
-        ("tab_mm", f.tab_mm),
-    ] {
-        if let Some(v) = v {
-            keys.push(format!("{k} = {}", num(v)));
-        }
-    }
-    format!("{{ {} }}", keys.join(", "))
-}
-
-/// A litz's inline wire table with every key the build states (defaults stay left out).
-fn litz_table(l: &Litz) -> String {
-    let mut keys = vec![
-        format!("litz_strands = {}", l.strands),
-        format!("strand_mm = {}", num(l.strand_mm)),
-    ];
-    for (k, v) in [
-        ("serving_mm", l.serving_mm),
-        ("packing", l.packing),
-        ("lay_factor", l.lay_factor),
-    ] {
-        if let Some(v) = v {
-            keys.push(format!("{k} = {}", num(v)));
-        }
-    }
-    format!("{{ {} }}", keys.join(", "))
-}
-
-fn quote(s: &str) -> String {
+/// A TOML string, quoted and escaped.
+pub(super) fn quote(s: &str) -> String {
     toml::Value::String(s.to_string()).to_string()
 }
 
@@ -225,7 +190,8 @@ fn default_permissions() -> Option<std::fs::Permissions> {
     None
 }
 
-fn bobbin_keys(out: &mut String, b: &Bobbin, prefix: &str) {
+/// A bobbin's keys, its tables named after `prefix` (`"bobbin."` inside a build file).
+pub(super) fn bobbin_keys(out: &mut String, b: &Bobbin, prefix: &str) {
     if !b.name.is_empty() {
         let _ = writeln!(out, "name = {}", quote(&b.name));
     }
@@ -275,197 +241,6 @@ pub fn bobbin_to_toml(b: &Bobbin) -> String {
     out
 }
 
-/// A build file; reading it back gives the same build.
-pub fn build_to_toml(build: &Build) -> String {
-    let mut out = String::from("format = 1\n");
-    let _ = writeln!(out, "title = {}", quote(&build.title));
-    match &build.bobbin_source {
-        BobbinSource::Id(id) => {
-            let _ = writeln!(out, "bobbin = {}", quote(id));
-        }
-        BobbinSource::Inline => {
-            out.push_str("\n[bobbin]\n");
-            bobbin_keys(&mut out, &build.bobbin, "bobbin.");
-        }
-    }
-    let s = &build.setup;
-    let _ = writeln!(out, "\n[setup]");
-    // Left out, the windings are taken at ambient + rise: a save must not fix them at 20 C.
-    if s.temperature_given {
-        let _ = writeln!(out, "temperature_c = {}", num(s.temperature_c));
-    }
-    let _ = writeln!(out, "bulge = {}", num(s.bulge));
-    let _ = writeln!(out, "margin_mm = {}", num(s.margin_mm));
-    let _ = writeln!(out, "tape_mm = {}", num(s.tape_mm));
-    if let Some(f) = s.frequency_khz {
-        let _ = writeln!(out, "frequency_khz = {}", num(f));
-    }
-    for (key, v) in [
-        ("wire_class_c", s.wire_class_c),
-        ("tape_class_c", s.tape_class_c),
-        ("bobbin_class_c", s.bobbin_class_c),
-    ] {
-        if let Some(v) = v {
-            let _ = writeln!(out, "{key} = {}", num(v));
-        }
-    }
-    for w in &build.windings {
-        let _ = writeln!(out, "\n[[winding]]");
-        let _ = writeln!(out, "name = {}", quote(&w.name));
-        let _ = writeln!(out, "role = \"{}\"", w.role.key());
-        let _ = writeln!(out, "turns = {}", w.turns);
-        match (w.conductor, w.wire) {
-            (Conductor::Foil(f), _) => {
-                let _ = writeln!(out, "wire = {}", foil_table(&f));
-            }
-            (Conductor::Litz(l), _) => {
-                let _ = writeln!(out, "wire = {}", litz_table(&l));
-            }
-            (Conductor::Round, WireSize::Measured { bare_mm, od_mm }) => {
-                let _ = writeln!(
-                    out,
-                    "wire = {{ bare_mm = {}, od_mm = {} }}",
-                    num(bare_mm),
-                    num(od_mm)
-                );
-            }
-            (Conductor::Round, other) => {
-                let _ = writeln!(out, "wire = {}", quote(&wire_text(&other)));
-            }
-        }
-        // Foil has no enamel: the key is written only when a file gave another grade.
-        if !matches!(w.conductor, Conductor::Foil(_)) || w.insulation != Insulation::Grade2 {
-            let _ = writeln!(out, "insulation = \"{}\"", w.insulation.key());
-        }
-        if w.strands != 1 {
-            let _ = writeln!(out, "strands = {}", w.strands);
-        }
-        if let Some(c) = w.current_rms_a {
-            let _ = writeln!(out, "current_rms_a = {}", num(c));
-        }
-        if let Some(p) = &w.start_pin {
-            let _ = writeln!(out, "start_pin = {}", quote(p));
-        }
-        if let Some(p) = &w.finish_pin {
-            let _ = writeln!(out, "finish_pin = {}", quote(p));
-        }
-    }
-    for section in &build.stack {
-        let _ = writeln!(out, "\n[[stack]]");
-        match section {
-            Section::Tape { wraps } => {
-                let _ = writeln!(out, "tape = {wraps}");
-            }
-            Section::Winding(ws) => {
-                let _ = writeln!(out, "winding = {}", quote(&ws.winding));
-                if let Some(t) = ws.turns {
-                    let _ = writeln!(out, "turns = {t}");
-                }
-                if let Some(w) = &ws.with {
-                    let _ = writeln!(out, "with = {}", quote(w));
-                }
-                if ws.layer_tape > 0 {
-                    let _ = writeln!(out, "layer_tape = {}", ws.layer_tape);
-                }
-            }
-        }
-    }
-    if let Some(o) = &build.operating {
-        let _ = writeln!(out, "\n[operating]");
-        let _ = writeln!(out, "converter = \"forward\"");
-        let side = match o.reset_side {
-            ResetSide::Primary => "primary",
-            ResetSide::Secondary => "secondary",
-        };
-        let _ = writeln!(out, "reset_side = \"{side}\"");
-        let _ = writeln!(out, "vin_min_v = {}", num(o.vin_min_v));
-        let _ = writeln!(out, "vin_max_v = {}", num(o.vin_max_v));
-        // With [[output]] tables the regulated output is the first of them.
-        if o.outputs.is_empty() {
-            let _ = writeln!(out, "vout_v = {}", num(o.vout_v));
-            let _ = writeln!(out, "iout_a = {}", num(o.iout_a));
-        }
-        let _ = writeln!(out, "rectifier_drop_v = {}", num(o.rectifier_drop_v));
-        if let Some(d) = o.duty_limit {
-            let _ = writeln!(out, "duty_limit = {}", num(d));
-        }
-        if let Some(v) = o.rise_limit_c {
-            let _ = writeln!(out, "rise_limit_c = {}", num(v));
-        }
-        if let Some(v) = o.surface_area_cm2 {
-            let _ = writeln!(out, "surface_area_cm2 = {}", num(v));
-        }
-        if o.switch_drop_v != 0.0 {
-            let _ = writeln!(out, "switch_drop_v = {}", num(o.switch_drop_v));
-        }
-        for (key, v) in [
-            ("ambient_c", o.ambient_c),
-            ("switch_rating_v", o.switch_rating_v),
-        ] {
-            if let Some(v) = v {
-                let _ = writeln!(out, "{key} = {}", num(v));
-            }
-        }
-    }
-    for o in build.operating.iter().flat_map(|o| &o.outputs) {
-        let _ = writeln!(out, "\n[[output]]");
-        let _ = writeln!(out, "name = {}", quote(&o.winding));
-        let _ = writeln!(out, "vout_v = {}", num(o.vout_v));
-        let _ = writeln!(out, "iout_a = {}", num(o.iout_a));
-        if let Some(d) = o.rectifier_drop_v {
-            let _ = writeln!(out, "rectifier_drop_v = {}", num(d));
-        }
-    }
-    if let Some(m) = &build.material {
-        let _ = writeln!(out, "\n[material]");
-        // With a grade, only the values that differ from it are written: they are the
-        // user's overrides, and reading the file back gives the same material.
-        let grade = m.grade.as_deref().and_then(crate::library::materials::find);
-        if let Some(g) = grade {
-            let _ = writeln!(out, "grade = {}", quote(g.id));
-        }
-        if grade.is_none_or(|g| g.bsat_mt != m.bsat_mt) {
-            let _ = writeln!(out, "bsat_mt = {}", num(m.bsat_mt));
-        }
-        if grade.is_none_or(|g| g.br_mt != m.br_mt) {
-            let _ = writeln!(out, "br_mt = {}", num(m.br_mt));
-        }
-        if let Some(mu) = m.mu_i
-            && grade.is_none_or(|g| g.mu_i != mu)
-        {
-            let _ = writeln!(out, "mu_i = {}", num(mu));
-        }
-        if let Some(st) = m.steinmetz
-            && grade.is_none_or(|g| g.steinmetz != st)
-        {
-            let _ = writeln!(
-                out,
-                "steinmetz = {{ k = {}, alpha = {}, beta = {} }}",
-                num(st.k),
-                num(st.alpha),
-                num(st.beta)
-            );
-        }
-        if let Some(g) = m.gap_mm {
-            let _ = writeln!(out, "gap_mm = {}", num(g));
-        }
-    }
-    if let Some(i) = &build.isolation {
-        let _ = writeln!(out, "\n[isolation]");
-        let _ = writeln!(out, "class = \"{}\"", i.class.key());
-        if let Some(v) = i.working_voltage_v {
-            let _ = writeln!(out, "working_voltage_v = {}", num(v));
-        }
-        if let Some(c) = i.creepage_mm {
-            let _ = writeln!(out, "creepage_mm = {}", num(c));
-        }
-    }
-    if let Some(m) = build.measured() {
-        measured_keys(&mut out, m);
-    }
-    out
-}
-
 #[cfg(all(test, unix))]
 mod tests {
     use super::*;
@@ -496,51 +271,5 @@ mod tests {
             .filter_map(|e| e.ok())
             .collect();
         assert_eq!(left.len(), 2);
-    }
-}
-
-/// `[measured]`: the bench readings, keys in the order FORMAT.md lists them.
-fn measured_keys(out: &mut String, m: &Measured) {
-    let _ = writeln!(out, "\n[measured]");
-    if let Some(c) = m.reading_c {
-        let _ = writeln!(out, "reading_c = {}", num(c));
-    }
-    if let Some(f) = m.frequency_khz {
-        let _ = writeln!(out, "frequency_khz = {}", num(f));
-    }
-    let table = |pairs: &[(crate::model::Name, f64)]| {
-        let items: Vec<String> = pairs
-            .iter()
-            .map(|(n, x)| {
-                let key = if !n.is_empty()
-                    && n.chars()
-                        .all(|c| c.is_ascii_alphanumeric() || c == '_' || c == '-')
-                {
-                    n.to_string()
-                } else {
-                    quote(n)
-                };
-                format!("{key} = {}", num(*x))
-            })
-            .collect();
-        format!("{{ {} }}", items.join(", "))
-    };
-    if !m.dcr_ohm.is_empty() {
-        let _ = writeln!(out, "dcr_ohm = {}", table(&m.dcr_ohm));
-    }
-    if let Some(l) = m.magnetising_uh {
-        let _ = writeln!(out, "magnetising_uh = {}", num(l));
-    }
-    if let Some(l) = m.leakage_uh {
-        let _ = writeln!(out, "leakage_uh = {}", num(l));
-    }
-    if !m.ratio.is_empty() {
-        let _ = writeln!(out, "ratio = {}", table(&m.ratio));
-    }
-    if let Some(h) = &m.hipot {
-        let _ = writeln!(out, "hipot = {}", quote(h));
-    }
-    if let Some(n) = &m.note {
-        let _ = writeln!(out, "note = {}", quote(n));
     }
 }

@@ -1,6 +1,8 @@
 //! A winding build: the bobbin, the setup, the windings and the stack from the tube outward.
 
-use super::{Bobbin, Conductor, Insulation, Isolation, Material, Name, Operating, WireSize};
+use super::{
+    Bobbin, Conductor, Insulation, Isolation, Material, Measured, Name, Operating, WireSize,
+};
 
 /// What a winding does in the forward converter; the engine finds the primary, secondary
 /// and reset by it.
@@ -68,9 +70,6 @@ pub struct Setup {
     pub tape_mm: f64,
     /// Switching frequency (kHz) for the AC figures; `None` leaves them out.
     pub frequency_khz: Option<f64>,
-    /// The `[measured]` table (bench readings), kept here so every builder of a Build gets it
-    /// from `Setup::default()`; read it through `Build::measured`.
-    pub measured: Option<super::Measured>,
 }
 
 impl Default for Setup {
@@ -85,7 +84,6 @@ impl Default for Setup {
             margin_mm: 0.0,
             tape_mm: 0.06,
             frequency_khz: None,
-            measured: None,
         }
     }
 }
@@ -176,6 +174,9 @@ pub struct Build {
     pub material: Option<Material>,
     /// The declared insulation between primary and secondary sides, when the file gives one.
     pub isolation: Option<Isolation>,
+    /// The bench readings of the part wound from this build (the `[measured]` table), when
+    /// the file has them. Not part of the plan: the build id and the search leave them out.
+    pub measured: Option<Measured>,
 }
 
 impl Build {

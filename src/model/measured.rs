@@ -1,7 +1,7 @@
 //! What the bench measured on a finished part: the `[measured]` table of a build file.
 //! Plain data; `engine::verify` sets each reading against its prediction.
 
-use super::{Build, Name};
+use super::Name;
 
 /// Readings of a wound part. Every key is optional; a reading left out is not checked.
 #[derive(Debug, Clone, Default, PartialEq)]
@@ -39,17 +39,5 @@ impl Measured {
             && self.ratio.is_empty()
             && self.magnetising_uh.is_none()
             && self.leakage_uh.is_none()
-    }
-}
-
-impl Build {
-    /// The bench readings of this build's part, when the file has a `[measured]` table.
-    pub fn measured(&self) -> Option<&Measured> {
-        self.setup.measured.as_ref()
-    }
-
-    /// Replaces (or removes, with `None`) the bench readings.
-    pub fn set_measured(&mut self, m: Option<Measured>) {
-        self.setup.measured = m;
     }
 }

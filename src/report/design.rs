@@ -230,48 +230,7 @@ pub fn render(title: &str, outcome: &DesignOutcome) -> String {
         "\n  #  bobbin     turns        Nr/Np  Vsw V  duty+  B mT  loss W  rise C  spare"
     );
     for (i, d) in outcome.designs.iter().enumerate() {
-        let c = d.eval.converter.as_ref();
-        let _ = writeln!(
-            s,
-            "{:>3}  {:<10} {:<12} {:>5.2}  {:>5.1}  {:>5.3}  {:>4.0}  {:>6.3}  {:>6}  {:>5.2}",
-            i + 1,
-            crate::report::textfmt::truncate(&d.bobbin, 10),
-            crate::report::textfmt::truncate(&turns_text(d), 12),
-            reset_ratio(d),
-            c.map_or(0.0, |c| c.switch_voltage_v),
-            c.map_or(0.0, |c| c.duty_margin),
-            c.and_then(|c| c.flux_swing_worst_mt).unwrap_or(0.0),
-            d.total_loss_w,
-            d.eval
-                .losses
-                .as_ref()
-                .and_then(|l| l.temperature_rise_c)
-                .map_or("-".to_string(), |r| format!("{r:.1}")),
-            d.spare_height_mm,
-        );
-        let names: Vec<&str> = d.build.windings.iter().map(|w| w.name.as_str()).collect();
-        let outs: Vec<String> = d
-            .outputs
-            .iter()
-            .map(|o| {
-                format!(
-                    "{} {} V",
-                    o.winding,
-                    num((o.vout_from_turns_v * 100.0).round() / 100.0)
-                )
-            })
-            .collect();
-        let line = format!(
-            "turns {}; {}; binds: {}; reset: {}; {}",
-            names.join("/"),
-            outs.join(", "),
-            binds_text(d),
-            d.reset.binds.key(),
-            d.description
-        );
-        for l in crate::report::wrap(&line, 72, "") {
-            let _ = writeln!(s, "     {l}");
-        }
+        design_rows(&mut s, i + 1, d);
     }
     let _ = writeln!(
         s,
@@ -282,4 +241,51 @@ pub fn render(title: &str, outcome: &DesignOutcome) -> String {
         "Write one as a build file: turnstack design REQ.toml --out NEW.toml --pick N"
     );
     s
+}
+
+/// One design's row of the table (number `n`), and under it the line that names its turns,
+/// outputs, what binds and its reset, wrapped.
+fn design_rows(s: &mut String, n: usize, d: &Design) {
+    let c = d.eval.converter.as_ref();
+    let _ = writeln!(
+        s,
+        "{:>3}  {:<10} {:<12} {:>5.2}  {:>5.1}  {:>5.3}  {:>4.0}  {:>6.3}  {:>6}  {:>5.2}",
+        n,
+        crate::report::textfmt::truncate(&d.bobbin, 10),
+        crate::report::textfmt::truncate(&turns_text(d), 12),
+        reset_ratio(d),
+        c.map_or(0.0, |c| c.switch_voltage_v),
+        c.map_or(0.0, |c| c.duty_margin),
+        c.and_then(|c| c.flux_swing_worst_mt).unwrap_or(0.0),
+        d.total_loss_w,
+        d.eval
+            .losses
+            .as_ref()
+            .and_then(|l| l.temperature_rise_c)
+            .map_or("-".to_string(), |r| format!("{r:.1}")),
+        d.spare_height_mm,
+    );
+    let names: Vec<&str> = d.build.windings.iter().map(|w| w.name.as_str()).collect();
+    let outs: Vec<String> = d
+        .outputs
+        .iter()
+        .map(|o| {
+            format!(
+                "{} {} V",
+                o.winding,
+                num((o.vout_from_turns_v * 100.0).round() / 100.0)
+            )
+        })
+        .collect();
+    let line = format!(
+        "turns {}; {}; binds: {}; reset: {}; {}",
+        names.join("/"),
+        outs.join(", "),
+        binds_text(d),
+        d.reset.binds.key(),
+        d.description
+    );
+    for l in crate::report::wrap(&line, 72, "") {
+        let _ = writeln!(s, "     {l}");
+    }
 }

@@ -291,7 +291,8 @@ impl Report<'_> {
 /// The report of `check --json` for a build and its evaluation.
 pub fn report<'a>(build: &'a Build, eval: &'a Evaluation) -> Report<'a> {
     let checked = build
-        .measured()
+        .measured
+        .as_ref()
         .and_then(|_| crate::engine::verify::verify(build, eval));
     Report {
         format: 1,
@@ -328,7 +329,7 @@ pub fn report<'a>(build: &'a Build, eval: &'a Evaluation) -> Report<'a> {
         // Both or neither, as `verify --json` gives them.
         measured: checked
             .as_ref()
-            .and(build.measured().map(super::verify::measured_json)),
+            .and(build.measured.as_ref().map(super::verify::measured_json)),
         verify: checked.as_ref().map(super::verify::verify_json),
     }
 }

@@ -12,5 +12,6 @@ pub mod sheet;
 pub mod text;
 pub mod textfmt;
 pub mod verify;
+pub mod verify_conductor;
 
 pub use textfmt::wrap;

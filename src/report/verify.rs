@@ -10,6 +10,7 @@ use crate::engine::verify::{
     self, AL_SPREAD, Basis, DCR_TOLERANCE, Finding, LEAKAGE_ABOVE, LEAKAGE_BELOW, Prediction,
     Quantity, RATIO_TURN_FRACTION, ReadingCheck, Verification,
 };
+use crate::engine::verify_conductor::ImpliedConductor;
 use crate::model::{Build, Measured};
 use serde::Serialize;
 use serde_json::Value;
@@ -148,11 +149,27 @@ pub fn finding_words(f: &Finding) -> String {
         ),
         Finding::ResistanceOff {
             factor,
+            conductor: Some(c),
+            planned_length_m,
+            implied_length_m,
+            ..
+        } => format!(
+            "{factor:.2} times the expected resistance; {}",
+            super::verify_conductor::implied_conductor_words(
+                c,
+                *factor,
+                *planned_length_m,
+                *implied_length_m
+            )
+        ),
+        Finding::ResistanceOff {
+            factor,
             planned_bare_mm,
             implied_bare_mm,
             likely_wire,
             planned_length_m,
             implied_length_m,
+            ..
         } => resistance_words(
             *factor,
             *planned_bare_mm,
@@ -409,6 +426,10 @@ enum FindingJson {
         implied_bare_mm: f64,
         likely_wire: Option<String>,
         implied_length_m: f64,
+        #[serde(skip_serializing_if = "Option::is_none")]
+        implied_foil_mm: Option<f64>,
+        #[serde(skip_serializing_if = "Option::is_none")]
+        implied_strands: Option<f64>,
         words: String,
     },
     LeakageFactor {
@@ -465,12 +486,21 @@ fn finding_json(f: &Finding) -> FindingJson {
             implied_bare_mm,
             likely_wire,
             implied_length_m,
+            conductor,
             ..
         } => FindingJson::ResistanceOff {
             factor,
             implied_bare_mm,
             likely_wire: likely_wire.and_then(|w| w.key()),
             implied_length_m,
+            implied_foil_mm: match conductor {
+                Some(ImpliedConductor::FoilThickness { implied_mm, .. }) => Some(implied_mm),
+                _ => None,
+            },
+            implied_strands: match conductor {
+                Some(ImpliedConductor::LitzStrands { implied, .. }) => Some(implied),
+                _ => None,
+            },
             words,
         },
         Finding::LeakageFactor { factor } => FindingJson::LeakageFactor { factor, words },
@@ -548,7 +578,7 @@ pub fn verify_json(v: &Verification) -> Value {
 /// Add `measured` and `verify` to a JSON report when the build has a `[measured]` table;
 /// a build without one gets no new key.
 pub fn add_json(build: &Build, eval: &Evaluation, out: &mut Value) {
-    let (Some(m), Some(v)) = (build.measured(), verify::verify(build, eval)) else {
+    let (Some(m), Some(v)) = (&build.measured, verify::verify(build, eval)) else {
         return;
     };
     if let Some(obj) = out.as_object_mut() {

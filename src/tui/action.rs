@@ -21,6 +21,7 @@ pub enum Action {
     Material,
     Isolation,
     Readings,
+    ResetRatio,
     Search,
     Sheet,
     Pin,

@@ -125,6 +125,7 @@ impl App {
         match self.ui.overlays.last() {
             Some(Overlay::Help { .. }) => vec![Context::HelpScreen],
             Some(Overlay::Readings { .. }) => vec![Context::Readings],
+            Some(Overlay::ResetRatio) => vec![Context::ResetRatio],
             Some(Overlay::Picker(_) | Overlay::Form(_)) => vec![Context::List],
             Some(Overlay::Prompt(_)) => vec![Context::Prompt],
             Some(Overlay::Question(_)) => vec![Context::Question],
@@ -151,6 +152,7 @@ impl App {
         match self.ui.overlays.last().cloned() {
             Some(Overlay::Help { scroll }) => self.help_key(action, scroll),
             Some(Overlay::Readings { scroll }) => self.readings_key(action, scroll),
+            Some(Overlay::ResetRatio) => self.reset_ratio_key(action),
             Some(Overlay::Picker(p)) => self.picker_key(action, p),
             Some(Overlay::Form(f)) => return self.form_key(action, f),
             Some(Overlay::Prompt(p)) => return self.prompt_key(action, p),

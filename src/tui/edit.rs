@@ -6,19 +6,10 @@ use crate::model::{
     BobbinSource, Build, Insulation, Role, Section, Setup, Winding, WindingSection, WireSize,
 };
 
+use super::stated_turns::{pin_turns, turn_edit};
+
 /// A refused edit, in words for the status line.
 pub type Refusal = String;
-
-/// Write every winding section's resolved turns into it, so that moving sections around
-/// cannot change which section gets "what is left".
-pub fn pin_turns(b: &mut Build) {
-    let turns = b.section_turns();
-    for (s, t) in b.stack.iter_mut().zip(turns) {
-        if let Section::Winding(ws) = s {
-            ws.turns = Some(t);
-        }
-    }
-}
 
 fn ws(b: &Build, i: usize) -> Option<&WindingSection> {
     match b.stack.get(i) {
@@ -211,12 +202,17 @@ pub fn split_around(b: &mut Build, x: usize, y: usize) -> Result<usize, Refusal>
 }
 
 /// Set a section's turns; the difference goes to the nearest other section of the same pair,
-/// or, when there is none, to the winding's (and its partner's) total.
+/// or, when there is none, to the winding's (and its partner's) total. The section states
+/// its turns from then on; the others keep stating theirs or not (see `turn_edit`).
 pub fn set_section_turns(b: &mut Build, i: usize, n: u32) -> Result<(), Refusal> {
     if n == 0 {
         return Err("a section needs at least 1 turn".into());
     }
-    pin_turns(b);
+    turn_edit(b, Some(i), |b| section_turns_pinned(b, i, n))
+}
+
+/// `set_section_turns` on a build whose sections all state their turns.
+fn section_turns_pinned(b: &mut Build, i: usize, n: u32) -> Result<(), Refusal> {
     let old = turns_of(b, i);
     let Some(me) = ws(b, i).cloned() else {
         return Err("not a winding section".into());
@@ -381,25 +377,43 @@ pub fn rename(b: &mut Build, k: usize, new: &str) -> Result<(), Refusal> {
     Ok(())
 }
 
-/// Set a winding's turns; the difference goes to its outermost section of its own.
+/// Set a winding's turns; the difference goes to its section of its own that takes what is
+/// left (as the file says), or, when each states its turns, to the outermost one. No other
+/// section is made to state its turns (see `turn_edit`).
 pub fn set_winding_turns(b: &mut Build, k: usize, n: u32) -> Result<(), Refusal> {
     if n == 0 {
         return Err("a winding needs at least 1 turn".into());
     }
-    pin_turns(b);
+    let name = b.windings[k].name.clone();
+    let rest = plain_sections(b, &name, usize::MAX)
+        .into_iter()
+        .find(|&j| ws(b, j).is_some_and(|o| o.turns.is_none()));
+    turn_edit(b, None, |b| winding_turns_pinned(b, k, n, rest))
+}
+
+/// `set_winding_turns` on a build whose sections all state their turns; `rest` is the
+/// section that took what was left of the winding, if one did.
+fn winding_turns_pinned(
+    b: &mut Build,
+    k: usize,
+    n: u32,
+    rest: Option<usize>,
+) -> Result<(), Refusal> {
     let name = b.windings[k].name.clone();
     let old = b.windings[k].turns;
-    let Some(j) = plain_sections(b, &name, usize::MAX).into_iter().max() else {
+    let outermost = plain_sections(b, &name, usize::MAX).into_iter().max();
+    let Some(j) = rest.or(outermost) else {
         return Err(format!(
             "every turn of \"{name}\" is in a bifilar section: set that section's turns in the stack"
         ));
     };
     let t = i64::from(turns_of(b, j)) + i64::from(n) - i64::from(old);
     if t < 1 {
-        return Err(format!(
-            "the outermost section of \"{name}\" has only {} turns to give",
-            turns_of(b, j)
-        ));
+        let which = match rest {
+            Some(_) => format!("the section of \"{name}\" that takes the rest"),
+            None => format!("the outermost section of \"{name}\""),
+        };
+        return Err(format!("{which} has only {} turns to give", turns_of(b, j)));
     }
     if let Some(s) = ws_mut(b, j) {
         s.turns = Some(t as u32);
@@ -546,5 +560,6 @@ pub fn new_build(id: &str, bobbin: crate::model::Bobbin) -> Build {
         operating: None,
         material: None,
         isolation: None,
+        measured: None,
     }
 }

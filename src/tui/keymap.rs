@@ -23,6 +23,8 @@ pub enum Context {
     HelpScreen,
     /// The readings against the plan.
     Readings,
+    /// The reset-ratio view.
+    ResetRatio,
     /// While a search or a design runs.
     Job,
 }
@@ -38,6 +40,7 @@ impl Context {
             Context::Question => "questions",
             Context::HelpScreen => "this help",
             Context::Readings => "readings against the plan",
+            Context::ResetRatio => "reset-ratio view",
             Context::Job => "while a search or a design runs",
         }
     }
@@ -227,6 +230,13 @@ pub const BINDINGS: &[Binding] = &[
         Action::Readings,
         "",
         "bench readings of the wound part; its last row: predicted vs measured",
+    ),
+    b(
+        C::Main,
+        &[K::Char('D')],
+        Action::ResetRatio,
+        "",
+        "reset ratio: duty limit and switch voltage against the reset turns",
     ),
     b(
         C::Main,
@@ -529,6 +539,13 @@ pub const BINDINGS: &[Binding] = &[
         Action::Cancel,
         "back",
         "back to the readings form",
+    ),
+    b(
+        C::ResetRatio,
+        &[K::Esc, K::Char('D'), K::Char('q')],
+        Action::Cancel,
+        "close",
+        "close the reset-ratio view",
     ),
     b(
         C::Job,

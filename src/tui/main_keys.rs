@@ -49,6 +49,7 @@ impl App {
             Action::Material => self.open_form(FormKind::Material),
             Action::Isolation => self.open_form(FormKind::Isolation),
             Action::Readings => self.open_form(FormKind::Readings),
+            Action::ResetRatio => self.ui.overlays.push(Overlay::ResetRatio),
             Action::More | Action::Less => self.more_or_less(action == Action::More),
             Action::EditSection
             | Action::AddSection

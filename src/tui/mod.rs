@@ -16,6 +16,7 @@ pub mod keymap;
 mod main_keys;
 pub mod overlay;
 pub mod run;
+mod stated_turns;
 mod tasks;
 pub mod theme;
 pub mod ui;

@@ -1,6 +1,7 @@
 //! The keys of `check --json` against the contract: the key lists of the build-format spec
 //! ("The JSON report: `check FILE --json`") and the additions FORMAT.md documents ("JSON
-//! additions", "JSON extras"), written out here, so a renamed, lost or undocumented key fails.
+//! additions", "JSON extras"), written out here, so a renamed, lost or undocumented key fails;
+//! and the keys of `design --json` (FORMAT.md, "Requirements file and `turnstack design`").
 
 use crate::common::example;
 use serde_json::Value;
@@ -344,4 +345,130 @@ fn outputs_are_listed_only_with_output_tables() {
     assert_eq!(outputs[1]["winding"], "S12");
     let (b, e) = example("bench-forward");
     assert!(json::report(&b, &e).to_value().get("outputs").is_none());
+}
+
+/// `design --json`, the top level (the issue's contract: `designs` best first, `binding` a
+/// string or null).
+const DESIGN_TOP: &[&str] = &["designs", "binding"];
+/// Each design: the keys the issue requires of every design...
+const DESIGN_REQUIRED: &[&str] = &[
+    "bobbin",
+    "turns",
+    "reset_duty_limit",
+    "switch_voltage_v",
+    "total_loss_w",
+    "temperature_rise_c",
+    "spare_height_mm",
+];
+/// ...and the further ones FORMAT.md documents ("Requirements file and `turnstack design`").
+const DESIGN_EXTRA: &[&str] = &[
+    "reset_ratio",
+    "duty_limit",
+    "switch_allowed_v",
+    "duty_margin",
+    "flux_swing_worst_mt",
+    "flux_headroom_mt",
+    "binding_limit",
+    "binding_margin",
+    "reset_binds",
+    "outputs",
+    "description",
+];
+/// Each entry of a design's `outputs`.
+const DESIGN_OUTPUT_KEYS: &[&str] = &["winding", "turns", "vout_v", "vout_from_turns_v"];
+
+/// The design JSON's keys and their kinds: every design carries the required keys and only
+/// documented ones, `turns` maps each winding's name to a whole number, the required figures
+/// are numbers, and `binding` is null with designs and a sentence without.
+fn check_design_json(v: &Value) -> Result<(), String> {
+    holds("design", v, DESIGN_TOP, &[])?;
+    let designs = v["designs"].as_array().ok_or("designs: not an array")?;
+    let binding = &v["binding"];
+    match (designs.is_empty(), binding) {
+        (false, Value::Null) => {}
+        (true, Value::String(s)) if !s.is_empty() => {}
+        (_, b) => return Err(format!("binding {b} with {} designs", designs.len())),
+    }
+    for (i, d) in designs.iter().enumerate() {
+        let what = format!("design {i}");
+        holds(&what, d, DESIGN_REQUIRED, DESIGN_EXTRA)?;
+        if !d["bobbin"].is_string() {
+            return Err(format!("{what}: bobbin not a string"));
+        }
+        let turns = d["turns"].as_object().ok_or("turns: not an object")?;
+        if turns.is_empty() || !turns.values().all(|t| t.as_u64().is_some_and(|n| n > 0)) {
+            return Err(format!("{what}: turns {}", d["turns"]));
+        }
+        for k in &DESIGN_REQUIRED[2..] {
+            if !d[*k].is_number() {
+                return Err(format!("{what}: {k} is {}", d[*k]));
+            }
+        }
+        for o in d["outputs"].as_array().ok_or("outputs: not an array")? {
+            holds(&format!("{what} output"), o, DESIGN_OUTPUT_KEYS, &[])?;
+        }
+    }
+    Ok(())
+}
+
+/// The bench supply's requirements on one bundled bobbin, and with a switch too small for any
+/// reset ratio (at a duty limit of 0.45 the off-state voltage is at least 28 / 0.55 = 51 V,
+/// over 0.8 x 60 V).
+fn design_value(rating_v: u32) -> Value {
+    use std::sync::atomic::AtomicBool;
+    use turnstack::engine::design::{DesignSettings, design};
+    use turnstack::files::{BobbinLibrary, parse_requirements};
+    let text = format!(
+        "format = 1\nbobbins = [\"e25-13-7\"]\n[setup]\nfrequency_khz = 100\n[operating]\n\
+         vin_min_v = 20\nvin_max_v = 28\nvout_v = 5\niout_a = 4\nrectifier_drop_v = 0.5\n\
+         duty_limit = 0.45\nambient_c = 40\n[material]\ngrade = \"mnzn-power-100c\"\n\
+         [switch]\nvoltage_rating_v = {rating_v}\n"
+    );
+    let library = BobbinLibrary::bundled_only();
+    let req = parse_requirements(&text, None, &library).unwrap_or_else(|e| panic!("{e}"));
+    let bobbins: Vec<_> = library
+        .entries()
+        .into_iter()
+        .filter(|e| e.id == "e25-13-7")
+        .map(|e| (e.id, e.bobbin.unwrap()))
+        .collect();
+    let outcome = design(
+        &req,
+        &bobbins,
+        &DesignSettings::default(),
+        &|_, _| {},
+        &AtomicBool::new(false),
+    );
+    serde_json::to_value(turnstack::report::design::json(
+        &outcome,
+        req.switch.allowed_v(),
+    ))
+    .unwrap()
+}
+
+/// `design --json` holds the issue's keys (FORMAT.md, "Requirements file and `turnstack
+/// design`"): with designs found, and with none (`binding` the sentence naming the rating).
+#[test]
+fn design_json_keys_are_the_documented_set() {
+    let found = design_value(100);
+    assert!(!found["designs"].as_array().unwrap().is_empty());
+    check_design_json(&found).unwrap();
+    let turns = found["designs"][0]["turns"].as_object().unwrap();
+    assert_eq!(turns.keys().collect::<Vec<_>>(), ["P", "R", "S"]);
+    let none = design_value(60);
+    check_design_json(&none).unwrap();
+    assert!(none["binding"].as_str().unwrap().contains("60 V"), "{none}");
+    // The check fails on a lost key, an undocumented one, and a binding beside designs.
+    let mut lost = found.clone();
+    lost["designs"][0]
+        .as_object_mut()
+        .unwrap()
+        .remove("switch_voltage_v");
+    assert!(check_design_json(&lost).is_err());
+    let mut unknown = found.clone();
+    unknown["designs"][0]["loss_mw"] = Value::from(1.0);
+    assert!(check_design_json(&unknown).is_err());
+    let mut both = found;
+    both["binding"] = Value::from("why");
+    assert!(check_design_json(&both).is_err());
 }

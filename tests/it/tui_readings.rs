@@ -49,7 +49,7 @@ fn open_view(app: &mut App) {
 #[test]
 fn readings_typed_in_are_stored_one_edit_each_and_undo_removes_them() {
     let mut app = bench_app();
-    assert!(app.doc.build.measured().is_none());
+    assert!(app.doc.build.measured.as_ref().is_none());
     press(&mut app, "R");
     assert!(
         matches!(app.ui.overlays.last(), Some(Overlay::Form(f)) if f.kind == FormKind::Readings)
@@ -84,7 +84,12 @@ fn readings_typed_in_are_stored_one_edit_each_and_undo_removes_them() {
     enter_reading(&mut app, "leakage inductance", "", "0.6");
     enter_reading(&mut app, "voltage ratio", "S /", "0.667");
 
-    let m = app.doc.build.measured().expect("the readings are stored");
+    let m = app
+        .doc
+        .build
+        .measured
+        .as_ref()
+        .expect("the readings are stored");
     assert_eq!(m.reading_c, Some(22.0));
     assert_eq!(m.dcr_ohm.len(), 1);
     assert_eq!((m.dcr_ohm[0].0.as_str(), m.dcr_ohm[0].1), ("S", 0.0203));
@@ -95,21 +100,24 @@ fn readings_typed_in_are_stored_one_edit_each_and_undo_removes_them() {
 
     // An empty entry clears that reading only.
     enter_reading(&mut app, "leakage inductance", "", "");
-    assert_eq!(app.doc.build.measured().unwrap().leakage_uh, None);
+    assert_eq!(app.doc.build.measured.as_ref().unwrap().leakage_uh, None);
     assert_eq!(
-        app.doc.build.measured().unwrap().magnetising_uh,
+        app.doc.build.measured.as_ref().unwrap().magnetising_uh,
         Some(1200.0)
     );
 
     // Six accepted values, six undo steps; then the build has no table again.
     press(&mut app, "<esc>");
     press(&mut app, "u");
-    assert_eq!(app.doc.build.measured().unwrap().leakage_uh, Some(0.6));
+    assert_eq!(
+        app.doc.build.measured.as_ref().unwrap().leakage_uh,
+        Some(0.6)
+    );
     press(&mut app, "uuuuu");
     assert!(
-        app.doc.build.measured().is_none(),
+        app.doc.build.measured.as_ref().is_none(),
         "{:?}",
-        app.doc.build.measured()
+        app.doc.build.measured.as_ref()
     );
 }
 

@@ -371,8 +371,8 @@ fn save_keeps_the_table() {
     let b = parse(&text);
     let saved = files::build_to_toml(&b);
     let again = parse(&saved);
-    assert_eq!(again.measured(), b.measured(), "{saved}");
-    let m = again.measured().unwrap();
+    assert_eq!(again.measured, b.measured, "{saved}");
+    let m = again.measured.as_ref().unwrap();
     assert_eq!(m.dcr_ohm[0].0.as_str(), "P", "in the build's winding order");
     assert_eq!(m.hipot.as_deref(), Some("1.5 kV 60 s, no breakdown"));
     // A build without the table saves none.

@@ -94,6 +94,7 @@ pub fn build_for(req: &Requirements, id: &str, bobbin: &Bobbin, turns: &Turns) -
         operating: Some(operating),
         material: Some(req.material.clone()),
         isolation: None,
+        measured: None,
     }
 }
 

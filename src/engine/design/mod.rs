@@ -9,6 +9,7 @@
 mod candidate;
 mod rank;
 pub mod reset_ratio;
+mod spread;
 pub mod turns;
 
 pub use candidate::{build_for, winding_names};
@@ -18,7 +19,11 @@ pub use reset_ratio::{ResetBind, ResetChoice, ResetNeeds, choose_nr, least_off_s
 use super::search::{self, Binding, Settings};
 use super::{Constraint, Evaluation, evaluate};
 use crate::model::{Bobbin, Build, Name, Requirements};
-use std::sync::atomic::{AtomicBool, Ordering};
+use std::sync::atomic::AtomicBool;
+
+/// Threads a design uses by default: the two cores of a small desktop machine; one bobbin's
+/// search is the unit of work, so more threads than bobbins would only wait.
+pub const DESIGN_THREADS: usize = 2;
 
 /// How hard the design looks.
 #[derive(Debug, Clone, PartialEq)]
@@ -29,6 +34,9 @@ pub struct DesignSettings {
     pub primaries_weighed: u32,
     /// Of those, how many (least first-build loss first) go through the search.
     pub primaries_searched: usize,
+    /// Threads the bobbins are shared out over (1 or more); the designs and their order
+    /// do not depend on it.
+    pub threads: usize,
 }
 
 impl Default for DesignSettings {
@@ -40,6 +48,7 @@ impl Default for DesignSettings {
             },
             primaries_weighed: 24,
             primaries_searched: 1,
+            threads: DESIGN_THREADS,
         }
     }
 }
@@ -143,9 +152,9 @@ pub struct DesignOutcome {
     pub cancelled: bool,
 }
 
-/// Design on every bobbin of `bobbins` (id, bobbin). `progress(done, total)` is called
-/// after each bobbin; setting `cancel` stops the search under way within milliseconds, and
-/// the bobbin it stopped in counts as not tried.
+/// Design on every bobbin of `bobbins` (id, bobbin), shared out over `settings.threads`.
+/// `progress(done, total)` is called after each bobbin; setting `cancel` stops the searches
+/// under way within a few milliseconds, and the outcome then holds only the bobbins finished.
 pub fn design(
     req: &Requirements,
     bobbins: &[(String, Bobbin)],
@@ -170,27 +179,25 @@ pub fn design(
             cancelled: false,
         };
     }
+    let answers = spread::over(
+        bobbins,
+        settings.threads,
+        progress,
+        cancel,
+        |(id, bobbin)| design_on(req, &needs, id, bobbin, settings, cancel),
+    );
     let mut designs = Vec::new();
     let mut verdicts = Vec::new();
-    let mut cancelled = false;
     let mut tried = 0;
-    for (k, (id, bobbin)) in bobbins.iter().enumerate() {
-        if cancel.load(Ordering::Relaxed) {
-            cancelled = true;
-            break;
-        }
-        let found = design_on(req, &needs, id, bobbin, settings, cancel);
-        if cancel.load(Ordering::Relaxed) {
-            cancelled = true;
-            break;
+    for ((id, _), answer) in bobbins.iter().zip(answers) {
+        match answer {
+            Some(Ok(d)) => designs.push(d),
+            Some(Err(v)) => verdicts.push((id.clone(), v)),
+            None => continue,
         }
         tried += 1;
-        match found {
-            Ok(d) => designs.push(d),
-            Err(v) => verdicts.push((id.clone(), v)),
-        }
-        progress(k + 1, bobbins.len());
     }
+    let cancelled = tried < bobbins.len();
     rank::sort(&mut designs);
     let binding = if !designs.is_empty() {
         None
@@ -249,7 +256,7 @@ pub fn turns_for(req: &Requirements, needs: &ResetNeeds, np: u32) -> Option<(Tur
     ))
 }
 
-/// One bobbin's best design, or why it has none.
+/// One bobbin's best design, or why it has none; `None` when `cancel` stopped it.
 fn design_on(
     req: &Requirements,
     needs: &ResetNeeds,
@@ -257,8 +264,10 @@ fn design_on(
     bobbin: &Bobbin,
     settings: &DesignSettings,
     cancel: &AtomicBool,
-) -> Result<Design, BobbinVerdict> {
-    let core = bobbin.core.as_ref().ok_or(BobbinVerdict::NoCoreData)?;
+) -> Option<Result<Design, BobbinVerdict>> {
+    let Some(core) = bobbin.core.as_ref() else {
+        return Some(Err(BobbinVerdict::NoCoreData));
+    };
     let f_hz = req.setup.frequency_khz.unwrap_or(100.0) * 1e3;
     let headroom = req.material.bsat_mt - req.material.br_mt;
     let np0 = turns::least_primary_for_flux(
@@ -283,7 +292,7 @@ fn design_on(
         weighed.push((eval.fits, search::total_loss_w(&eval), turns, reset, build));
     }
     if weighed.is_empty() {
-        return Err(BobbinVerdict::NoResetTurns);
+        return Some(Err(BobbinVerdict::NoResetTurns));
     }
     weighed.sort_by(|a, b| b.0.cmp(&a.0).then(a.1.total_cmp(&b.1)));
     let mut best: Option<Design> = None;
@@ -295,10 +304,11 @@ fn design_on(
             needs,
             id,
             &build,
-            (&turns, reset),
+            &turns,
+            reset,
             &settings.search,
             cancel,
-        ) {
+        )? {
             Ok(d) => {
                 if best.as_ref().is_none_or(|b| rank::better(&d, b)) {
                     best = Some(d);
@@ -309,23 +319,29 @@ fn design_on(
             }
         }
     }
-    best.ok_or_else(|| first_verdict.unwrap_or(BobbinVerdict::NoResetTurns))
+    Some(best.ok_or_else(|| first_verdict.unwrap_or(BobbinVerdict::NoResetTurns)))
 }
 
 /// The search on one primary's build; its best candidate that meets every requirement.
+/// `None` when `cancel` stopped the search.
+#[allow(clippy::too_many_arguments)]
 fn searched(
     req: &Requirements,
     needs: &ResetNeeds,
     id: &str,
     build: &Build,
-    (turns, reset): (&Turns, ResetChoice),
+    turns: &Turns,
+    reset: ResetChoice,
     settings: &Settings,
     cancel: &AtomicBool,
-) -> Result<Design, BobbinVerdict> {
-    let outcome = search::search_cancellable(build, settings, &|_, _| {}, cancel)
-        .map_err(|_| BobbinVerdict::Breaks(Vec::new()))?;
+) -> Option<Result<Design, BobbinVerdict>> {
+    let outcome = match search::search_cancellable(build, settings, &|_, _| {}, cancel) {
+        Ok(o) => o,
+        Err(search::SearchError::Cancelled { .. }) => return None,
+        Err(_) => return Some(Err(BobbinVerdict::Breaks(Vec::new()))),
+    };
     if let Some(b) = outcome.binding {
-        return Err(BobbinVerdict::Search(b));
+        return Some(Err(BobbinVerdict::Search(b)));
     }
     let mut broken = None;
     let mut best: Option<Design> = None;
@@ -351,7 +367,7 @@ fn searched(
             best = Some(d);
         }
     }
-    best.ok_or_else(|| BobbinVerdict::Breaks(broken.unwrap_or_default()))
+    Some(best.ok_or_else(|| BobbinVerdict::Breaks(broken.unwrap_or_default())))
 }
 
 /// Each output's turns and the voltage they give.

@@ -19,6 +19,7 @@ pub(in crate::files) fn bobbin_file(text: &str, path: Option<&Path>) -> Result<B
     Ok(bobbin)
 }
 
+/// A bobbin's tables (window, tube, core, pins) to a bobbin, each key's span recorded.
 pub(super) fn bobbin_body(
     cx: &Ctx,
     b: BobbinBody,
@@ -30,8 +31,35 @@ pub(super) fn bobbin_body(
     spans.insert("window", window_span);
     put(spans, "window.width_mm", &window.width_mm);
     put(spans, "window.height_mm", &window.height_mm);
-    let tube_span = b.tube.span();
-    let t = b.tube.into_inner();
+    let tube = tube_of(cx, b.tube, spans)?;
+    let core = b.core.map(|c| core_of(c, spans));
+    if let Some(p) = &b.pins
+        && *p.count.get_ref() == 0
+    {
+        return Err(cx.err(Some(p.count.span()), "pins.count", "must be at least 1"));
+    }
+    Ok(Bobbin {
+        name: b.name.unwrap_or_default(),
+        origin: b.origin.unwrap_or_default(),
+        window: Window {
+            width_mm: window.width_mm.into_inner(),
+            height_mm: window.height_mm.into_inner(),
+        },
+        tube,
+        core,
+        pin_count: b.pins.map(|p| p.count.into_inner()),
+    })
+}
+
+/// `[tube]`: a rect (width, depth, corner radius 0 unless given) or a round (diameter); a key
+/// of the other shape is refused, a missing one is asked for.
+fn tube_of(
+    cx: &Ctx,
+    tube: Spanned<raw::TubeRaw>,
+    spans: &mut HashMap<&'static str, Span>,
+) -> Result<Tube, LoadError> {
+    let tube_span = tube.span();
+    let t = tube.into_inner();
     put_opt(spans, "tube.width_mm", &t.width_mm);
     put_opt(spans, "tube.depth_mm", &t.depth_mm);
     put_opt(spans, "tube.corner_radius_mm", &t.corner_radius_mm);
@@ -53,7 +81,7 @@ pub(super) fn bobbin_body(
         )),
         None => Ok(()),
     };
-    let tube = match t.shape.get_ref().as_str() {
+    Ok(match t.shape.get_ref().as_str() {
         "rect" => {
             refuse(&t.diameter_mm, "diameter_mm", "rect")?;
             Tube::Rect {
@@ -77,37 +105,23 @@ pub(super) fn bobbin_body(
                 format!("unknown tube shape \"{other}\"; expected \"rect\" or \"round\""),
             ));
         }
-    };
-    let core = b.core.map(|c| {
-        spans.insert("core", c.span());
-        let c = c.into_inner();
-        put(spans, "core.ae_mm2", &c.ae_mm2);
-        put(spans, "core.le_mm", &c.le_mm);
-        put_opt(spans, "core.ve_mm3", &c.ve_mm3);
-        put_opt(spans, "core.al_nh", &c.al_nh);
-        Core {
-            ae_mm2: c.ae_mm2.into_inner(),
-            le_mm: c.le_mm.into_inner(),
-            ve_mm3: c.ve_mm3.map(Spanned::into_inner),
-            al_nh: c.al_nh.map(Spanned::into_inner),
-        }
-    });
-    if let Some(p) = &b.pins
-        && *p.count.get_ref() == 0
-    {
-        return Err(cx.err(Some(p.count.span()), "pins.count", "must be at least 1"));
-    }
-    Ok(Bobbin {
-        name: b.name.unwrap_or_default(),
-        origin: b.origin.unwrap_or_default(),
-        window: Window {
-            width_mm: window.width_mm.into_inner(),
-            height_mm: window.height_mm.into_inner(),
-        },
-        tube,
-        core,
-        pin_count: b.pins.map(|p| p.count.into_inner()),
     })
+}
+
+/// `[core]`: the effective area and length, and the volume and AL when given.
+fn core_of(c: Spanned<raw::CoreRaw>, spans: &mut HashMap<&'static str, Span>) -> Core {
+    spans.insert("core", c.span());
+    let c = c.into_inner();
+    put(spans, "core.ae_mm2", &c.ae_mm2);
+    put(spans, "core.le_mm", &c.le_mm);
+    put_opt(spans, "core.ve_mm3", &c.ve_mm3);
+    put_opt(spans, "core.al_nh", &c.al_nh);
+    Core {
+        ae_mm2: c.ae_mm2.into_inner(),
+        le_mm: c.le_mm.into_inner(),
+        ve_mm3: c.ve_mm3.map(Spanned::into_inner),
+        al_nh: c.al_nh.map(Spanned::into_inner),
+    }
 }
 
 /// The build's bobbin: looked up by id in the library, or written inline.

@@ -16,6 +16,7 @@ use std::path::Path;
 use toml::Spanned;
 
 mod bobbin;
+mod isolation;
 mod material;
 mod operating;
 mod outputs;
@@ -26,6 +27,7 @@ mod windings;
 
 pub(super) use bobbin::bobbin_file;
 use bobbin::bobbin_of;
+use isolation::isolation_of;
 use material::material;
 use operating::operating_of;
 use outputs::{outputs_of, regulated_of};
@@ -247,6 +249,8 @@ fn put_opt<T>(m: &mut HashMap<&'static str, Span>, key: &'static str, v: &Option
     }
 }
 
+/// A build file's text to a checked build: each table converted in turn, then validated with
+/// every problem pointed at the span its key came from.
 pub(super) fn build(
     text: &str,
     path: Option<&Path>,
@@ -261,8 +265,49 @@ pub(super) fn build(
     spans.top.insert("winding", 0..0);
     spans.top.insert("stack", 0..0);
 
-    // Build size: far above any hand-wound part, so that a generated or mistyped file cannot
-    // make a check run for minutes (documented in FORMAT.md).
+    check_size(&cx, &file)?;
+    let (bobbin_source, bobbin) = bobbin_of(&cx, file.bobbin, library, &mut spans)?;
+
+    let setup = setup_of(file.setup, &mut spans);
+
+    let windings = windings_of(&cx, file.winding, &mut spans)?;
+
+    let stack = stack_of(&cx, file.stack, &mut spans)?;
+
+    let operating = operating_of(&cx, file.operating, file.output, &mut spans)?;
+    let material = match file.material {
+        None => None,
+        Some(m) => Some(material(&cx, m, &mut spans)?),
+    };
+
+    let isolation = match file.isolation {
+        None => None,
+        Some(i) => Some(isolation_of(&cx, i, &mut spans)?),
+    };
+
+    let measured = super::measured::convert(text, path, file.measured, &windings)?;
+    let build = Build {
+        title: file.title.unwrap_or_default(),
+        bobbin_source,
+        bobbin,
+        setup,
+        windings,
+        stack,
+        operating,
+        material,
+        isolation,
+        measured,
+    };
+    let problems = validate(&build);
+    if !problems.is_empty() {
+        return Err(cx.invalid(&spans, &problems));
+    }
+    Ok(build)
+}
+
+/// The build's size: far above any hand-wound part, so that a generated or mistyped file
+/// cannot make a check run for minutes (documented in FORMAT.md).
+fn check_size(cx: &Ctx, file: &BuildFile) -> Result<(), LoadError> {
     for (what, count, limit, span) in [
         (
             "windings",
@@ -290,66 +335,5 @@ pub(super) fn build(
             ));
         }
     }
-    let (bobbin_source, bobbin) = bobbin_of(&cx, file.bobbin, library, &mut spans)?;
-
-    let setup = setup_of(file.setup, &mut spans);
-
-    let windings = windings_of(&cx, file.winding, &mut spans)?;
-
-    let stack = stack_of(&cx, file.stack, &mut spans)?;
-
-    let operating = operating_of(&cx, file.operating, file.output, &mut spans)?;
-    let material = match file.material {
-        None => None,
-        Some(m) => Some(material(&cx, m, &mut spans)?),
-    };
-
-    let isolation = match file.isolation {
-        None => None,
-        Some(i) => {
-            spans.top.insert("isolation", i.span());
-            let i = i.into_inner();
-            put(&mut spans.top, "isolation.class", &i.class);
-            put_opt(
-                &mut spans.top,
-                "isolation.working_voltage_v",
-                &i.working_voltage_v,
-            );
-            put_opt(&mut spans.top, "isolation.creepage_mm", &i.creepage_mm);
-            let class = IsolationClass::from_key(i.class.get_ref()).ok_or_else(|| {
-                cx.err(
-                    Some(i.class.span()),
-                    "isolation.class",
-                    format!(
-                        "unknown isolation class \"{}\"; expected \"functional\", \"basic\" or \"reinforced\"",
-                        i.class.get_ref()
-                    ),
-                )
-            })?;
-            Some(Isolation {
-                class,
-                working_voltage_v: i.working_voltage_v.map(Spanned::into_inner),
-                creepage_mm: i.creepage_mm.map(Spanned::into_inner),
-            })
-        }
-    };
-
-    let measured = super::measured::convert(text, path, file.measured, &windings)?;
-    let mut build = Build {
-        title: file.title.unwrap_or_default(),
-        bobbin_source,
-        bobbin,
-        setup,
-        windings,
-        stack,
-        operating,
-        material,
-        isolation,
-    };
-    let problems = validate(&build);
-    if !problems.is_empty() {
-        return Err(cx.invalid(&spans, &problems));
-    }
-    build.set_measured(measured);
-    Ok(build)
+    Ok(())
 }

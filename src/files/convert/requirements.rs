@@ -53,6 +53,8 @@ fn missing(cx: &Ctx<'_>, key: &str, what: &str) -> LoadError {
     )
 }
 
+/// A requirements file's text to checked requirements: the tables it needs, then the build's
+/// own checks on a build of them with one turn a winding.
 pub(in crate::files) fn requirements(
     text: &str,
     path: Option<&Path>,
@@ -70,30 +72,8 @@ pub(in crate::files) fn requirements(
             "missing key `frequency_khz` in [setup]: the design needs the switching frequency",
         ));
     }
-    let op_raw = file.operating.ok_or_else(|| {
-        missing(
-            &cx,
-            "operating",
-            "the input range, the output and the controller's duty limit",
-        )
-    })?;
-    if let Some(r) = &op_raw.get_ref().switch_rating_v {
-        return Err(cx.err(
-            Some(r.span()),
-            "operating.switch_rating_v",
-            "a requirements file gives the switch in its own table: `[switch]` with `voltage_rating_v` (and `derating`)",
-        ));
-    }
-    let op_whole = op_raw.span();
-    let mut operating = operating_of(&cx, Some(op_raw), file.output, &mut spans)?
-        .ok_or_else(|| missing(&cx, "operating", "the operating point"))?;
-    if operating.duty_limit.is_none() {
-        return Err(cx.err(
-            Some(op_whole.start..op_whole.start),
-            "operating.duty_limit",
-            "missing key `duty_limit`: the design needs the controller's largest duty (e.g. 0.45)",
-        ));
-    }
+    let (mut operating, op_whole) =
+        required_operating(&cx, file.operating, file.output, &mut spans)?;
     let m = file.material.ok_or_else(|| {
         missing(
             &cx,
@@ -116,9 +96,57 @@ pub(in crate::files) fn requirements(
         switch,
         bobbins,
     };
-    let problems = build_problems(&req);
+    check_as_build(&cx, &req, &spans, op_whole)?;
+    Ok(req)
+}
+
+/// `[operating]` and its `[[output]]` tables, required, with the duty limit the design needs
+/// and without a switch rating (that is `[switch]`'s); with the table's span.
+fn required_operating(
+    cx: &Ctx<'_>,
+    raw: Option<Spanned<raw::OperatingRaw>>,
+    outputs: Vec<Spanned<raw::OutputRaw>>,
+    spans: &mut Spans,
+) -> Result<(Operating, Span), LoadError> {
+    let op_raw = raw.ok_or_else(|| {
+        missing(
+            cx,
+            "operating",
+            "the input range, the output and the controller's duty limit",
+        )
+    })?;
+    if let Some(r) = &op_raw.get_ref().switch_rating_v {
+        return Err(cx.err(
+            Some(r.span()),
+            "operating.switch_rating_v",
+            "a requirements file gives the switch in its own table: `[switch]` with `voltage_rating_v` (and `derating`)",
+        ));
+    }
+    let op_whole = op_raw.span();
+    let operating = operating_of(cx, Some(op_raw), outputs, spans)?
+        .ok_or_else(|| missing(cx, "operating", "the operating point"))?;
+    if operating.duty_limit.is_none() {
+        return Err(cx.err(
+            Some(op_whole.start..op_whole.start),
+            "operating.duty_limit",
+            "missing key `duty_limit`: the design needs the controller's largest duty (e.g. 0.45)",
+        ));
+    }
+    Ok((operating, op_whole))
+}
+
+/// The build's own checks, on a build of these requirements with one turn a winding (the
+/// windings', sections' and bobbin's checks left out: the design chooses those), and a load
+/// current on every output.
+fn check_as_build(
+    cx: &Ctx<'_>,
+    req: &Requirements,
+    spans: &Spans,
+    op_whole: Span,
+) -> Result<(), LoadError> {
+    let problems = build_problems(req);
     if !problems.is_empty() {
-        return Err(cx.invalid(&spans, &problems));
+        return Err(cx.invalid(spans, &problems));
     }
     if req
         .operating
@@ -132,7 +160,7 @@ pub(in crate::files) fn requirements(
             "every output needs a load current above 0 A: the design sizes the wires from it",
         ));
     }
-    Ok(req)
+    Ok(())
 }
 
 /// The build's own checks, on a build of these requirements with one turn a winding: what

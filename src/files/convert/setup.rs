@@ -27,7 +27,6 @@ pub(super) fn setup_of(raw: Option<raw::SetupRaw>, spans: &mut Spans) -> Setup {
                 margin_mm: v(s.margin_mm, d.margin_mm),
                 tape_mm: v(s.tape_mm, d.tape_mm),
                 frequency_khz: s.frequency_khz.map(Spanned::into_inner),
-                measured: None,
             }
         }
     }

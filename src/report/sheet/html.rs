@@ -37,7 +37,6 @@ figcaption { font-size: 9pt; }
 @media print { a { color: #000; text-decoration: none; } h2 { break-after: avoid; } }
 ";
 
-/// The page. `svg` is the cross-section (see `svg::cross_section`).
 /// What the caption adds for the foil and litz the drawing holds (nothing for round wire, so
 /// the sheets of round-wire builds stay as they were).
 fn conductor_caption(svg: &str) -> String {
@@ -51,9 +50,33 @@ fn conductor_caption(svg: &str) -> String {
     o
 }
 
+/// The page. `svg` is the cross-section (see `svg::cross_section`).
 pub fn render(s: &Sheet, svg: &str, scale: f64) -> String {
-    let e = escape;
     let mut o = String::new();
+    header(&mut o, s);
+    let _ = write!(
+        o,
+        "<figure>{svg}<figcaption>Cross-section of one side of the window, drawn to scale ({scale:.1} : 1): the tube at the bottom, the flanges at the sides, one band per stack section numbered as the steps. Filled circles are the section's winding, open circles its bifilar partner; the hatched area is past the window.{}</figcaption></figure>",
+        conductor_caption(svg)
+    );
+
+    if let Some(r) = &s.reset {
+        super::reset_chart::html_section(&mut o, r);
+    }
+    bill_of_materials(&mut o, s);
+    pin_map(&mut o, s);
+    steps(&mut o, s);
+    checks(&mut o, s);
+    super::readings::html_table(&mut o, &s.readings, s.measure_at_c, escape);
+    safety_and_warnings(&mut o, s);
+    o.push_str("</body></html>\n");
+    o
+}
+
+/// The document's head and the page's top: title, build id, bobbin, core, verdict, and the
+/// refusal when the plan does not fit.
+fn header(o: &mut String, s: &Sheet) {
+    let e = escape;
     o.push_str("<!DOCTYPE html>\n<html lang=\"en\"><head><meta charset=\"utf-8\"/>");
     let _ = write!(o, "<title>Winding sheet: {}</title>", e(&s.title));
     let _ = write!(o, "<style>{STYLE}</style></head><body>");
@@ -71,16 +94,11 @@ pub fn render(s: &Sheet, svg: &str, scale: f64) -> String {
     if !s.fits {
         o.push_str("<p class=\"nofit\">DO NOT WIND: the plan does not fit this bobbin. See <code>turnstack fit</code>.</p>");
     }
+}
 
-    let _ = write!(
-        o,
-        "<figure>{svg}<figcaption>Cross-section of one side of the window, drawn to scale ({scale:.1} : 1): the tube at the bottom, the flanges at the sides, one band per stack section numbered as the steps. Filled circles are the section's winding, open circles its bifilar partner; the hatched area is past the window.{}</figcaption></figure>",
-        conductor_caption(svg)
-    );
-
-    if let Some(r) = &s.reset {
-        super::reset_chart::html_section(&mut o, r);
-    }
+/// The wires with their cut lengths, the lead allowance, and the other materials.
+fn bill_of_materials(o: &mut String, s: &Sheet) {
+    let e = escape;
     o.push_str("<h2>Bill of materials</h2><table class=\"bom\"><tr><th>winding</th><th>role</th><th>wire</th><th>strands</th><th>turns</th><th>wound length</th><th>cut each strand</th><th>cut in all</th></tr>");
     for w in &s.wires {
         let _ = write!(
@@ -108,7 +126,11 @@ pub fn render(s: &Sheet, svg: &str, scale: f64) -> String {
         let _ = write!(o, "<tr><th>{}</th><td>{}</td></tr>", e(k), e(v));
     }
     o.push_str("</table>");
+}
 
+/// Each winding's start and finish pins (blanks to fill in), and the dot convention.
+fn pin_map(o: &mut String, s: &Sheet) {
+    let e = escape;
     o.push_str("<h2>Pin map</h2><table><tr><th>winding</th><th>role</th><th>start (dot)</th><th>finish</th></tr>");
     for p in &s.pins {
         let _ = write!(
@@ -121,7 +143,11 @@ pub fn render(s: &Sheet, svg: &str, scale: f64) -> String {
         );
     }
     let _ = write!(o, "</table><p><b>Convention.</b> {}</p>", e(&s.convention));
+}
 
+/// One box a step, from the tube outward, each with its lines.
+fn steps(o: &mut String, s: &Sheet) {
+    let e = escape;
     o.push_str("<h2>Steps, from the tube outward</h2>");
     for st in &s.steps {
         let _ = write!(
@@ -136,7 +162,11 @@ pub fn render(s: &Sheet, svg: &str, scale: f64) -> String {
         }
         o.push_str("</dl></div>");
     }
+}
 
+/// The checks after winding, one box a check.
+fn checks(o: &mut String, s: &Sheet) {
+    let e = escape;
     let _ = write!(
         o,
         "<h2>Checks after winding</h2><table class=\"checks\"><tr><th>check</th><th>expect</th><th>how</th></tr>"
@@ -151,7 +181,11 @@ pub fn render(s: &Sheet, svg: &str, scale: f64) -> String {
         );
     }
     o.push_str("</table>");
-    super::readings::html_table(&mut o, &s.readings, s.measure_at_c, escape);
+}
+
+/// The safety cautions, then the plan's warnings and notes when it has any.
+fn safety_and_warnings(o: &mut String, s: &Sheet) {
+    let e = escape;
     o.push_str("<h2>Safety</h2><div class=\"caution\"><ul>");
     for c in &s.cautions {
         let _ = write!(o, "<li>{}</li>", e(c));
@@ -167,6 +201,4 @@ pub fn render(s: &Sheet, svg: &str, scale: f64) -> String {
         }
         o.push_str("</ul>");
     }
-    o.push_str("</body></html>\n");
-    o
 }

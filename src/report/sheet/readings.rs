@@ -33,7 +33,7 @@ fn label(q: &Quantity) -> String {
 }
 
 fn recorded(build: &Build, q: &Quantity, measure_at_c: f64) -> Option<String> {
-    let m = build.measured()?;
+    let m = build.measured.as_ref()?;
     let find = |pairs: &[(crate::model::Name, f64)], name: &str| {
         pairs.iter().find(|(n, _)| **n == *name).map(|(_, x)| *x)
     };

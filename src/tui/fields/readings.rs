@@ -24,7 +24,7 @@ pub const FIRST_RATIO: usize = LEAKAGE + 1;
 pub const SLOTS: usize = 8;
 
 fn m<'a>(c: &Ctx<'a>) -> Option<&'a Measured> {
-    c.build.measured()
+    c.build.measured.as_ref()
 }
 
 /// The first primary: inductances and ratios are read at it.
@@ -41,9 +41,9 @@ fn with(
     b: &mut Build,
     f: impl FnOnce(&Build, &mut Measured) -> Result<(), Refusal>,
 ) -> Result<(), Refusal> {
-    let mut m = b.measured().cloned().unwrap_or_default();
+    let mut m = b.measured.clone().unwrap_or_default();
     f(b, &mut m)?;
-    b.set_measured((m != Measured::default()).then_some(m));
+    b.measured = (m != Measured::default()).then_some(m);
     Ok(())
 }
 
@@ -209,7 +209,7 @@ pub static FIELDS: &[FieldSpec] = &[
             write: |b, _, t| {
                 first_primary(b).ok_or("the build has no primary winding")?;
                 let v = positive(t)?;
-                if let (Some(lm), Some(l)) = (v, b.measured().and_then(|m| m.leakage_uh))
+                if let (Some(lm), Some(l)) = (v, b.measured.as_ref().and_then(|m| m.leakage_uh))
                     && l >= lm
                 {
                     return Err(leakage_not_below(l, lm));
@@ -238,7 +238,7 @@ pub static FIELDS: &[FieldSpec] = &[
                         .into());
                 }
                 let v = positive(t)?;
-                if let (Some(l), Some(lm)) = (v, b.measured().and_then(|m| m.magnetising_uh))
+                if let (Some(l), Some(lm)) = (v, b.measured.as_ref().and_then(|m| m.magnetising_uh))
                     && l >= lm
                 {
                     return Err(leakage_not_below(l, lm));
@@ -312,7 +312,8 @@ pub static FIELDS: &[FieldSpec] = &[
             if app
                 .doc
                 .build
-                .measured()
+                .measured
+                .as_ref()
                 .is_some_and(|m| !m.has_no_reading())
             {
                 app.ui.overlays.push(Overlay::Readings { scroll: 0 });

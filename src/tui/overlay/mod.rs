@@ -33,6 +33,8 @@ pub enum Overlay {
     Question(Question),
     /// The bench readings against the plan, scrolled down by `scroll` lines.
     Readings { scroll: u16 },
+    /// The reset ratio's sweep against the reset turns.
+    ResetRatio,
 }
 
 impl App {
@@ -49,6 +51,13 @@ impl App {
             _ => {
                 self.ui.overlays.pop();
             }
+        }
+    }
+
+    /// The reset-ratio view's keys: it only closes.
+    pub(super) fn reset_ratio_key(&mut self, action: Action) {
+        if action == Action::Cancel {
+            self.ui.overlays.pop();
         }
     }
 

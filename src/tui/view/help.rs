@@ -8,7 +8,7 @@ use ratatui::layout::Rect;
 use ratatui::text::{Line, Span};
 use ratatui::widgets::{Block, Clear, Paragraph};
 
-const ORDER: [Context; 9] = [
+const ORDER: [Context; 10] = [
     Context::Main,
     Context::Stack,
     Context::Windings,
@@ -17,6 +17,7 @@ const ORDER: [Context; 9] = [
     Context::Question,
     Context::HelpScreen,
     Context::Readings,
+    Context::ResetRatio,
     Context::Job,
 ];
 

@@ -5,6 +5,7 @@ mod check;
 mod help;
 mod popup;
 pub mod readings;
+pub mod reset_ratio;
 mod stack;
 mod status;
 mod warnings;
@@ -74,6 +75,7 @@ pub fn draw(app: &App, frame: &mut Frame) {
         match o {
             Overlay::Help { scroll } => help::draw(app, frame, area, *scroll),
             Overlay::Readings { scroll } => readings::draw(app, frame, area, *scroll),
+            Overlay::ResetRatio => reset_ratio::draw(app, frame, area),
             Overlay::Picker(p) => popup::picker(app, frame, area, p),
             Overlay::Form(f) => popup::form(app, frame, area, f),
             Overlay::Prompt(p) => popup::prompt(app, frame, area, p),

@@ -1,6 +1,6 @@
 //! Pop-ups over the main screen: pick lists, forms, the line editor and questions.
 
-use super::super::app::{App, Effect, Form, Picker, Prompt, Question};
+use super::super::app::{App, Effect, Form, FormKind, Picker, Prompt, Question};
 use super::{fit, pad, wrap};
 use ratatui::Frame;
 use ratatui::layout::Rect;
@@ -103,13 +103,11 @@ pub fn picker(app: &App, frame: &mut Frame, area: Rect, p: &Picker) {
     );
 }
 
-/// A form: its rows (label, value), the selection marked, and its notes below.
-pub fn form(app: &App, frame: &mut Frame, area: Rect, f: &Form) {
-    let t = &app.ui.theme;
-    let rows = app.form_rows(f.kind);
-    let title = match f.kind {
-        super::super::app::FormKind::Setup => "Setup".to_string(),
-        super::super::app::FormKind::Winding(k) => format!(
+/// A form's title: what it edits, and the file's table where it has one.
+fn form_title(app: &App, kind: FormKind) -> String {
+    match kind {
+        FormKind::Setup => "Setup".to_string(),
+        FormKind::Winding(k) => format!(
             "Winding {}",
             app.doc
                 .build
@@ -117,13 +115,20 @@ pub fn form(app: &App, frame: &mut Frame, area: Rect, f: &Form) {
                 .get(k)
                 .map_or("", |w| w.name.as_str())
         ),
-        super::super::app::FormKind::Bobbin => "Measured bobbin and core".to_string(),
-        super::super::app::FormKind::Operating => "Operating point [operating]".to_string(),
-        super::super::app::FormKind::Material => "Core material [material]".to_string(),
-        super::super::app::FormKind::Isolation => "Isolation [isolation]".to_string(),
-        super::super::app::FormKind::Readings => "Bench readings [measured]".to_string(),
-        super::super::app::FormKind::Requirements => "New build from requirements".to_string(),
-    };
+        FormKind::Bobbin => "Measured bobbin and core".to_string(),
+        FormKind::Operating => "Operating point [operating]".to_string(),
+        FormKind::Material => "Core material [material]".to_string(),
+        FormKind::Isolation => "Isolation [isolation]".to_string(),
+        FormKind::Readings => "Bench readings [measured]".to_string(),
+        FormKind::Requirements => "New build from requirements".to_string(),
+    }
+}
+
+/// A form: its rows (label, value), the selection marked, and its notes below.
+pub fn form(app: &App, frame: &mut Frame, area: Rect, f: &Form) {
+    let t = &app.ui.theme;
+    let rows = app.form_rows(f.kind);
+    let title = form_title(app, f.kind);
     let width = 72u16.min(area.width);
     let notes: Vec<String> = app
         .form_notes(f.kind)

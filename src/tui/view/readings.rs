@@ -4,8 +4,9 @@
 //! `report::verify`'s.
 
 use super::super::app::App;
+use super::super::theme::Theme;
 use super::wrap;
-use crate::engine::verify::{self, Quantity, ReadingCheck};
+use crate::engine::verify::{self, Quantity, ReadingCheck, Verification};
 use crate::report::verify::{finding_words, value, what};
 use ratatui::Frame;
 use ratatui::layout::Rect;
@@ -26,12 +27,23 @@ pub fn result_word(c: &ReadingCheck) -> &'static str {
 
 /// Every line of the view, for drawing and for tests.
 pub fn lines(app: &App, width: usize) -> Vec<Line<'static>> {
-    let t = &app.ui.theme;
+    let t = app.ui.theme;
     let Some(v) = verify::verify(&app.doc.build, &app.doc.eval) else {
         return vec![Line::from(
             "The build has no bench readings: R opens the form.",
         )];
     };
+    let mut out = head_lines(&v, width, t);
+    for c in &v.checks {
+        out.push(Line::from(""));
+        out.extend(check_lines(c, width, t));
+    }
+    out.extend(closing_lines(&v, width, t));
+    out
+}
+
+/// The temperature the resistances are compared at, and the verdict over every reading.
+fn head_lines(v: &Verification, width: usize, t: Theme) -> Vec<Line<'static>> {
     let mut out: Vec<Line<'static>> = Vec::new();
     let head = format!(
         "Resistances compared at {:.1} C{}{}.",
@@ -68,50 +80,59 @@ pub fn lines(app: &App, width: usize) -> Vec<Line<'static>> {
             .into_iter()
             .map(|l| Line::from(l).style(style)),
     );
+    out
+}
+
+/// One reading: its word and deviation, its figures, then what an OUT most likely means.
+fn check_lines(c: &ReadingCheck, width: usize, t: Theme) -> Vec<Line<'static>> {
     let indent = " ".repeat(WORD_W);
     let body_w = width.saturating_sub(WORD_W).max(10);
-    for c in &v.checks {
-        out.push(Line::from(""));
-        let word = result_word(c);
-        let word_style = match c.within() {
-            Some(true) => t.good(),
-            Some(false) => t.bad(),
-            None => t.dim(),
-        };
-        let dev = c.deviation().map_or(String::new(), |d| match c.quantity {
-            Quantity::Ratio { .. } => format!("  ({:+.2} %)", d * 100.0),
-            _ => format!("  ({:+.1} %)", d * 100.0),
-        });
-        out.push(Line::from(vec![
-            Span::styled(format!("{word:<WORD_W$}"), word_style),
-            Span::styled(format!("{}{dev}", what(&c.quantity)), t.title()),
-        ]));
-        let figures = match &c.prediction {
-            Some(p) => format!(
-                "measured {} · expected {} · band {} to {}",
-                value(&c.quantity, c.measured),
-                value(&c.quantity, p.expected),
-                value(&c.quantity, p.low),
-                value(&c.quantity, p.high)
-            ),
-            None => format!(
-                "measured {} · not predicted: the plan lacks the core figures",
-                value(&c.quantity, c.measured)
-            ),
-        };
-        for l in wrap(&figures, body_w) {
-            out.push(Line::from(format!("{indent}{l}")));
-        }
-        for f in &c.findings {
-            for (i, l) in wrap(&finding_words(f), body_w.saturating_sub(2))
-                .into_iter()
-                .enumerate()
-            {
-                let mark = if i == 0 { "- " } else { "  " };
-                out.push(Line::from(format!("{indent}{mark}{l}")).style(t.dim()));
-            }
+    let mut out: Vec<Line<'static>> = Vec::new();
+    let word = result_word(c);
+    let word_style = match c.within() {
+        Some(true) => t.good(),
+        Some(false) => t.bad(),
+        None => t.dim(),
+    };
+    let dev = c.deviation().map_or(String::new(), |d| match c.quantity {
+        Quantity::Ratio { .. } => format!("  ({:+.2} %)", d * 100.0),
+        _ => format!("  ({:+.1} %)", d * 100.0),
+    });
+    out.push(Line::from(vec![
+        Span::styled(format!("{word:<WORD_W$}"), word_style),
+        Span::styled(format!("{}{dev}", what(&c.quantity)), t.title()),
+    ]));
+    let figures = match &c.prediction {
+        Some(p) => format!(
+            "measured {} · expected {} · band {} to {}",
+            value(&c.quantity, c.measured),
+            value(&c.quantity, p.expected),
+            value(&c.quantity, p.low),
+            value(&c.quantity, p.high)
+        ),
+        None => format!(
+            "measured {} · not predicted: the plan lacks the core figures",
+            value(&c.quantity, c.measured)
+        ),
+    };
+    for l in wrap(&figures, body_w) {
+        out.push(Line::from(format!("{indent}{l}")));
+    }
+    for f in &c.findings {
+        for (i, l) in wrap(&finding_words(f), body_w.saturating_sub(2))
+            .into_iter()
+            .enumerate()
+        {
+            let mark = if i == 0 { "- " } else { "  " };
+            out.push(Line::from(format!("{indent}{mark}{l}")).style(t.dim()));
         }
     }
+    out
+}
+
+/// The hipot record with its caution, and the user's note.
+fn closing_lines(v: &Verification, width: usize, t: Theme) -> Vec<Line<'static>> {
+    let mut out: Vec<Line<'static>> = Vec::new();
     if let Some(h) = &v.hipot {
         out.push(Line::from(""));
         let text = format!(
