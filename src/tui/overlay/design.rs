@@ -34,9 +34,11 @@ impl App {
         )));
     }
 
-    /// "From a bobbin": unsaved edits are asked about first (the new build has a fresh history).
+    /// "From a bobbin": unsaved edits are asked about first (the new build has a fresh
+    /// history). A new file's untouched stand-in build has nothing to lose.
     pub(crate) fn new_from_bobbin(&mut self) {
-        if self.doc.dirty() {
+        let untouched_new = self.doc.saved.is_none() && self.doc.undo.is_empty();
+        if self.doc.dirty() && !untouched_new {
             self.ui
                 .overlays
                 .push(Overlay::Question(Question::DiscardForNew));
