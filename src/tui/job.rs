@@ -146,25 +146,12 @@ pub fn thousands(n: usize) -> String {
     let s = n.to_string();
     let mut out = String::new();
     for (i, ch) in s.chars().enumerate() {
-        if i > 0 && (s.len() - i) % 3 == 0 {
+        if i > 0 && (s.len() - i).is_multiple_of(3) {
             out.push(',');
         }
         out.push(ch);
     }
     out
-}
-
-#[cfg(test)]
-mod tests {
-    use super::thousands;
-
-    #[test]
-    fn thousands_groups_by_three() {
-        assert_eq!(thousands(0), "0");
-        assert_eq!(thousands(999), "999");
-        assert_eq!(thousands(1240), "1,240");
-        assert_eq!(thousands(1_000_000), "1,000,000");
-    }
 }
 
 impl crate::tui::app::App {
@@ -208,5 +195,18 @@ impl crate::tui::app::App {
             JobResult::Search(r) => self.search_done(r, cancelled),
             JobResult::Design { outcome, req } => self.design_done(outcome, *req, cancelled),
         }
+    }
+}
+
+#[cfg(test)]
+mod tests {
+    use super::thousands;
+
+    #[test]
+    fn thousands_groups_by_three() {
+        assert_eq!(thousands(0), "0");
+        assert_eq!(thousands(999), "999");
+        assert_eq!(thousands(1240), "1,240");
+        assert_eq!(thousands(1_000_000), "1,000,000");
     }
 }
