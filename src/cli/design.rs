@@ -6,10 +6,10 @@ use crate::engine::design::{DesignSettings, design};
 use crate::files::{BobbinLibrary, build_text, check_output, load_requirements, write_atomic};
 use crate::model::Bobbin;
 use crate::report::design as words;
-use std::io::IsTerminal;
 use std::path::{Path, PathBuf};
 use std::process::ExitCode;
-use std::sync::atomic::AtomicBool;
+use std::sync::Arc;
+use std::sync::atomic::{AtomicBool, Ordering};
 
 pub struct DesignArgs<'a> {
     pub file: &'a Path,
@@ -62,22 +62,25 @@ pub fn run(args: &DesignArgs) -> Result<ExitCode, Error> {
     }
     let req = load_requirements(args.file, &library)?;
     let bobbins = candidates(&library, req.bobbins.as_deref());
-    let tty = std::io::stderr().is_terminal();
-    let progress = move |done: usize, total: usize| {
-        if tty {
-            eprint!("\rdesigning: bobbin {done} of {total}");
-            if done == total {
-                eprint!("\r{}\r", " ".repeat(40));
-            }
-        }
-    };
+    let bar = super::progress::Progress::new("designing");
+    let stop = super::progress::ctrl_c_flag().unwrap_or_else(|| Arc::new(AtomicBool::new(false)));
     let outcome = design(
         &req,
         &bobbins,
         &DesignSettings::default(),
-        &progress,
-        &AtomicBool::new(false),
+        &|done, total| bar.update(done, total),
+        &stop,
     );
+    bar.finish();
+    // Ctrl-C: stop cleanly, write nothing, exit as an interrupted program does (128 + 2).
+    if stop.load(Ordering::Relaxed) {
+        notice(&format!(
+            "design stopped after {} of {} bobbins (Ctrl-C); nothing was printed or written",
+            outcome.tried,
+            bobbins.len()
+        ));
+        return Ok(ExitCode::from(super::EXIT_INTERRUPTED));
+    }
     if let Some(out) = args.out {
         let Some(d) = outcome.designs.get(args.pick - 1) else {
             return Err(Error::input(format!(

@@ -30,6 +30,8 @@ use std::process::ExitCode;
 pub const EXIT_FITS: u8 = 0;
 pub const EXIT_DOES_NOT_FIT: u8 = 1;
 pub const EXIT_BAD_INPUT: u8 = 2;
+/// Exit code after Ctrl-C, as a shell reports a program ended by SIGINT (128 + 2).
+pub const EXIT_INTERRUPTED: u8 = 130;
 
 /// Entry point of the binary: parse the arguments, run the command, print its error if any.
 pub fn main() -> ExitCode {

@@ -11,9 +11,6 @@ use std::fmt::Write as _;
 use std::path::Path;
 use std::process::ExitCode;
 
-/// Exit code after Ctrl-C, as a shell reports a program ended by SIGINT (128 + 2).
-const EXIT_INTERRUPTED: u8 = 130;
-
 pub struct SearchArgs<'a> {
     pub file: Option<&'a Path>,
     pub settings: Settings,
@@ -91,7 +88,7 @@ pub fn run(args: &SearchArgs) -> Result<ExitCode, Error> {
     }
     let build = ready_build(args)?;
     let Some(outcome) = search_with_progress(&build, &args.settings)? else {
-        return Ok(ExitCode::from(EXIT_INTERRUPTED));
+        return Ok(ExitCode::from(super::EXIT_INTERRUPTED));
     };
     if let Some(out) = args.out {
         write_pick(args, out, &outcome)?;

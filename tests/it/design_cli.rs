@@ -180,3 +180,44 @@ fn design_out_refuses_an_existing_file_without_force() {
     assert_eq!(r.status.code(), Some(2));
     assert_eq!(std::fs::read_to_string(&out).unwrap(), "# keep me\n");
 }
+
+/// Ctrl-C during a design stops it cleanly: exit 130 (128 + SIGINT, as a shell reports an
+/// interrupted program: common practice), a sentence on stderr, nothing on stdout and no
+/// `--out` file written.
+#[cfg(unix)]
+#[test]
+fn ctrl_c_stops_a_design_and_writes_nothing() {
+    let dir = tempfile::tempdir().unwrap();
+    let out = dir.path().join("picked.toml");
+    let child = Command::new(env!("CARGO_BIN_EXE_turnstack"))
+        .args([
+            "design",
+            "examples/requirements/bench-supply-5v.toml",
+            "--out",
+        ])
+        .arg(&out)
+        .args(["--pick", "1"])
+        .env("TURNSTACK_BOBBINS", "/nonexistent-turnstack-test-dir")
+        .stdout(std::process::Stdio::piped())
+        .stderr(std::process::Stdio::piped())
+        .spawn()
+        .unwrap();
+    // A design over the library takes seconds in a test build; the handler is set up after
+    // the requirements are read, a few milliseconds in.
+    std::thread::sleep(std::time::Duration::from_millis(1000));
+    let killed = Command::new("kill")
+        .args(["-INT", &child.id().to_string()])
+        .status()
+        .unwrap();
+    assert!(killed.success());
+    let got = child.wait_with_output().unwrap();
+    let stderr = String::from_utf8_lossy(&got.stderr);
+    assert_eq!(got.status.code(), Some(130), "stderr: {stderr}");
+    assert!(stderr.contains("Ctrl-C"), "{stderr}");
+    assert!(
+        got.stdout.is_empty(),
+        "{}",
+        String::from_utf8_lossy(&got.stdout)
+    );
+    assert!(!out.exists(), "nothing is written after Ctrl-C");
+}
