@@ -534,3 +534,26 @@ fn typing_replaces_the_shown_value_and_backspace_edits_it() {
     let shown = screen(&app, 80, 24);
     assert!(shown.contains("typing replaces this value"), "{shown}");
 }
+
+/// The switch's rating and the ambient are typed in the operating form. With equal primary
+/// and reset turns the switch blocks twice the highest input (common practice): 2 x 28 V =
+/// 56 V on the demo, which the reset-ratio view then sets against the typed 50 V.
+#[test]
+fn the_switch_rating_and_ambient_are_typed_in_the_operating_form() {
+    let mut app = demo_app();
+    // Switch voltage rating: the row after the controller's duty limit.
+    press(&mut app, &format!("V{}<enter>", "<down>".repeat(8)));
+    type_value(&mut app, "50");
+    let op = app.doc.build.operating.as_ref().unwrap();
+    assert_eq!(op.switch_rating_v, Some(50.0));
+    // Ambient: two rows further down.
+    press(&mut app, "<down><down><enter>");
+    type_value(&mut app, "55");
+    assert_eq!(
+        app.doc.build.operating.as_ref().unwrap().ambient_c,
+        Some(55.0)
+    );
+    press(&mut app, "<esc>D");
+    let shown = screen(&app, 80, 24);
+    assert!(shown.contains("56 V against 50 V"), "{shown}");
+}

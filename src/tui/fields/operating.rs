@@ -160,10 +160,28 @@ pub static FIELDS: &[FieldSpec] = &[
         duty_limit
     ),
     optional_field!(
+        "switch voltage rating",
+        "the switch's rated off-state voltage in V; empty: none",
+        |v| opt(v, "V"),
+        switch_rating_v
+    ),
+    optional_field!(
         "temperature rise allowed",
         "a number; empty: none",
         |v| opt(v, "C"),
         rise_limit_c
+    ),
+    optional_field!(
+        "ambient air",
+        "the air around the part in C; empty: the default",
+        |v: Option<f64>| v.map_or(
+            format!(
+                "none: {} C taken",
+                crate::engine::thermal::DEFAULT_AMBIENT_C
+            ),
+            |v| format!("{v} C")
+        ),
+        ambient_c
     ),
     optional_field!(
         "outer surface (else estimated)",
