@@ -43,7 +43,14 @@ pub fn parse_build(
     path: Option<&Path>,
     library: &BobbinLibrary,
 ) -> Result<Build, LoadError> {
-    convert::build(text, path, library)
+    convert::build(text, path, library).map_err(|e| {
+        other_kind(
+            e,
+            text,
+            &["switch"],
+            "this looks like a requirements file: `turnstack design FILE` reads it",
+        )
+    })
 }
 
 /// Read and check a requirements file (`turnstack design`); its `bobbins` ids are looked
@@ -62,7 +69,26 @@ pub fn parse_requirements(
     path: Option<&Path>,
     library: &BobbinLibrary,
 ) -> Result<crate::model::Requirements, LoadError> {
-    convert::requirements(text, path, library)
+    convert::requirements(text, path, library).map_err(|e| {
+        other_kind(
+            e,
+            text,
+            &["winding", "stack", "bobbin"],
+            "this looks like a build file: `turnstack check FILE` reads it, and `design` reads \
+             a requirements file (FORMAT.md, \"Requirements file\")",
+        )
+    })
+}
+
+/// A load error with `hint` added when the text has a top-level table of the other kind of
+/// file (one of `marks`): the user gave a build where requirements were wanted, or back.
+fn other_kind(mut e: LoadError, text: &str, marks: &[&str], hint: &str) -> LoadError {
+    let foreign =
+        toml::from_str::<toml::Table>(text).is_ok_and(|t| marks.iter().any(|m| t.contains_key(*m)));
+    if foreign {
+        e.message = format!("{}; {hint}", e.message);
+    }
+    e
 }
 
 /// What the loader's checks of a requirements file find in requirements typed in (the

@@ -319,3 +319,25 @@ proptest! {
         load_and_use(&text);
     }
 }
+
+/// A build file given where requirements are wanted, or back, is refused at the foreign
+/// table with a sentence naming the command that reads it; a build that is merely wrong says
+/// nothing of requirements.
+#[test]
+fn the_wrong_kind_of_file_names_the_command_that_reads_it() {
+    let lib = BobbinLibrary::bundled_only();
+    let build = std::fs::read_to_string("examples/first-try.toml").unwrap();
+    let req = std::fs::read_to_string("examples/requirements/bench-supply-5v.toml").unwrap();
+
+    let e = files::parse_requirements(&build, None, &lib).unwrap_err();
+    assert!(e.message.contains("looks like a build file"), "{e}");
+    assert!(e.message.contains("turnstack check"), "{e}");
+
+    let e = files::parse_build(&req, None, &lib).unwrap_err();
+    assert!(e.message.contains("looks like a requirements file"), "{e}");
+    assert!(e.message.contains("turnstack design"), "{e}");
+
+    let wrong = build.replacen("format = 1", "format = 1\nbobin = \"x\"", 1);
+    let e = files::parse_build(&wrong, None, &lib).unwrap_err();
+    assert!(!e.message.contains("requirements"), "{e}");
+}
