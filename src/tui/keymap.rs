@@ -208,7 +208,7 @@ pub const BINDINGS: &[Binding] = &[
         &[K::Char('V')],
         Action::Operating,
         "",
-        "operating point: input and output voltages, reset side and turns, duty limit",
+        "operating point: voltages, reset turns, duty limit, switch rating, ambient",
     ),
     b(
         C::Main,
@@ -257,7 +257,7 @@ pub const BINDINGS: &[Binding] = &[
         &[K::Char('N')],
         Action::NewBuild,
         "",
-        "start a new build from a bobbin of the library",
+        "start a new build: from a library bobbin or from requirements",
     ),
     b(
         C::Main,
