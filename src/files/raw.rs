@@ -1,4 +1,6 @@
 //! The file shapes exactly as written (serde types with spans), before they become the model.
+//! Fields carry the file's key names; where the model names an idea otherwise the converters
+//! map it (`grade` -> `Material::ferrite`).
 
 use serde::Deserialize;
 use serde::de::{self, MapAccess, Visitor};
@@ -334,7 +336,8 @@ pub struct OutputRaw {
 #[derive(Debug, Deserialize)]
 #[serde(deny_unknown_fields)]
 pub struct MaterialRaw {
-    /// A generic grade from the bundled library; explicit keys override its values.
+    /// A generic ferrite from the bundled library (the model's `Material::ferrite`); explicit
+    /// keys override its values.
     pub grade: Option<Spanned<String>>,
     pub bsat_mt: Option<Spanned<f64>>,
     pub br_mt: Option<Spanned<f64>>,
