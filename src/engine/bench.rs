@@ -64,14 +64,14 @@ fn round_up(x: f64, step: f64) -> f64 {
 }
 
 /// The stack indices of the sections that wind the winding `name` (as `winding` or
-/// `with`), in stack order.
+/// `partner`), in stack order.
 pub fn sections_winding(build: &Build, name: &str) -> Vec<usize> {
     build
         .stack
         .iter()
         .enumerate()
         .filter(|(_, s)| match s {
-            Section::Winding(ws) => ws.winding == name || ws.with.as_deref() == Some(name),
+            Section::Winding(ws) => ws.winding == name || ws.partner.as_deref() == Some(name),
             Section::Tape { .. } => false,
         })
         .map(|(i, _)| i)

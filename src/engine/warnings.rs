@@ -80,9 +80,9 @@ pub(super) fn collect(build: &Build, problems: &[Invalid], eval: &mut Evaluation
         .filter_map(|s| match &s.kind {
             SectionKind::Winding {
                 winding,
-                with: Some(with),
+                partner: Some(partner),
                 ..
-            } => Some((winding.clone(), with.clone())),
+            } => Some((winding.clone(), partner.clone())),
             _ => None,
         })
         .collect();

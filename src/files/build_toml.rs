@@ -119,7 +119,7 @@ fn stack_keys(out: &mut String, section: &Section) {
             if let Some(t) = ws.turns {
                 let _ = writeln!(out, "turns = {t}");
             }
-            if let Some(w) = &ws.with {
+            if let Some(w) = &ws.partner {
                 let _ = writeln!(out, "with = {}", quote(w));
             }
             if ws.layer_tape > 0 {

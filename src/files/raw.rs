@@ -1,6 +1,6 @@
 //! The file shapes exactly as written (serde types with spans), before they become the model.
 //! Fields carry the file's key names; where the model names an idea otherwise the converters
-//! map it (`grade` -> `Material::ferrite`).
+//! map it (`grade` -> `Material::ferrite`, a section's `with` -> `WindingSection::partner`).
 
 use serde::Deserialize;
 use serde::de::{self, MapAccess, Visitor};
@@ -299,6 +299,7 @@ impl<'de> Deserialize<'de> for WireField {
 pub struct SectionRaw {
     pub winding: Option<Spanned<String>>,
     pub turns: Option<Spanned<u32>>,
+    /// The bifilar partner (the model's `WindingSection::partner`).
     pub with: Option<Spanned<String>>,
     pub layer_tape: Option<Spanned<u32>>,
     pub tape: Option<Spanned<u32>>,

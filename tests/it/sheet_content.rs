@@ -52,7 +52,7 @@ fn text_steps_agree_with_the_evaluation_for_every_example() {
                 }
                 SectionKind::Winding {
                     winding,
-                    with,
+                    partner,
                     turns,
                     turns_per_layer,
                     layer_count,
@@ -66,12 +66,12 @@ fn text_steps_agree_with_the_evaluation_for_every_example() {
                     assert!(flat.contains(&want), "{name} #{i}: want {want} in {flat}");
                     // The last layer is what the engine laid outermost.
                     assert_eq!(sec.layers.last().unwrap().turns, *last_layer_turns);
-                    for n in [Some(winding), with.as_ref()].into_iter().flatten() {
+                    for n in [Some(winding), partner.as_ref()].into_iter().flatten() {
                         let w = b.winding(n).unwrap();
                         let first = b.stack.iter().position(|x| matches!(x,
-                            turnstack::model::Section::Winding(ws) if *ws.winding == **n || ws.with.as_deref() == Some(&**n))).unwrap();
+                            turnstack::model::Section::Winding(ws) if *ws.winding == **n || ws.partner.as_deref() == Some(&**n))).unwrap();
                         let last = b.stack.iter().rposition(|x| matches!(x,
-                            turnstack::model::Section::Winding(ws) if *ws.winding == **n || ws.with.as_deref() == Some(&**n))).unwrap();
+                            turnstack::model::Section::Winding(ws) if *ws.winding == **n || ws.partner.as_deref() == Some(&**n))).unwrap();
                         if first == i {
                             let p = w.start_pin.as_ref().unwrap();
                             assert!(

@@ -64,7 +64,7 @@ fn stack_words(app: &App) -> Vec<String> {
         .zip(turns)
         .map(|(s, t)| match s {
             Section::Tape { wraps } => format!("t{wraps}"),
-            Section::Winding(ws) => match &ws.with {
+            Section::Winding(ws) => match &ws.partner {
                 Some(w) => format!("{}{t}+{w}", ws.winding),
                 None => format!("{}{t}", ws.winding),
             },

@@ -107,7 +107,7 @@ pub enum SectionKind {
         /// The winding.
         winding: Name,
         /// The bifilar partner, when there is one.
-        with: Option<Name>,
+        partner: Option<Name>,
         /// Turns of this section.
         turns: u32,
         /// Width one turn takes along the layer (mm), every strand (and the partner) together.

@@ -52,7 +52,7 @@ pub(super) fn winding_step(
 ) -> Option<Step> {
     let SectionKind::Winding {
         winding,
-        with,
+        partner,
         turns,
         turns_per_layer,
         layer_count,
@@ -64,13 +64,13 @@ pub(super) fn winding_step(
         return None;
     };
     let mut names = vec![winding.clone()];
-    names.extend(with.clone());
-    let heading = winding_heading(build, &names, with.is_some());
+    names.extend(partner.clone());
+    let heading = winding_heading(build, &names, partner.is_some());
     let mut lines: Vec<(String, String)> = Vec::new();
     lines.extend(margin_line(build, s_eval));
     lines.extend(conductor_or_wire_lines(build, eval, &names));
-    let foil = with.is_none() && is_foil(build, winding);
-    if with.is_some() {
+    let foil = partner.is_none() && is_foil(build, winding);
+    if partner.is_some() {
         lines.push((
             "Bifilar".into(),
             format!(
@@ -247,8 +247,10 @@ pub(super) fn crossing_leads(build: &Build, eval: &Evaluation) -> Vec<String> {
         let mut first: Option<f64> = None;
         let mut last: Option<f64> = None;
         for s in &eval.sections {
-            if let SectionKind::Winding { winding, with, .. } = &s.kind
-                && (*winding == w.name || with.as_deref() == Some(w.name.as_str()))
+            if let SectionKind::Winding {
+                winding, partner, ..
+            } = &s.kind
+                && (*winding == w.name || partner.as_deref() == Some(w.name.as_str()))
             {
                 first.get_or_insert(s.y_mm);
                 last = s.layers.last().map(|l| l.y_mm);
@@ -266,8 +268,8 @@ pub(super) fn crossing_leads(build: &Build, eval: &Evaluation) -> Vec<String> {
             .iter()
             .enumerate()
             .filter(|(_, s)| {
-                matches!(&s.kind, SectionKind::Winding { winding, with, .. }
-                    if *winding == w.name || with.as_deref() == Some(w.name.as_str()))
+                matches!(&s.kind, SectionKind::Winding { winding, partner, .. }
+                    if *winding == w.name || partner.as_deref() == Some(w.name.as_str()))
             })
             .map(|(i, _)| i)
             .collect();

@@ -194,7 +194,7 @@ fn stack_block(o: &mut String, eval: &Evaluation) {
             }
             SectionKind::Winding {
                 winding,
-                with,
+                partner,
                 turns,
                 turns_per_layer,
                 layer_count,
@@ -203,7 +203,7 @@ fn stack_block(o: &mut String, eval: &Evaluation) {
                 mlt_mm,
                 ..
             } => {
-                let name = match with {
+                let name = match partner {
                     Some(w) => format!("{winding}+{w} bifilar"),
                     None => winding.to_string(),
                 };

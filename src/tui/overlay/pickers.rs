@@ -182,7 +182,7 @@ impl App {
         let mut cands: Vec<usize> = (0..b.stack.len())
             .filter(|&j| match &b.stack[j] {
                 Section::Winding(o) => {
-                    o.winding != me.winding && Some(&o.winding) != me.with.as_ref()
+                    o.winding != me.winding && Some(&o.winding) != me.partner.as_ref()
                 }
                 _ => false,
             })
@@ -239,7 +239,7 @@ impl App {
         }
         let selected = items
             .iter()
-            .position(|it| it.value == PickValue::Partner(me.with.clone()))
+            .position(|it| it.value == PickValue::Partner(me.partner.clone()))
             .unwrap_or(0);
         let title = format!("wind section {} bifilar with", self.section_name(i));
         let header = "the partner's turns come from its own sections";
