@@ -184,12 +184,12 @@ fn check_setup(build: &Build, _resolved: &Resolved, bad: &mut dyn FnMut(Place, S
             ),
         );
     }
-    if !(s.bulge.is_finite() && (1.0..=2.0).contains(&s.bulge)) {
+    if !(s.allowance_factor.is_finite() && (1.0..=2.0).contains(&s.allowance_factor)) {
         bad(
             Place::Setup("bulge"),
             format!(
                 "expected an allowance factor between 1.0 and 2.0 (1.10 is usual), got {}",
-                s.bulge
+                s.allowance_factor
             ),
         );
     }

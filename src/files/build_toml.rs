@@ -53,7 +53,7 @@ fn setup_keys(out: &mut String, s: &Setup) {
     if s.temperature_given {
         let _ = writeln!(out, "temperature_c = {}", num(s.temperature_c));
     }
-    let _ = writeln!(out, "bulge = {}", num(s.bulge));
+    let _ = writeln!(out, "bulge = {}", num(s.allowance_factor));
     let _ = writeln!(out, "margin_mm = {}", num(s.margin_mm));
     let _ = writeln!(out, "tape_mm = {}", num(s.tape_mm));
     if let Some(f) = s.frequency_khz {

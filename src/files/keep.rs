@@ -150,7 +150,7 @@ fn default_of(path: &str, key: &str, generated: &Table) -> Option<Default> {
     let d = crate::model::Setup::default();
     Some(match (path, key) {
         ("", "title") => Str(""),
-        ("setup", "bulge") => Num(d.bulge),
+        ("setup", "bulge") => Num(d.allowance_factor),
         ("setup", "margin_mm") => Num(d.margin_mm),
         ("setup", "tape_mm") => Num(d.tape_mm),
         ("winding", "insulation") => Str("grade2"),

@@ -1,6 +1,7 @@
 //! The file shapes exactly as written (serde types with spans), before they become the model.
 //! Fields carry the file's key names; where the model names an idea otherwise the converters
-//! map it (`grade` -> `Material::ferrite`, a section's `with` -> `WindingSection::partner`).
+//! map it (`grade` -> `Material::ferrite`, a section's `with` -> `WindingSection::partner`,
+//! `bulge` -> `Setup::allowance_factor`).
 
 use serde::Deserialize;
 use serde::de::{self, MapAccess, Visitor};
@@ -116,6 +117,7 @@ impl<'de> Deserialize<'de> for BobbinField {
 #[serde(deny_unknown_fields)]
 pub struct SetupRaw {
     pub temperature_c: Option<Spanned<f64>>,
+    /// The hand-winding allowance factor (the model's `Setup::allowance_factor`).
     pub bulge: Option<Spanned<f64>>,
     pub margin_mm: Option<Spanned<f64>>,
     pub tape_mm: Option<Spanned<f64>>,

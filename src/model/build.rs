@@ -62,8 +62,9 @@ pub struct Setup {
     pub tape_class_c: Option<f64>,
     /// Thermal class of the bobbin's plastic (C); `None` takes the engine's default.
     pub bobbin_class_c: Option<f64>,
-    /// Allowance multiplied onto the build height for hand winding (1.0-2.0; default 1.10).
-    pub bulge: f64,
+    /// The hand-winding allowance: a factor multiplied onto the build height (1.0-2.0;
+    /// default 1.10; the file's key `bulge`).
+    pub allowance_factor: f64,
     /// Width of margin tape at each flange (mm); winding sections lose twice this of width.
     pub margin_mm: f64,
     /// Thickness of one wrap of insulation tape (mm); default 0.06.
@@ -80,7 +81,7 @@ impl Default for Setup {
             wire_class_c: None,
             tape_class_c: None,
             bobbin_class_c: None,
-            bulge: 1.10,
+            allowance_factor: 1.10,
             margin_mm: 0.0,
             tape_mm: 0.06,
             frequency_khz: None,

@@ -83,7 +83,7 @@ fn draw_limits(o: &mut String, build: &Build, paper: &Paper, h_win: f64, flange:
         x(w) + flange,
         y(h_win)
     );
-    let bare_limit = h_win / build.setup.bulge;
+    let bare_limit = h_win / build.setup.allowance_factor;
     let _ = write!(
         o,
         "<line class=\"allowance\" x1=\"{:.2}\" y1=\"{:.3}\" x2=\"{:.2}\" y2=\"{:.3}\" stroke=\"#000\" stroke-width=\"0.2\" stroke-dasharray=\"1,1\"/>",
@@ -97,7 +97,7 @@ fn draw_limits(o: &mut String, build: &Build, paper: &Paper, h_win: f64, flange:
         "<text x=\"{:.2}\" y=\"{:.2}\" font-size=\"2.4\">tube at the bottom; {w:.2} mm between flanges; solid line: window {h_win:.2} mm; dashed: window / allowance {:.2}; scale {k:.1} : 1</text>",
         x(0.0) - flange,
         y_base + tube + 4.0,
-        build.setup.bulge
+        build.setup.allowance_factor
     );
 }
 

@@ -343,7 +343,7 @@ impl WindowView<'_> {
                 }
                 let label = format!(
                     " x{} allowance {:.2} mm ",
-                    app.doc.build.setup.bulge, e.height_with_allowance_mm
+                    app.doc.build.setup.allowance_factor, e.height_with_allowance_mm
                 );
                 let label = super::fit(&label, cols as usize);
                 let w = label.width() as u16;

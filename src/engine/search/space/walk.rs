@@ -80,7 +80,7 @@ impl<'a> Space<'a> {
             height += f64::from(self.base.windings[k].turns.div_ceil(n_l)) * ch.od_mm;
         }
         height += f64::from(self.tape_wraps(pieces)) * self.base.setup.tape_mm;
-        let with_allowance = height * self.base.setup.bulge;
+        let with_allowance = height * self.base.setup.allowance_factor;
         if reasons.least_bound_mm.is_none_or(|l| with_allowance < l) {
             reasons.least_bound_mm = Some(with_allowance);
         }
