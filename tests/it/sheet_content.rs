@@ -325,7 +325,7 @@ fn cut_lengths_follow_the_stated_allowance() {
     let (b, e) = load("examples/bench-forward.toml");
     let s = sheet::sheet(&b, &e, 20.0);
     for (item, we) in s.wires.iter().zip(&e.windings) {
-        let raw = we.length_m * 1000.0 + f64::from(item.allowances) * 100.0;
+        let raw = we.length_m * 1000.0 + f64::from(item.lead_allowances) * 100.0;
         assert!(item.cut_each_mm >= raw && item.cut_each_mm < raw + 10.0);
         assert_eq!(item.cut_each_mm % 10.0, 0.0);
         assert_eq!(
@@ -334,6 +334,6 @@ fn cut_lengths_follow_the_stated_allowance() {
         );
     }
     // P is wound in two sections: two ends and one park.
-    assert_eq!(s.wires[0].allowances, 3);
-    assert_eq!(s.wires[1].allowances, 2);
+    assert_eq!(s.wires[0].lead_allowances, 3);
+    assert_eq!(s.wires[1].lead_allowances, 2);
 }

@@ -34,8 +34,8 @@ pub struct WireItem {
     pub turns: u32,
     /// Winding length of one strand (the Evaluation's length).
     pub length_m: f64,
-    /// Allowances added per strand: two ends, plus one for every park between sections.
-    pub allowances: u32,
+    /// Lead allowances added per strand: two ends, plus one for every park between sections.
+    pub lead_allowances: u32,
     /// Per strand, rounded up to `CUT_ROUND_MM`.
     pub cut_each_mm: f64,
     pub cut_total_mm: f64,
@@ -203,7 +203,7 @@ fn wire_items(build: &Build, eval: &Evaluation) -> Vec<WireItem> {
                 strands: w.strands,
                 turns: w.turns,
                 length_m: e.length_m,
-                allowances: cut.allowances,
+                lead_allowances: cut.lead_allowances,
                 cut_each_mm: each,
                 cut_total_mm: total,
             }
