@@ -49,9 +49,10 @@ pub struct Pin {
     pub finish: Option<String>,
 }
 
-/// One numbered step from the tube outward.
+/// One numbered step of the winding sheet, from the tube outward (not an undo step: that is
+/// `tui::document::UndoStep`).
 #[derive(Debug, Clone, PartialEq)]
-pub struct Step {
+pub struct SheetStep {
     pub number: usize,
     /// Index into the stack.
     pub section: usize,
@@ -84,7 +85,7 @@ pub struct Sheet {
     pub materials: Vec<(String, String)>,
     pub pins: Vec<Pin>,
     pub convention: String,
-    pub steps: Vec<Step>,
+    pub steps: Vec<SheetStep>,
     pub measure_at_c: f64,
     pub checks: Vec<Check>,
     /// Expected value, band and a cell to write each reading in (`readings.rs`).

@@ -4,7 +4,7 @@ use super::conductor_steps::{conductor_lines, foil_turns_text, is_foil};
 use super::*;
 
 /// The numbered steps, one per stack section, from the tube outward.
-pub(super) fn steps(build: &Build, eval: &Evaluation) -> Vec<Step> {
+pub(super) fn steps(build: &Build, eval: &Evaluation) -> Vec<SheetStep> {
     let mut steps = Vec::new();
     for (i, (sec, s_eval)) in build.stack.iter().zip(&eval.sections).enumerate() {
         let number = steps.len() + 1;
@@ -22,10 +22,10 @@ pub(super) fn steps(build: &Build, eval: &Evaluation) -> Vec<Step> {
 }
 
 /// The step of a tape section.
-pub(super) fn tape_step(build: &Build, number: usize, i: usize, wraps: u32) -> Step {
+pub(super) fn tape_step(build: &Build, number: usize, i: usize, wraps: u32) -> SheetStep {
     let b = &build.bobbin;
     let wraps = &wraps;
-    Step {
+    SheetStep {
         number,
         section: i,
         heading: format!("Tape: {}", plural(*wraps, "wrap", "wraps")),
@@ -49,7 +49,7 @@ pub(super) fn winding_step(
     number: usize,
     i: usize,
     s_eval: &SectionEval,
-) -> Option<Step> {
+) -> Option<SheetStep> {
     let SectionKind::Winding {
         winding,
         partner,
@@ -109,7 +109,7 @@ pub(super) fn winding_step(
     for n in &names {
         lines.push(("Finish".into(), finish_text(build, i, n, side)));
     }
-    Some(Step {
+    Some(SheetStep {
         number,
         section: i,
         heading,
