@@ -30,7 +30,7 @@ pub const MEASURE_AT_C: f64 = 20.0;
 #[derive(Debug, Clone, Copy, PartialEq)]
 pub struct Cut {
     /// Lead allowances added per strand: two ends, plus one for every park between sections.
-    pub allowances: u32,
+    pub lead_allowances: u32,
     /// Per strand: the winding length plus the allowances, rounded up to [`CUT_ROUND_MM`].
     pub cut_each_mm: f64,
     /// Every strand's piece together.
@@ -64,14 +64,14 @@ fn round_up(x: f64, step: f64) -> f64 {
 }
 
 /// The stack indices of the sections that wind the winding `name` (as `winding` or
-/// `with`), in stack order.
+/// `partner`), in stack order.
 pub fn sections_winding(build: &Build, name: &str) -> Vec<usize> {
     build
         .stack
         .iter()
         .enumerate()
         .filter(|(_, s)| match s {
-            Section::Winding(ws) => ws.winding == name || ws.with.as_deref() == Some(name),
+            Section::Winding(ws) => ws.winding == name || ws.partner.as_deref() == Some(name),
             Section::Tape { .. } => false,
         })
         .map(|(i, _)| i)
@@ -86,13 +86,13 @@ pub fn cuts(build: &Build, eval: &Evaluation) -> Vec<Cut> {
         .zip(&eval.windings)
         .map(|(w, e)| {
             let parks = sections_winding(build, &w.name).len().saturating_sub(1) as u32;
-            let allowances = 2 + parks;
+            let lead_allowances = 2 + parks;
             let cut_each_mm = round_up(
-                e.length_m * 1000.0 + f64::from(allowances) * LEAD_ALLOWANCE_MM,
+                e.length_m * 1000.0 + f64::from(lead_allowances) * LEAD_ALLOWANCE_MM,
                 CUT_ROUND_MM,
             );
             Cut {
-                allowances,
+                lead_allowances,
                 cut_each_mm,
                 cut_total_mm: cut_each_mm * f64::from(w.strands),
             }

@@ -88,7 +88,7 @@ pub fn evaluate(
     for l in laid {
         let LaidKind::Winding {
             winding: Some(k),
-            with,
+            partner,
             turns,
             layers,
             layer_tape,
@@ -118,7 +118,7 @@ pub fn evaluate(
         }
         let tape = f64::from(*layer_tape) * build.setup.tape_mm * mm;
         let c_sec = section_self_pf(tube, layers, tape, enamel(k), b_w);
-        for i in [Some(k), *with].into_iter().flatten() {
+        for i in [Some(k), *partner].into_iter().flatten() {
             let total = f64::from(build.windings[i].turns.max(1));
             let share = f64::from(*turns) / total;
             self_sum[i] += c_sec * share * share;

@@ -69,7 +69,7 @@ fn section_windings(build: &Build, s: &SectionRef) -> SectionWindings {
         let w = &build.windings[k?];
         Some((k?, side_of(build, w.role), w.insulation == Insulation::Tiw))
     };
-    let (a, b) = (of(s.winding), of(s.with));
+    let (a, b) = (of(s.winding), of(s.partner));
     if a.is_none() { [b, None] } else { [a, b] }
 }
 

@@ -12,7 +12,7 @@ pub struct Layer {
     pub y_mm: f64,
     /// Height of the layer (mm): the wire's overall diameter (the larger of a bifilar pair).
     pub height_mm: f64,
-    /// Turns of the section's winding in this layer (and of `with`, if bifilar).
+    /// Turns of the section's winding in this layer (and of the partner's, if bifilar).
     pub turns: u32,
     /// MLT at the layer's centre.
     pub mlt_mm: f64,
@@ -42,7 +42,7 @@ pub enum LaidKind {
         /// Index into `build.windings`; `None` only for a name validation refuses.
         winding: Option<usize>,
         /// The bifilar partner, as an index into `build.windings`.
-        with: Option<usize>,
+        partner: Option<usize>,
         /// Turns of this section (each bifilar turn counts once).
         turns: u32,
         /// Width one turn takes along the layer (mm): the overall diameter times the strands,
@@ -116,7 +116,7 @@ pub fn lay_out(build: &Build, resolved: &Resolved) -> Vec<Laid> {
     let mut y = 0.0;
     let mut out = Vec::with_capacity(build.stack.len());
     for (section, r) in build.stack.iter().zip(&resolved.sections) {
-        let (wi, with, turns) = (r.winding, r.with, r.turns);
+        let (wi, partner, turns) = (r.winding, r.partner, r.turns);
         let laid = match section {
             Section::Tape { wraps } => Laid {
                 y_mm: y,
@@ -127,7 +127,7 @@ pub fn lay_out(build: &Build, resolved: &Resolved) -> Vec<Laid> {
                 let pitch_of =
                     |i: usize| super::conductor::pitch_mm(&build.windings[i], &wires[i], w_u);
                 let od_of = |i: usize| wires[i].od_mm;
-                let (pitch, layer_h) = match (wi, with) {
+                let (pitch, layer_h) = match (wi, partner) {
                     (Some(a), Some(b)) => (pitch_of(a) + pitch_of(b), od_of(a).max(od_of(b))),
                     (Some(a), None) => (pitch_of(a), od_of(a)),
                     _ => (0.0, 0.0),
@@ -159,7 +159,7 @@ pub fn lay_out(build: &Build, resolved: &Resolved) -> Vec<Laid> {
                     height_mm: height,
                     kind: LaidKind::Winding {
                         winding: wi,
-                        with,
+                        partner,
                         turns,
                         pitch_mm: pitch,
                         turns_per_layer: n_l,

@@ -61,11 +61,11 @@ pub fn for_each_slab_by(
             }
             LaidKind::Winding {
                 winding,
-                with,
+                partner,
                 layers,
                 ..
             } => {
-                let per_turn = weight(*winding) + weight(*with);
+                let per_turn = weight(*winding) + weight(*partner);
                 let mut top = section.y_mm;
                 for (li, layer) in layers.iter().enumerate() {
                     if layer.y_mm > top {
@@ -159,7 +159,7 @@ pub fn bifilar_leakage_h(
     for section in laid {
         let LaidKind::Winding {
             winding: Some(a),
-            with: Some(b),
+            partner: Some(b),
             layers,
             ..
         } = &section.kind

@@ -123,7 +123,7 @@ pub fn evaluate(build: &Build, laid: &[Laid], c: &ConverterEval) -> Option<Stres
             LaidKind::Tape { wraps } => wraps_since += wraps,
             LaidKind::Winding {
                 winding: Some(k),
-                with,
+                partner,
                 turns,
                 layers: ls,
                 layer_tape,
@@ -134,7 +134,7 @@ pub fn evaluate(build: &Build, laid: &[Laid], c: &ConverterEval) -> Option<Stres
                     .windows(2)
                     .map(|p| adjacent_layers_v(p[0].turns, p[1].turns, vpt))
                     .fold(0.0, f64::max);
-                let films = with.map_or(2.0 * film(k), |j| film(k).min(film(j)) * 2.0);
+                let films = partner.map_or(2.0 * film(k), |j| film(k).min(film(j)) * 2.0);
                 if ls.len() > 1 {
                     layers.push(LayerStress {
                         section: si,
@@ -144,11 +144,11 @@ pub fn evaluate(build: &Build, laid: &[Laid], c: &ConverterEval) -> Option<Stres
                         layer_tape: *layer_tape,
                     });
                 }
-                for i in [Some(k), *with].into_iter().flatten() {
+                for i in [Some(k), *partner].into_iter().flatten() {
                     let v = layer_voltage_v[i].get_or_insert(0.0);
                     *v = v.max(worst);
                 }
-                if let Some(j) = *with {
+                if let Some(j) = *partner {
                     bifilar.push(bifilar_pair(w, op, c, si, (k, j), vpt));
                 }
                 if let Some(prev) = last {

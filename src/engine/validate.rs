@@ -184,12 +184,12 @@ fn check_setup(build: &Build, _resolved: &Resolved, bad: &mut dyn FnMut(Place, S
             ),
         );
     }
-    if !(s.bulge.is_finite() && (1.0..=2.0).contains(&s.bulge)) {
+    if !(s.allowance_factor.is_finite() && (1.0..=2.0).contains(&s.allowance_factor)) {
         bad(
             Place::Setup("bulge"),
             format!(
                 "expected an allowance factor between 1.0 and 2.0 (1.10 is usual), got {}",
-                s.bulge
+                s.allowance_factor
             ),
         );
     }
@@ -384,7 +384,7 @@ fn check_winding_section(
     let wires = &resolved.wires;
     let w_u = usable_width_mm(build);
     let r = resolved.sections[i];
-    let (a, with) = (r.winding, r.with);
+    let (a, partner) = (r.winding, r.partner);
     if a.is_none() {
         bad(
             Place::Section(i, "winding"),
@@ -395,9 +395,9 @@ fn check_winding_section(
             ),
         );
     }
-    let c = match &ws.with {
+    let c = match &ws.partner {
         Some(n) => {
-            let c = with;
+            let c = partner;
             if c.is_none() {
                 bad(
                     Place::Section(i, "with"),
@@ -451,7 +451,7 @@ fn check_turn_sums(build: &Build, resolved: &Resolved, bad: &mut dyn FnMut(Place
         let sum: u64 = resolved
             .sections
             .iter()
-            .flat_map(|r| [(r.winding, r.turns), (r.with, r.turns)])
+            .flat_map(|r| [(r.winding, r.turns), (r.partner, r.turns)])
             .filter(|&(i, _)| i == Some(k))
             .map(|(_, turns)| u64::from(turns))
             .sum();

@@ -134,7 +134,7 @@ pub enum Finding {
         /// The plan has no gap: the mating faces need cleaning (dust, glue, a burr).
         ungapped: bool,
     },
-    /// More inductance than planned: AL is above the figure used (another grade, a smaller
+    /// More inductance than planned: AL is above the figure used (another ferrite, a smaller
     /// gap than stated, or core figures that are off).
     AlHigher {
         /// AL as measured (nH): L / Np^2.

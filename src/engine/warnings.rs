@@ -29,7 +29,7 @@ pub(super) fn collect(build: &Build, problems: &[Invalid], eval: &mut Evaluation
             WarningAt::Build,
             WarningKind::DoesNotFit {
                 height_with_allowance_mm: eval.height_with_allowance_mm,
-                bulge: build.setup.bulge,
+                allowance_factor: build.setup.allowance_factor,
                 window_height_mm: eval.window_height_mm,
                 over_mm: -eval.spare_height_mm,
             },
@@ -80,9 +80,9 @@ pub(super) fn collect(build: &Build, problems: &[Invalid], eval: &mut Evaluation
         .filter_map(|s| match &s.kind {
             SectionKind::Winding {
                 winding,
-                with: Some(with),
+                partner: Some(partner),
                 ..
-            } => Some((winding.clone(), with.clone())),
+            } => Some((winding.clone(), partner.clone())),
             _ => None,
         })
         .collect();

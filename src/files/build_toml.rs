@@ -53,7 +53,7 @@ fn setup_keys(out: &mut String, s: &Setup) {
     if s.temperature_given {
         let _ = writeln!(out, "temperature_c = {}", num(s.temperature_c));
     }
-    let _ = writeln!(out, "bulge = {}", num(s.bulge));
+    let _ = writeln!(out, "bulge = {}", num(s.allowance_factor));
     let _ = writeln!(out, "margin_mm = {}", num(s.margin_mm));
     let _ = writeln!(out, "tape_mm = {}", num(s.tape_mm));
     if let Some(f) = s.frequency_khz {
@@ -119,7 +119,7 @@ fn stack_keys(out: &mut String, section: &Section) {
             if let Some(t) = ws.turns {
                 let _ = writeln!(out, "turns = {t}");
             }
-            if let Some(w) = &ws.with {
+            if let Some(w) = &ws.partner {
                 let _ = writeln!(out, "with = {}", quote(w));
             }
             if ws.layer_tape > 0 {
@@ -180,28 +180,31 @@ fn output_keys(out: &mut String, o: &Output) {
     }
 }
 
-/// `[material]`: the grade, then only the values that differ from it.
+/// `[material]`: the bundled ferrite (key `grade`), then only the values that differ from it.
 fn material_keys(out: &mut String, m: &Material) {
     let _ = writeln!(out, "\n[material]");
-    // With a grade, only the values that differ from it are written: they are the
+    // With a bundled ferrite, only the values that differ from it are written: they are the
     // user's overrides, and reading the file back gives the same material.
-    let grade = m.grade.as_deref().and_then(crate::library::materials::find);
-    if let Some(g) = grade {
+    let ferrite = m
+        .ferrite
+        .as_deref()
+        .and_then(crate::library::materials::find);
+    if let Some(g) = ferrite {
         let _ = writeln!(out, "grade = {}", quote(g.id));
     }
-    if grade.is_none_or(|g| g.bsat_mt != m.bsat_mt) {
+    if ferrite.is_none_or(|g| g.bsat_mt != m.bsat_mt) {
         let _ = writeln!(out, "bsat_mt = {}", num(m.bsat_mt));
     }
-    if grade.is_none_or(|g| g.br_mt != m.br_mt) {
+    if ferrite.is_none_or(|g| g.br_mt != m.br_mt) {
         let _ = writeln!(out, "br_mt = {}", num(m.br_mt));
     }
     if let Some(mu) = m.mu_i
-        && grade.is_none_or(|g| g.mu_i != mu)
+        && ferrite.is_none_or(|g| g.mu_i != mu)
     {
         let _ = writeln!(out, "mu_i = {}", num(mu));
     }
     if let Some(st) = m.steinmetz
-        && grade.is_none_or(|g| g.steinmetz != st)
+        && ferrite.is_none_or(|g| g.steinmetz != st)
     {
         let _ = writeln!(
             out,

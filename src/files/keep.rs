@@ -144,13 +144,13 @@ enum Default {
 }
 
 /// The default of `key` in the table at `path`; `generated` is that table as generated (the
-/// material's grade decides its defaults).
+/// material's bundled ferrite decides its defaults).
 fn default_of(path: &str, key: &str, generated: &Table) -> Option<Default> {
     use Default::{Num, Str};
     let d = crate::model::Setup::default();
     Some(match (path, key) {
         ("", "title") => Str(""),
-        ("setup", "bulge") => Num(d.bulge),
+        ("setup", "bulge") => Num(d.allowance_factor),
         ("setup", "margin_mm") => Num(d.margin_mm),
         ("setup", "tape_mm") => Num(d.tape_mm),
         ("winding", "insulation") => Str("grade2"),
@@ -161,14 +161,14 @@ fn default_of(path: &str, key: &str, generated: &Table) -> Option<Default> {
         ("operating", "rectifier_drop_v" | "switch_drop_v") => Num(0.0),
         ("bobbin", "name" | "origin") => Str(""),
         ("material", k) => {
-            let grade = generated
+            let ferrite = generated
                 .get("grade")
                 .and_then(Item::as_str)
                 .and_then(crate::library::materials::find)?;
             match k {
-                "bsat_mt" => Num(grade.bsat_mt),
-                "br_mt" => Num(grade.br_mt),
-                "mu_i" => Num(grade.mu_i),
+                "bsat_mt" => Num(ferrite.bsat_mt),
+                "br_mt" => Num(ferrite.br_mt),
+                "mu_i" => Num(ferrite.mu_i),
                 _ => return None,
             }
         }

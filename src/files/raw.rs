@@ -1,4 +1,7 @@
 //! The file shapes exactly as written (serde types with spans), before they become the model.
+//! Fields carry the file's key names; where the model names an idea otherwise the converters
+//! map it (`grade` -> `Material::ferrite`, a section's `with` -> `WindingSection::partner`,
+//! `bulge` -> `Setup::allowance_factor`).
 
 use serde::Deserialize;
 use serde::de::{self, MapAccess, Visitor};
@@ -114,6 +117,7 @@ impl<'de> Deserialize<'de> for BobbinField {
 #[serde(deny_unknown_fields)]
 pub struct SetupRaw {
     pub temperature_c: Option<Spanned<f64>>,
+    /// The hand-winding allowance factor (the model's `Setup::allowance_factor`).
     pub bulge: Option<Spanned<f64>>,
     pub margin_mm: Option<Spanned<f64>>,
     pub tape_mm: Option<Spanned<f64>>,
@@ -297,6 +301,7 @@ impl<'de> Deserialize<'de> for WireField {
 pub struct SectionRaw {
     pub winding: Option<Spanned<String>>,
     pub turns: Option<Spanned<u32>>,
+    /// The bifilar partner (the model's `WindingSection::partner`).
     pub with: Option<Spanned<String>>,
     pub layer_tape: Option<Spanned<u32>>,
     pub tape: Option<Spanned<u32>>,
@@ -334,7 +339,8 @@ pub struct OutputRaw {
 #[derive(Debug, Deserialize)]
 #[serde(deny_unknown_fields)]
 pub struct MaterialRaw {
-    /// A generic grade from the bundled library; explicit keys override its values.
+    /// A generic ferrite from the bundled library (the model's `Material::ferrite`); explicit
+    /// keys override its values.
     pub grade: Option<Spanned<String>>,
     pub bsat_mt: Option<Spanned<f64>>,
     pub br_mt: Option<Spanned<f64>>,

@@ -1,11 +1,12 @@
-//! A small bundled library of generic ferrite grades with typical figures (from memory, not
-//! any maker's grade), so a build can say `grade = "..."` and override single values.
+//! A small bundled library of generic ferrites with typical figures (from memory, not any
+//! maker's material), so a build can name one (the file's `grade = "..."`) and override single
+//! values. In code "grade" is only the enamel grade of a wire; a ferrite is a `Ferrite`.
 
 use crate::model::Steinmetz;
 
-/// Typical figures of one generic grade at the temperature its name says.
+/// Typical figures of one generic ferrite at the temperature its name says.
 #[derive(Debug, Clone, PartialEq)]
-pub struct Grade {
+pub struct Ferrite {
     pub id: &'static str,
     pub description: &'static str,
     pub bsat_mt: f64,
@@ -17,9 +18,9 @@ pub struct Grade {
 
 /// Typical MnZn power-ferrite figures, from memory [TYP]: Bsat 0.38-0.42 T and Br about
 /// 0.1 T at 100 C, mu_i 2000-3000, alpha 1.1-1.6, beta 2.5-3.0, and 50-150 kW/m^3 at
-/// 100 kHz, 100 mT peak, 100 C. Each k below is set so the grade lands inside that band.
-pub const GRADES: &[Grade] = &[
-    Grade {
+/// 100 kHz, 100 mT peak, 100 C. Each k below is set so the ferrite lands inside that band.
+pub const FERRITES: &[Ferrite] = &[
+    Ferrite {
         id: "mnzn-power-100c",
         description: "MnZn power ferrite for 25-200 kHz, at 100 C (its loss minimum); typical, from memory",
         bsat_mt: 380.0,
@@ -32,7 +33,7 @@ pub const GRADES: &[Grade] = &[
             beta: 2.6,
         },
     },
-    Grade {
+    Ferrite {
         id: "mnzn-power-25c",
         description: "the same kind of MnZn power ferrite cold, at 25 C: more flux, more loss; typical, from memory",
         bsat_mt: 490.0,
@@ -45,7 +46,7 @@ pub const GRADES: &[Grade] = &[
             beta: 2.6,
         },
     },
-    Grade {
+    Ferrite {
         id: "mnzn-hf-100c",
         description: "MnZn ferrite for 200 kHz-1 MHz, at 100 C: lower permeability, loss rising less with frequency below 100 mT; typical, from memory",
         bsat_mt: 370.0,
@@ -60,10 +61,10 @@ pub const GRADES: &[Grade] = &[
     },
 ];
 
-pub fn find(id: &str) -> Option<&'static Grade> {
-    GRADES.iter().find(|g| g.id == id)
+pub fn find(id: &str) -> Option<&'static Ferrite> {
+    FERRITES.iter().find(|g| g.id == id)
 }
 
 pub fn ids() -> Vec<&'static str> {
-    GRADES.iter().map(|g| g.id).collect()
+    FERRITES.iter().map(|g| g.id).collect()
 }

@@ -1,5 +1,5 @@
 //! Reference data compiled into the program: wire tables, the bundled bobbins and the
-//! generic ferrite grades.
+//! generic ferrites.
 
 pub mod bobbins;
 pub mod conductors;

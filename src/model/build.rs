@@ -62,8 +62,9 @@ pub struct Setup {
     pub tape_class_c: Option<f64>,
     /// Thermal class of the bobbin's plastic (C); `None` takes the engine's default.
     pub bobbin_class_c: Option<f64>,
-    /// Allowance multiplied onto the build height for hand winding (1.0-2.0; default 1.10).
-    pub bulge: f64,
+    /// The hand-winding allowance: a factor multiplied onto the build height (1.0-2.0;
+    /// default 1.10; the file's key `bulge`).
+    pub allowance_factor: f64,
     /// Width of margin tape at each flange (mm); winding sections lose twice this of width.
     pub margin_mm: f64,
     /// Thickness of one wrap of insulation tape (mm); default 0.06.
@@ -80,7 +81,7 @@ impl Default for Setup {
             wire_class_c: None,
             tape_class_c: None,
             bobbin_class_c: None,
-            bulge: 1.10,
+            allowance_factor: 1.10,
             margin_mm: 0.0,
             tape_mm: 0.06,
             frequency_khz: None,
@@ -121,7 +122,7 @@ pub struct SectionRef {
     /// The section's winding.
     pub winding: Option<usize>,
     /// The bifilar partner.
-    pub with: Option<usize>,
+    pub partner: Option<usize>,
     /// Turns of this section (0 for tape).
     pub turns: u32,
 }
@@ -133,8 +134,9 @@ pub struct WindingSection {
     pub winding: String,
     /// This section's share; `None` takes what is left (see `Build::section_turns`).
     pub turns: Option<u32>,
-    /// Name of the bifilar partner wound in the same turns, when there is one.
-    pub with: Option<String>,
+    /// Name of the bifilar partner wound in the same turns, when there is one (the file's
+    /// key `with`).
+    pub partner: Option<String>,
     /// Wraps of tape between the layers of this section.
     pub layer_tape: u32,
 }
@@ -205,7 +207,7 @@ impl Build {
                 Section::Tape { .. } => SectionRef::default(),
                 Section::Winding(ws) => SectionRef {
                     winding: self.winding_index(&ws.winding),
-                    with: ws.with.as_deref().and_then(|w| self.winding_index(w)),
+                    partner: ws.partner.as_deref().and_then(|p| self.winding_index(p)),
                     turns: ws.turns.unwrap_or(0),
                 },
             })
@@ -216,7 +218,7 @@ impl Build {
         let stated = |s: &Section| matches!(s, Section::Winding(ws) if ws.turns.is_some());
         for (s, r) in self.stack.iter().zip(&refs) {
             if stated(s) {
-                for i in [r.winding, r.with].into_iter().flatten() {
+                for i in [r.winding, r.partner].into_iter().flatten() {
                     taken[i].0 += u64::from(r.turns);
                 }
             }
@@ -231,7 +233,7 @@ impl Build {
             let total = u64::from(self.windings[i].turns);
             let left = total.saturating_sub(taken[i].0 + taken[i].1);
             taken[i].1 += left;
-            if let Some(j) = r.with {
+            if let Some(j) = r.partner {
                 taken[j].1 += left;
             }
             r.turns = u32::try_from(left).unwrap_or(u32::MAX);
@@ -243,7 +245,7 @@ impl Build {
     ///
     /// A section that states its turns gets them. One that does not takes what is left of
     /// its winding after every section that states turns for that winding (anywhere in the
-    /// stack, bifilar `with` sections included) and every earlier section that did not.
+    /// stack, sections that wind it as the bifilar partner included) and every earlier section that did not.
     pub fn section_turns(&self) -> Vec<u32> {
         self.section_refs().into_iter().map(|r| r.turns).collect()
     }

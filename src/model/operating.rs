@@ -141,12 +141,14 @@ pub struct Steinmetz {
     pub beta: f64,
 }
 
-/// The core's ferrite. With a `grade`, the values are that grade's typical figures with the
-/// file's explicit keys written over them; the values here are always the resolved ones.
+/// The core's ferrite. With a bundled ferrite named (the file's `grade`), the values are its
+/// typical figures with the file's explicit keys written over them; the values here are always
+/// the resolved ones.
 #[derive(Debug, Clone, PartialEq)]
 pub struct Material {
-    /// The generic ferrite grade the typical figures come from, when one is named.
-    pub grade: Option<String>,
+    /// The id of the bundled generic ferrite the typical figures come from, when one is named
+    /// (the file's key `grade`).
+    pub ferrite: Option<String>,
     /// Saturation flux density (mT) at the working temperature.
     pub bsat_mt: f64,
     /// Remanent flux density (mT), where the flux returns to after each cycle.

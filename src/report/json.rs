@@ -344,7 +344,7 @@ fn section(s: &SectionEval) -> SectionJson<'_> {
         },
         SectionKind::Winding {
             winding,
-            with,
+            partner,
             turns,
             pitch_mm,
             turns_per_layer,
@@ -355,7 +355,7 @@ fn section(s: &SectionEval) -> SectionJson<'_> {
             mlt_mm,
         } => SectionJson::Winding {
             winding,
-            with: with.as_ref(),
+            with: partner.as_ref(),
             turns: *turns,
             turns_per_layer: *turns_per_layer,
             layers: *layer_count,

@@ -252,7 +252,7 @@ impl App {
     /// A section as the status line names it: "#3 P+R", "#2 tape".
     pub(crate) fn section_name(&self, i: usize) -> String {
         match self.doc.build.stack.get(i) {
-            Some(Section::Winding(ws)) => match &ws.with {
+            Some(Section::Winding(ws)) => match &ws.partner {
                 Some(w) => format!("#{} {}+{w}", i + 1, ws.winding),
                 None => format!("#{} {}", i + 1, ws.winding),
             },

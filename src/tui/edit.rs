@@ -31,9 +31,9 @@ fn turns_of(b: &Build, i: usize) -> u32 {
 
 /// Same winding and same bifilar partner, in either order.
 fn same_pair(a: &WindingSection, c: &WindingSection) -> bool {
-    (a.winding == c.winding && a.with == c.with)
-        || (a.with.as_deref() == Some(c.winding.as_str())
-            && c.with.as_deref() == Some(a.winding.as_str()))
+    (a.winding == c.winding && a.partner == c.partner)
+        || (a.partner.as_deref() == Some(c.winding.as_str())
+            && c.partner.as_deref() == Some(a.winding.as_str()))
 }
 
 /// Other sections wound with the same pair as section `i`, nearest first.
@@ -51,14 +51,14 @@ fn siblings(b: &Build, i: usize) -> Vec<usize> {
 /// Sections that wind `name` alone, nearest to `near` first.
 fn plain_sections(b: &Build, name: &str, near: usize) -> Vec<usize> {
     let mut v: Vec<usize> = (0..b.stack.len())
-        .filter(|&j| ws(b, j).is_some_and(|o| o.winding == name && o.with.is_none()))
+        .filter(|&j| ws(b, j).is_some_and(|o| o.winding == name && o.partner.is_none()))
         .collect();
     v.sort_by_key(|&j| (j.abs_diff(near), j));
     v
 }
 
 fn label(s: &WindingSection) -> String {
-    match &s.with {
+    match &s.partner {
         Some(w) => format!("{}+{w}", s.winding),
         None => s.winding.clone(),
     }
@@ -102,7 +102,7 @@ fn unreachable_section(winding: &str) -> WindingSection {
     WindingSection {
         winding: winding.to_string(),
         turns: None,
-        with: None,
+        partner: None,
         layer_tape: 0,
     }
 }
@@ -151,7 +151,7 @@ pub fn split_around(b: &mut Build, x: usize, y: usize) -> Result<usize, Refusal>
     let (Some(sx), Some(sy)) = (ws(b, x), ws(b, y)) else {
         return Err("split needs two winding sections".into());
     };
-    if sx.winding == sy.winding || Some(&sy.winding) == sx.with.as_ref() {
+    if sx.winding == sy.winding || Some(&sy.winding) == sx.partner.as_ref() {
         return Err(format!(
             "\"{}\" cannot be split around a section of its own winding",
             label(sx)
@@ -232,7 +232,7 @@ fn section_turns_pinned(b: &mut Build, i: usize, n: u32) -> Result<(), Refusal> 
             }
         }
         None => {
-            for name in std::iter::once(&me.winding).chain(me.with.as_ref()) {
+            for name in std::iter::once(&me.winding).chain(me.partner.as_ref()) {
                 if let Some(w) = b.windings.iter_mut().find(|w| &w.name == name) {
                     let t = i64::from(w.turns) + i64::from(n) - i64::from(old);
                     w.turns = u32::try_from(t.max(0)).unwrap_or(0);
@@ -253,7 +253,7 @@ pub fn set_partner(b: &mut Build, i: usize, partner: Option<&str>) -> Result<usi
     let Some(me) = ws(b, i).cloned() else {
         return Err("only a winding section can be wound bifilar".into());
     };
-    if me.with.as_deref() == partner {
+    if me.partner.as_deref() == partner {
         return Ok(i);
     }
     if partner == Some(me.winding.as_str()) {
@@ -265,9 +265,9 @@ pub fn set_partner(b: &mut Build, i: usize, partner: Option<&str>) -> Result<usi
     pin_turns(b);
     let t = turns_of(b, i);
     let mut i = i;
-    if let Some(old) = &me.with {
+    if let Some(old) = &me.partner {
         if let Some(s) = ws_mut(b, i) {
-            s.with = None;
+            s.partner = None;
         }
         match plain_sections(b, old, i).first() {
             Some(&j) => {
@@ -319,7 +319,7 @@ pub fn set_partner(b: &mut Build, i: usize, partner: Option<&str>) -> Result<usi
         });
         i -= removed_before;
         if let Some(s) = ws_mut(b, i) {
-            s.with = Some(p.to_string());
+            s.partner = Some(p.to_string());
         }
     }
     Ok(i)
@@ -369,8 +369,8 @@ pub fn rename(b: &mut Build, k: usize, new: &str) -> Result<(), Refusal> {
             if ws.winding == old {
                 ws.winding = new.to_string();
             }
-            if ws.with.as_deref() == Some(old.as_str()) {
-                ws.with = Some(new.to_string());
+            if ws.partner.as_deref() == Some(old.as_str()) {
+                ws.partner = Some(new.to_string());
             }
         }
     }
@@ -485,7 +485,7 @@ fn wind_outermost(b: &mut Build, winding: String, turns: Option<u32>) {
         Section::Winding(WindingSection {
             winding,
             turns,
-            with: None,
+            partner: None,
             layer_tape: 0,
         }),
     );
@@ -501,14 +501,14 @@ pub fn delete_winding(b: &mut Build, k: usize) -> Result<usize, Refusal> {
     for s in b.stack.drain(..) {
         match s {
             Section::Winding(mut ws) if ws.winding == name => {
-                if let Some(p) = ws.with.take() {
+                if let Some(p) = ws.partner.take() {
                     ws.winding = p;
                     out.push(Section::Winding(ws));
                 }
             }
             Section::Winding(mut ws) => {
-                if ws.with.as_deref() == Some(name.as_str()) {
-                    ws.with = None;
+                if ws.partner.as_deref() == Some(name.as_str()) {
+                    ws.partner = None;
                 }
                 out.push(Section::Winding(ws));
             }
@@ -538,7 +538,7 @@ pub fn new_build(id: &str, bobbin: crate::model::Bobbin) -> Build {
         Section::Winding(WindingSection {
             winding: name.into(),
             turns: None,
-            with: None,
+            partner: None,
             layer_tape: 0,
         })
     };

@@ -344,8 +344,8 @@ fn temperature_rise_from_the_build_with_a_user_limit() {
     assert!(close(l.surface_area_cm2.unwrap(), 50.0, 1e-12));
 }
 
-/// A bundled generic grade supplies the material; explicit keys override single values; a
-/// saved file reads back as the same build.
+/// A bundled generic ferrite (the key `grade`) supplies the material; explicit keys override
+/// single values; a saved file reads back as the same build.
 #[test]
 fn material_grade_with_overrides_round_trips() {
     let b = build(

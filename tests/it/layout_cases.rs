@@ -98,12 +98,12 @@ fn bifilar_section_sums_the_pitch_and_gives_both_windings_the_turns() {
     match &s.kind {
         SectionKind::Winding {
             winding,
-            with,
+            partner,
             pitch_mm,
             layer_height_mm,
             ..
         } => {
-            assert_eq!((winding.as_str(), with.as_deref()), ("A", Some("B")));
+            assert_eq!((winding.as_str(), partner.as_deref()), ("A", Some("B")));
             assert_rel(*pitch_mm, 1.3, 1e-12, "pitch");
             assert_rel(*layer_height_mm, 0.5, 1e-12, "layer height = larger od");
         }
@@ -271,7 +271,7 @@ fn rect_tube_mlt_per_layer_at_the_layer_centre() {
 
 /// FORMAT.md decision "Default section turns": a section without turns takes what is left
 /// after every section that states them (anywhere) and every earlier defaulted one; a bifilar
-/// section's default gives `with` the same.
+/// section's default gives the partner the same.
 #[test]
 fn default_section_turns_take_what_is_left() {
     let text = build_text(
@@ -297,9 +297,9 @@ fn default_section_turns_take_what_is_left() {
         e.sections
             .iter()
             .filter_map(|s| match &s.kind {
-                SectionKind::Winding { winding, with, .. }
-                    if winding == name || with.as_deref() == Some(name) =>
-                {
+                SectionKind::Winding {
+                    winding, partner, ..
+                } if winding == name || partner.as_deref() == Some(name) => {
                     Some(s.layers.iter().map(|l| l.turns).sum::<u32>())
                 }
                 _ => None,

@@ -111,7 +111,7 @@ fn one_layer(winding: usize, y_mm: f64, height_mm: f64, turns: u32, tube: &Tube)
         height_mm,
         kind: LaidKind::Winding {
             winding: Some(winding),
-            with: None,
+            partner: None,
             turns,
             pitch_mm: 0.0,
             turns_per_layer: turns,

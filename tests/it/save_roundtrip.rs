@@ -382,7 +382,7 @@ fn new_and_removed_tables_go_where_a_person_would_put_them() {
         turnstack::model::WindingSection {
             winding: "AUX".into(),
             turns: None,
-            with: None,
+            partner: None,
             layer_tape: 0,
         },
     ));

@@ -52,7 +52,7 @@ fn text_steps_agree_with_the_evaluation_for_every_example() {
                 }
                 SectionKind::Winding {
                     winding,
-                    with,
+                    partner,
                     turns,
                     turns_per_layer,
                     layer_count,
@@ -66,12 +66,12 @@ fn text_steps_agree_with_the_evaluation_for_every_example() {
                     assert!(flat.contains(&want), "{name} #{i}: want {want} in {flat}");
                     // The last layer is what the engine laid outermost.
                     assert_eq!(sec.layers.last().unwrap().turns, *last_layer_turns);
-                    for n in [Some(winding), with.as_ref()].into_iter().flatten() {
+                    for n in [Some(winding), partner.as_ref()].into_iter().flatten() {
                         let w = b.winding(n).unwrap();
                         let first = b.stack.iter().position(|x| matches!(x,
-                            turnstack::model::Section::Winding(ws) if *ws.winding == **n || ws.with.as_deref() == Some(&**n))).unwrap();
+                            turnstack::model::Section::Winding(ws) if *ws.winding == **n || ws.partner.as_deref() == Some(&**n))).unwrap();
                         let last = b.stack.iter().rposition(|x| matches!(x,
-                            turnstack::model::Section::Winding(ws) if *ws.winding == **n || ws.with.as_deref() == Some(&**n))).unwrap();
+                            turnstack::model::Section::Winding(ws) if *ws.winding == **n || ws.partner.as_deref() == Some(&**n))).unwrap();
                         if first == i {
                             let p = w.start_pin.as_ref().unwrap();
                             assert!(
@@ -325,7 +325,7 @@ fn cut_lengths_follow_the_stated_allowance() {
     let (b, e) = load("examples/bench-forward.toml");
     let s = sheet::sheet(&b, &e, 20.0);
     for (item, we) in s.wires.iter().zip(&e.windings) {
-        let raw = we.length_m * 1000.0 + f64::from(item.allowances) * 100.0;
+        let raw = we.length_m * 1000.0 + f64::from(item.lead_allowances) * 100.0;
         assert!(item.cut_each_mm >= raw && item.cut_each_mm < raw + 10.0);
         assert_eq!(item.cut_each_mm % 10.0, 0.0);
         assert_eq!(
@@ -334,6 +334,6 @@ fn cut_lengths_follow_the_stated_allowance() {
         );
     }
     // P is wound in two sections: two ends and one park.
-    assert_eq!(s.wires[0].allowances, 3);
-    assert_eq!(s.wires[1].allowances, 2);
+    assert_eq!(s.wires[0].lead_allowances, 3);
+    assert_eq!(s.wires[1].lead_allowances, 2);
 }

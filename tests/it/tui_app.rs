@@ -64,7 +64,7 @@ fn stack_words(app: &App) -> Vec<String> {
         .zip(turns)
         .map(|(s, t)| match s {
             Section::Tape { wraps } => format!("t{wraps}"),
-            Section::Winding(ws) => match &ws.with {
+            Section::Winding(ws) => match &ws.partner {
                 Some(w) => format!("{}{t}+{w}", ws.winding),
                 None => format!("{}{t}", ws.winding),
             },
@@ -330,7 +330,7 @@ fn setup_and_bobbin_edits_apply_and_range_checks_refuse() {
     let mut app = plain_app();
     // Setup form: allowance field (third row).
     press(&mut app, "G<down><down><enter><bs><bs><bs><bs>1.3<enter>");
-    assert_eq!(app.doc.build.setup.bulge, 1.3);
+    assert_eq!(app.doc.build.setup.allowance_factor, 1.3);
     press(&mut app, "<enter><bs><bs><bs>5<enter>");
     assert!(
         app.ui
@@ -340,7 +340,7 @@ fn setup_and_bobbin_edits_apply_and_range_checks_refuse() {
             .text
             .contains("between 1.0 and 2.0")
     );
-    assert_eq!(app.doc.build.setup.bulge, 1.3);
+    assert_eq!(app.doc.build.setup.allowance_factor, 1.3);
     press(&mut app, "<esc>");
     // A measured bobbin: the window height typed in.
     press(&mut app, "Bmeasured<enter>");

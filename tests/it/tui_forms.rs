@@ -154,14 +154,14 @@ fn the_operating_table_is_removed_and_added_back() {
 }
 
 #[test]
-fn material_grade_figures_and_removal() {
+fn material_ferrite_figures_and_removal() {
     let mut app = demo_app();
-    assert_eq!(app.doc.build.material.as_ref().unwrap().grade, None);
-    // Grade row opens the grade list; pick the cold grade by filtering.
+    assert_eq!(app.doc.build.material.as_ref().unwrap().ferrite, None);
+    // The grade row opens the list of bundled ferrites; pick the cold one by filtering.
     press(&mut app, "M<enter>25c<enter>");
     let g = turnstack::library::materials::find("mnzn-power-25c").unwrap();
     let m = app.doc.build.material.clone().unwrap();
-    assert_eq!(m.grade.as_deref(), Some("mnzn-power-25c"));
+    assert_eq!(m.ferrite.as_deref(), Some("mnzn-power-25c"));
     assert_eq!(m.bsat_mt, g.bsat_mt);
     assert_eq!(m.steinmetz, Some(g.steinmetz));
     // Remanence at or above saturation is refused by the engine.

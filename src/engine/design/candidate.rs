@@ -59,7 +59,7 @@ fn section(name: &str) -> Section {
     Section::Winding(WindingSection {
         winding: name.to_string(),
         turns: None,
-        with: None,
+        partner: None,
         layer_tape: 0,
     })
 }

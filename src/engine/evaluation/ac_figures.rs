@@ -133,7 +133,7 @@ fn pair_sums(
     d_of: &impl Fn(usize, u32) -> f64,
 ) {
     let bifilar_ps = laid.iter().any(|l| {
-        matches!(&l.kind, LaidKind::Winding { winding: Some(a), with: Some(b), .. }
+        matches!(&l.kind, LaidKind::Winding { winding: Some(a), partner: Some(b), .. }
             if (*a == p && *b == s) || (*a == s && *b == p))
     });
     if bifilar_ps {
@@ -178,7 +178,7 @@ fn pair_field(
         let Some((si, li)) = slab.layer else { return };
         let LaidKind::Winding {
             winding,
-            with,
+            partner,
             layers,
             ..
         } = &laid[si].kind
@@ -188,7 +188,7 @@ fn pair_field(
         let layer = &layers[li];
         // A bifilar partner other than P or S carries nothing in this excitation, so
         // the slab's faces are this winding's own MMF.
-        for k in [*winding, *with]
+        for k in [*winding, *partner]
             .into_iter()
             .flatten()
             .filter(|&k| k == p || k == s)
@@ -207,7 +207,7 @@ fn pair_field(
         // ampere squared of the primary's, summed over its harmonics. A bifilar
         // partner sees a field that runs from F_a to F_b across the layer: its mean
         // square is taken.
-        for k in [*winding, *with]
+        for k in [*winding, *partner]
             .into_iter()
             .flatten()
             .filter(|&k| k != p && k != s)
@@ -243,14 +243,14 @@ fn unpaired_sums(
     for l in laid {
         let LaidKind::Winding {
             winding,
-            with,
+            partner,
             layers,
             ..
         } = &l.kind
         else {
             continue;
         };
-        for k in [*winding, *with].into_iter().flatten() {
+        for k in [*winding, *partner].into_iter().flatten() {
             if sums[k].paired || sums[k].skip {
                 continue;
             }

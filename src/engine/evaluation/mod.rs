@@ -45,7 +45,7 @@ pub struct Evaluation {
     pub window_height_mm: f64,
     /// Sum of the section heights (mm), before the allowance.
     pub build_height_mm: f64,
-    /// Build height x bulge.
+    /// Build height x the allowance factor.
     pub height_with_allowance_mm: f64,
     /// The height with allowance is within the window height.
     pub fits: bool,
@@ -107,7 +107,7 @@ pub enum SectionKind {
         /// The winding.
         winding: Name,
         /// The bifilar partner, when there is one.
-        with: Option<Name>,
+        partner: Option<Name>,
         /// Turns of this section.
         turns: u32,
         /// Width one turn takes along the layer (mm), every strand (and the partner) together.
@@ -245,7 +245,7 @@ pub(super) fn evaluate(build: &Build, memo: &mut Memo) -> Evaluation {
     let window = &build.bobbin.window;
 
     let build_height_mm: f64 = laid.iter().map(|l| l.height_mm).sum();
-    let height_with_allowance_mm = build_height_mm * build.setup.bulge;
+    let height_with_allowance_mm = build_height_mm * build.setup.allowance_factor;
     let fits = height_with_allowance_mm <= window.height_mm + FIT_TOLERANCE_MM;
 
     let leakage = leakage_pairs(build, &laid, wires);

@@ -2,19 +2,19 @@
 
 use super::*;
 
-/// A winding's length: every layer it appears in, as `winding` or as bifilar `with`.
+/// A winding's length: every layer it appears in, as `winding` or as the bifilar `partner`.
 pub(super) fn winding_length_mm(laid: &[Laid], k: usize) -> f64 {
     let mut length_mm = 0.0;
     for l in laid {
         if let LaidKind::Winding {
             winding,
-            with,
+            partner,
             layers,
             ..
         } = &l.kind
         {
             // Twice for a section bifilar with itself (refused by validation), as a pair.
-            let times = usize::from(*winding == Some(k)) + usize::from(*with == Some(k));
+            let times = usize::from(*winding == Some(k)) + usize::from(*partner == Some(k));
             for _ in 0..times {
                 length_mm += layers
                     .iter()
@@ -38,7 +38,7 @@ pub(super) fn section_eval(build: &Build, l: Laid, window_height_mm: f64) -> Sec
         },
         LaidKind::Winding {
             winding,
-            with,
+            partner,
             turns,
             pitch_mm,
             turns_per_layer,
@@ -54,7 +54,7 @@ pub(super) fn section_eval(build: &Build, l: Laid, window_height_mm: f64) -> Sec
             SectionEval {
                 kind: SectionKind::Winding {
                     winding: name(winding).unwrap_or_default(),
-                    with: name(with),
+                    partner: name(partner),
                     turns,
                     pitch_mm,
                     turns_per_layer,

@@ -59,7 +59,7 @@ pub enum WarningKind {
         /// Build height times the allowance (mm).
         height_with_allowance_mm: f64,
         /// The allowance factor.
-        bulge: f64,
+        allowance_factor: f64,
         /// The window height (mm).
         window_height_mm: f64,
         /// How much too high (mm).
@@ -344,7 +344,7 @@ mod tests {
             }),
             WarningKind::DoesNotFit {
                 height_with_allowance_mm: 4.4,
-                bulge: 1.1,
+                allowance_factor: 1.1,
                 window_height_mm: 4.0,
                 over_mm: 0.4,
             },

@@ -8,14 +8,14 @@ impl fmt::Display for WarningKind {
             WarningKind::Invalid(problem) => write!(f, "{problem}"),
             WarningKind::DoesNotFit {
                 height_with_allowance_mm,
-                bulge,
+                allowance_factor,
                 window_height_mm,
                 over_mm,
             } => write!(
                 f,
                 "does not fit: {height_with_allowance_mm:.2} mm with the {:.0} % allowance against a \
                  {window_height_mm:.2} mm window, {over_mm:.2} mm too tall",
-                (bulge - 1.0) * 100.0,
+                (allowance_factor - 1.0) * 100.0,
             ),
             WarningKind::PastWindow { section, winding } => write!(
                 f,

@@ -1,8 +1,8 @@
-//! The `[material]` table: a bundled grade with the file's keys over it.
+//! The `[material]` table: a bundled ferrite (the key `grade`) with the file's keys over it.
 
 use super::*;
 
-/// `[material]`: a bundled grade's typical figures, with the file's explicit keys over them.
+/// `[material]`: a bundled ferrite's typical figures, with the file's explicit keys over them.
 pub(super) fn material(
     cx: &Ctx,
     m: Spanned<raw::MaterialRaw>,
@@ -18,7 +18,7 @@ pub(super) fn material(
     put_opt(sp, "mu_i", &m.mu_i);
     put_opt(sp, "steinmetz", &m.steinmetz);
     put_opt(sp, "gap_mm", &m.gap_mm);
-    let grade = match &m.grade {
+    let ferrite = match &m.grade {
         None => None,
         Some(g) => Some(materials::find(g.get_ref()).ok_or_else(|| {
             cx.err(
@@ -42,9 +42,9 @@ pub(super) fn material(
         })
     };
     Ok(Material {
-        bsat_mt: need(m.bsat_mt, "bsat_mt", grade.map(|g| g.bsat_mt))?,
-        br_mt: need(m.br_mt, "br_mt", grade.map(|g| g.br_mt))?,
-        mu_i: m.mu_i.map(Spanned::into_inner).or(grade.map(|g| g.mu_i)),
+        bsat_mt: need(m.bsat_mt, "bsat_mt", ferrite.map(|g| g.bsat_mt))?,
+        br_mt: need(m.br_mt, "br_mt", ferrite.map(|g| g.br_mt))?,
+        mu_i: m.mu_i.map(Spanned::into_inner).or(ferrite.map(|g| g.mu_i)),
         steinmetz: m
             .steinmetz
             .map(|s| {
@@ -55,8 +55,8 @@ pub(super) fn material(
                     beta: s.beta,
                 }
             })
-            .or(grade.map(|g| g.steinmetz)),
+            .or(ferrite.map(|g| g.steinmetz)),
         gap_mm: m.gap_mm.map(Spanned::into_inner),
-        grade: grade.map(|g| g.id.to_string()),
+        ferrite: ferrite.map(|g| g.id.to_string()),
     })
 }

@@ -23,7 +23,7 @@ pub(super) fn setup_of(raw: Option<raw::SetupRaw>, spans: &mut Spans) -> Setup {
                 wire_class_c: s.wire_class_c.map(Spanned::into_inner),
                 tape_class_c: s.tape_class_c.map(Spanned::into_inner),
                 bobbin_class_c: s.bobbin_class_c.map(Spanned::into_inner),
-                bulge: v(s.bulge, d.bulge),
+                allowance_factor: v(s.bulge, d.allowance_factor),
                 margin_mm: v(s.margin_mm, d.margin_mm),
                 tape_mm: v(s.tape_mm, d.tape_mm),
                 frequency_khz: s.frequency_khz.map(Spanned::into_inner),

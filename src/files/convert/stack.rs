@@ -24,7 +24,7 @@ pub(super) fn stack_of(
             (Some(w), None) => Section::Winding(WindingSection {
                 winding: w.into_inner(),
                 turns: s.turns.map(Spanned::into_inner),
-                with: s.with.map(Spanned::into_inner),
+                partner: s.with.map(Spanned::into_inner),
                 layer_tape: s.layer_tape.map_or(0, Spanned::into_inner),
             }),
             (None, Some(t)) => {

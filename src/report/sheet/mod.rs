@@ -34,8 +34,8 @@ pub struct WireItem {
     pub turns: u32,
     /// Winding length of one strand (the Evaluation's length).
     pub length_m: f64,
-    /// Allowances added per strand: two ends, plus one for every park between sections.
-    pub allowances: u32,
+    /// Lead allowances added per strand: two ends, plus one for every park between sections.
+    pub lead_allowances: u32,
     /// Per strand, rounded up to `CUT_ROUND_MM`.
     pub cut_each_mm: f64,
     pub cut_total_mm: f64,
@@ -49,9 +49,10 @@ pub struct Pin {
     pub finish: Option<String>,
 }
 
-/// One numbered step from the tube outward.
+/// One numbered step of the winding sheet, from the tube outward (not an undo step: that is
+/// `tui::document::UndoStep`).
 #[derive(Debug, Clone, PartialEq)]
-pub struct Step {
+pub struct SheetStep {
     pub number: usize,
     /// Index into the stack.
     pub section: usize,
@@ -84,7 +85,7 @@ pub struct Sheet {
     pub materials: Vec<(String, String)>,
     pub pins: Vec<Pin>,
     pub convention: String,
-    pub steps: Vec<Step>,
+    pub steps: Vec<SheetStep>,
     pub measure_at_c: f64,
     pub checks: Vec<Check>,
     /// Expected value, band and a cell to write each reading in (`readings.rs`).
@@ -203,7 +204,7 @@ fn wire_items(build: &Build, eval: &Evaluation) -> Vec<WireItem> {
                 strands: w.strands,
                 turns: w.turns,
                 length_m: e.length_m,
-                allowances: cut.allowances,
+                lead_allowances: cut.lead_allowances,
                 cut_each_mm: each,
                 cut_total_mm: total,
             }

@@ -4,7 +4,7 @@ use super::conductor_steps::{conductor_lines, foil_turns_text, is_foil};
 use super::*;
 
 /// The numbered steps, one per stack section, from the tube outward.
-pub(super) fn steps(build: &Build, eval: &Evaluation) -> Vec<Step> {
+pub(super) fn steps(build: &Build, eval: &Evaluation) -> Vec<SheetStep> {
     let mut steps = Vec::new();
     for (i, (sec, s_eval)) in build.stack.iter().zip(&eval.sections).enumerate() {
         let number = steps.len() + 1;
@@ -22,10 +22,10 @@ pub(super) fn steps(build: &Build, eval: &Evaluation) -> Vec<Step> {
 }
 
 /// The step of a tape section.
-pub(super) fn tape_step(build: &Build, number: usize, i: usize, wraps: u32) -> Step {
+pub(super) fn tape_step(build: &Build, number: usize, i: usize, wraps: u32) -> SheetStep {
     let b = &build.bobbin;
     let wraps = &wraps;
-    Step {
+    SheetStep {
         number,
         section: i,
         heading: format!("Tape: {}", plural(*wraps, "wrap", "wraps")),
@@ -49,10 +49,10 @@ pub(super) fn winding_step(
     number: usize,
     i: usize,
     s_eval: &SectionEval,
-) -> Option<Step> {
+) -> Option<SheetStep> {
     let SectionKind::Winding {
         winding,
-        with,
+        partner,
         turns,
         turns_per_layer,
         layer_count,
@@ -64,13 +64,13 @@ pub(super) fn winding_step(
         return None;
     };
     let mut names = vec![winding.clone()];
-    names.extend(with.clone());
-    let heading = winding_heading(build, &names, with.is_some());
+    names.extend(partner.clone());
+    let heading = winding_heading(build, &names, partner.is_some());
     let mut lines: Vec<(String, String)> = Vec::new();
     lines.extend(margin_line(build, s_eval));
     lines.extend(conductor_or_wire_lines(build, eval, &names));
-    let foil = with.is_none() && is_foil(build, winding);
-    if with.is_some() {
+    let foil = partner.is_none() && is_foil(build, winding);
+    if partner.is_some() {
         lines.push((
             "Bifilar".into(),
             format!(
@@ -109,7 +109,7 @@ pub(super) fn winding_step(
     for n in &names {
         lines.push(("Finish".into(), finish_text(build, i, n, side)));
     }
-    Some(Step {
+    Some(SheetStep {
         number,
         section: i,
         heading,
@@ -247,8 +247,10 @@ pub(super) fn crossing_leads(build: &Build, eval: &Evaluation) -> Vec<String> {
         let mut first: Option<f64> = None;
         let mut last: Option<f64> = None;
         for s in &eval.sections {
-            if let SectionKind::Winding { winding, with, .. } = &s.kind
-                && (*winding == w.name || with.as_deref() == Some(w.name.as_str()))
+            if let SectionKind::Winding {
+                winding, partner, ..
+            } = &s.kind
+                && (*winding == w.name || partner.as_deref() == Some(w.name.as_str()))
             {
                 first.get_or_insert(s.y_mm);
                 last = s.layers.last().map(|l| l.y_mm);
@@ -266,8 +268,8 @@ pub(super) fn crossing_leads(build: &Build, eval: &Evaluation) -> Vec<String> {
             .iter()
             .enumerate()
             .filter(|(_, s)| {
-                matches!(&s.kind, SectionKind::Winding { winding, with, .. }
-                    if *winding == w.name || with.as_deref() == Some(w.name.as_str()))
+                matches!(&s.kind, SectionKind::Winding { winding, partner, .. }
+                    if *winding == w.name || partner.as_deref() == Some(w.name.as_str()))
             })
             .map(|(i, _)| i)
             .collect();

@@ -60,10 +60,10 @@ fn band_label(i: usize, s: &SectionEval) -> String {
         SectionKind::Tape { wraps } => format!("{} tape x{wraps}", i + 1),
         SectionKind::Winding {
             winding,
-            with,
+            partner,
             turns,
             ..
-        } => match with {
+        } => match partner {
             Some(b) => format!("{} {winding}+{b} bifilar, {turns} t", i + 1),
             None => format!("{} {winding}, {turns} t", i + 1),
         },
@@ -83,7 +83,7 @@ fn draw_limits(o: &mut String, build: &Build, paper: &Paper, h_win: f64, flange:
         x(w) + flange,
         y(h_win)
     );
-    let bare_limit = h_win / build.setup.bulge;
+    let bare_limit = h_win / build.setup.allowance_factor;
     let _ = write!(
         o,
         "<line class=\"allowance\" x1=\"{:.2}\" y1=\"{:.3}\" x2=\"{:.2}\" y2=\"{:.3}\" stroke=\"#000\" stroke-width=\"0.2\" stroke-dasharray=\"1,1\"/>",
@@ -97,7 +97,7 @@ fn draw_limits(o: &mut String, build: &Build, paper: &Paper, h_win: f64, flange:
         "<text x=\"{:.2}\" y=\"{:.2}\" font-size=\"2.4\">tube at the bottom; {w:.2} mm between flanges; solid line: window {h_win:.2} mm; dashed: window / allowance {:.2}; scale {k:.1} : 1</text>",
         x(0.0) - flange,
         y_base + tube + 4.0,
-        build.setup.bulge
+        build.setup.allowance_factor
     );
 }
 
@@ -268,7 +268,7 @@ fn winding_band(
 ) {
     let SectionKind::Winding {
         winding,
-        with,
+        partner,
         pitch_mm,
         ..
     } = &s.kind
@@ -277,7 +277,7 @@ fn winding_band(
     };
     let (w, k, margin) = (paper.w, paper.k, paper.margin);
     let (y_top, hgt) = (paper.y(s.y_mm + s.height_mm), s.height_mm * k);
-    let name = match with {
+    let name = match partner {
         Some(b) => format!("{winding}+{b}"),
         None => winding.to_string(),
     };
@@ -305,7 +305,7 @@ fn winding_band(
         (w - 2.0 * margin) * k
     );
     let strands_a = build.winding(winding).map_or(1, |w| w.strands.max(1));
-    let strands_b = with
+    let strands_b = partner
         .as_ref()
         .and_then(|n| build.winding(n))
         .map_or(0, |w| w.strands.max(1));
@@ -316,7 +316,7 @@ fn winding_band(
             .map_or(0.0, |w| w.od_mm)
     };
     let od_a = od_of(winding);
-    let od_b = with.as_deref().map_or(0.0, od_of);
+    let od_b = partner.as_deref().map_or(0.0, od_of);
     let conductor = |n: &str| build.winding(n).map(|w| w.conductor);
     let is_litz = |n: &str| matches!(conductor(n), Some(Conductor::Litz(_)));
     if let Some(Conductor::Foil(_)) = conductor(winding) {
@@ -330,7 +330,7 @@ fn winding_band(
             *pitch_mm,
             fill,
             [(strands_a, od_a), (strands_b, od_b)],
-            [is_litz(winding), with.as_deref().is_some_and(is_litz)],
+            [is_litz(winding), partner.as_deref().is_some_and(is_litz)],
         );
     }
     o.push_str("</g>");

@@ -149,7 +149,7 @@ fn header_block(o: &mut String, build: &Build, eval: &Evaluation) {
         "setup: {} C{}, allowance x{:.2}, margins {:.2} mm, tape {:.3} mm/wrap, {freq}",
         temperature_figure(eval.temperature_c),
         temperature_how(eval),
-        s.bulge,
+        s.allowance_factor,
         s.margin_mm,
         s.tape_mm
     );
@@ -163,7 +163,7 @@ fn header_block(o: &mut String, build: &Build, eval: &Evaluation) {
     let summary = format!(
         "build {:.3} mm, x{:.2} = {:.3} mm; usable width {:.2} mm; fill factor {:.3}",
         eval.build_height_mm,
-        s.bulge,
+        s.allowance_factor,
         eval.height_with_allowance_mm,
         eval.usable_width_mm,
         eval.fill_factor
@@ -194,7 +194,7 @@ fn stack_block(o: &mut String, eval: &Evaluation) {
             }
             SectionKind::Winding {
                 winding,
-                with,
+                partner,
                 turns,
                 turns_per_layer,
                 layer_count,
@@ -203,7 +203,7 @@ fn stack_block(o: &mut String, eval: &Evaluation) {
                 mlt_mm,
                 ..
             } => {
-                let name = match with {
+                let name = match partner {
                     Some(w) => format!("{winding}+{w} bifilar"),
                     None => winding.to_string(),
                 };

@@ -1,16 +1,16 @@
 //! The core-material form, `[material]`: one row to add it while the build has none.
 
 use super::{Ctx, Enter, FieldSpec, num_text, number, opt, optional};
-use crate::library::materials::{self, GRADES};
+use crate::library::materials::{self, FERRITES};
 use crate::model::{Build, Material, Steinmetz};
 use crate::tui::app::App;
 use crate::tui::edit::Refusal;
 
-/// A bundled grade's typical figures as a material, with the gap given.
-pub(crate) fn grade_material(id: &str, gap_mm: Option<f64>) -> Option<Material> {
+/// A bundled ferrite's typical figures as a material, with the gap given.
+pub(crate) fn ferrite_material(id: &str, gap_mm: Option<f64>) -> Option<Material> {
     let g = materials::find(id)?;
     Some(Material {
-        grade: Some(g.id.to_string()),
+        ferrite: Some(g.id.to_string()),
         bsat_mt: g.bsat_mt,
         br_mt: g.br_mt,
         mu_i: Some(g.mu_i),
@@ -35,11 +35,11 @@ pub static FIELDS: &[FieldSpec] = &[
         read: |c| {
             mat(c)
                 .is_none()
-                .then(|| format!("none: Enter adds {}", GRADES[0].id))
+                .then(|| format!("none: Enter adds {}", FERRITES[0].id))
         },
         enter: Enter::Act(|app, _| {
-            app.edit(format!("add material {}", GRADES[0].id), |b| {
-                b.material = grade_material(GRADES[0].id, None);
+            app.edit(format!("add material {}", FERRITES[0].id), |b| {
+                b.material = ferrite_material(FERRITES[0].id, None);
                 Ok(())
             });
         }),
@@ -47,8 +47,8 @@ pub static FIELDS: &[FieldSpec] = &[
     FieldSpec {
         label: "grade",
         hint: "",
-        read: |c| mat(c).map(|m| m.grade.clone().unwrap_or_else(|| "own figures".into())),
-        enter: Enter::Act(|app, _| app.open_grade_picker()),
+        read: |c| mat(c).map(|m| m.ferrite.clone().unwrap_or_else(|| "own figures".into())),
+        enter: Enter::Act(|app, _| app.open_ferrite_picker()),
     },
     FieldSpec {
         label: "saturation flux",
@@ -159,19 +159,19 @@ fn steinmetz(t: &str) -> Result<Option<Steinmetz>, Refusal> {
 }
 
 impl App {
-    /// A grade sets its typical figures (the gap stays); no grade keeps the figures.
-    pub(crate) fn set_grade(&mut self, grade: Option<String>) {
-        let label = match &grade {
+    /// A bundled ferrite sets its typical figures (the gap stays); none keeps the figures.
+    pub(crate) fn set_ferrite(&mut self, ferrite: Option<String>) {
+        let label = match &ferrite {
             Some(g) => format!("grade {g}"),
             None => "material: own figures".into(),
         };
         self.edit(label, |b| {
             let m = mat_mut(b)?;
-            match &grade {
+            match &ferrite {
                 Some(id) => {
-                    *m = grade_material(id, m.gap_mm).ok_or("unknown grade")?;
+                    *m = ferrite_material(id, m.gap_mm).ok_or("unknown grade")?;
                 }
-                None => m.grade = None,
+                None => m.ferrite = None,
             }
             Ok(())
         });

@@ -3,7 +3,7 @@
 //! design over the planner's bobbin library.
 
 use super::{Ctx, Enter, FieldSpec, number, opt, optional};
-use crate::library::materials::GRADES;
+use crate::library::materials::FERRITES;
 use crate::model::Requirements;
 use crate::tui::app::{App, Effect};
 use crate::tui::edit::Refusal;
@@ -48,16 +48,16 @@ macro_rules! need {
     };
 }
 
-/// The next bundled grade after the one the requirements name.
-fn next_grade(app: &mut App, _: usize) {
+/// The next bundled ferrite after the one the requirements name.
+fn next_ferrite(app: &mut App, _: usize) {
     let Some(r) = app.ui.needs.as_mut() else {
         return;
     };
-    let now = GRADES
+    let now = FERRITES
         .iter()
-        .position(|g| r.material.grade.as_deref() == Some(g.id));
-    let next = &GRADES[now.map_or(0, |i| (i + 1) % GRADES.len())];
-    if let Some(m) = super::material::grade_material(next.id, None) {
+        .position(|g| r.material.ferrite.as_deref() == Some(g.id));
+    let next = &FERRITES[now.map_or(0, |i| (i + 1) % FERRITES.len())];
+    if let Some(m) = super::material::ferrite_material(next.id, None) {
         r.material = m;
     }
     app.ui.design_note = None;
@@ -183,11 +183,11 @@ pub static FIELDS: &[FieldSpec] = &[
             needs(c).map(|r| {
                 format!(
                     "{} (Enter: next grade)",
-                    r.material.grade.as_deref().unwrap_or("own figures")
+                    r.material.ferrite.as_deref().unwrap_or("own figures")
                 )
             })
         },
-        enter: Enter::Act(next_grade),
+        enter: Enter::Act(next_ferrite),
     },
     need!(
         "temperature rise allowed",

@@ -39,11 +39,11 @@ pub static FIELDS: &[FieldSpec] = &[
     FieldSpec {
         label: "hand-winding allowance",
         hint: "",
-        read: |c| Some(format!("x {}", c.build.setup.bulge)),
+        read: |c| Some(format!("x {}", c.build.setup.allowance_factor)),
         enter: Enter::Type {
-            text: |c| Ok(c.build.setup.bulge.to_string()),
+            text: |c| Ok(c.build.setup.allowance_factor.to_string()),
             write: |b, _, t| {
-                b.setup.bulge = number(t)?;
+                b.setup.allowance_factor = number(t)?;
                 Ok(())
             },
         },

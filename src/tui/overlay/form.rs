@@ -149,7 +149,7 @@ impl App {
             FormKind::Material => b
                 .material
                 .as_ref()
-                .and_then(|m| m.grade.as_deref())
+                .and_then(|m| m.ferrite.as_deref())
                 .and_then(materials::find)
                 .map(|g| vec![g.description.to_string()])
                 .unwrap_or_default(),

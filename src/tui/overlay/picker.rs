@@ -33,8 +33,8 @@ pub enum PickValue {
     AddShare(String),
     /// The search's candidate `n` (counted from 0), carried whole.
     Candidate { n: usize, candidate: Box<Candidate> },
-    /// A bundled ferrite grade, or `None` for the user's own figures.
-    Grade(Option<String>),
+    /// A bundled ferrite, or `None` for the user's own figures.
+    Ferrite(Option<String>),
     /// Start a new build on a bobbin of the library.
     NewFromBobbin,
     /// Start a new build from requirements (the form, then the designs).
@@ -73,8 +73,8 @@ pub enum PickPurpose {
     AddSection(usize),
     /// Take a search candidate.
     Search,
-    /// The ferrite grade.
-    Grade,
+    /// The core's bundled ferrite.
+    Ferrite,
     /// How to start a new build.
     NewStart,
     /// Open one of the designs from requirements.
@@ -220,7 +220,7 @@ impl App {
             (PickPurpose::Search, PickValue::Candidate { n, candidate }) => {
                 self.take_candidate(n, *candidate)
             }
-            (PickPurpose::Grade, PickValue::Grade(g)) => self.set_grade(g),
+            (PickPurpose::Ferrite, PickValue::Ferrite(f)) => self.set_ferrite(f),
             (PickPurpose::NewStart, PickValue::NewFromBobbin) => self.new_from_bobbin(),
             (PickPurpose::NewStart, PickValue::NewFromRequirements) => {
                 self.open_requirements_form()

@@ -1,9 +1,9 @@
 //! The planner's pick lists as they open: bobbins (plain, or ranked by fit), wires, the
-//! section to split around, the bifilar partner, the section to add and the ferrite grade.
+//! section to split around, the bifilar partner, the section to add and the bundled ferrite.
 
 use super::{Overlay, PickItem, PickPurpose, PickValue, Picker};
 use crate::files::BobbinOrigin;
-use crate::library::materials::GRADES;
+use crate::library::materials::FERRITES;
 use crate::library::wires::catalogue;
 use crate::model::{Bobbin, BobbinSource, Section};
 use crate::tui::app::App;
@@ -182,7 +182,7 @@ impl App {
         let mut cands: Vec<usize> = (0..b.stack.len())
             .filter(|&j| match &b.stack[j] {
                 Section::Winding(o) => {
-                    o.winding != me.winding && Some(&o.winding) != me.with.as_ref()
+                    o.winding != me.winding && Some(&o.winding) != me.partner.as_ref()
                 }
                 _ => false,
             })
@@ -239,7 +239,7 @@ impl App {
         }
         let selected = items
             .iter()
-            .position(|it| it.value == PickValue::Partner(me.with.clone()))
+            .position(|it| it.value == PickValue::Partner(me.partner.clone()))
             .unwrap_or(0);
         let title = format!("wind section {} bifilar with", self.section_name(i));
         let header = "the partner's turns come from its own sections";
@@ -275,31 +275,31 @@ impl App {
         ));
     }
 
-    /// The bundled ferrite grades, the material's selected, own figures last.
-    pub(crate) fn open_grade_picker(&mut self) {
+    /// The bundled ferrites, the material's selected, own figures last.
+    pub(crate) fn open_ferrite_picker(&mut self) {
         let now = self
             .doc
             .build
             .material
             .as_ref()
-            .and_then(|m| m.grade.clone());
-        let mut items: Vec<PickItem> = GRADES
+            .and_then(|m| m.ferrite.clone());
+        let mut items: Vec<PickItem> = FERRITES
             .iter()
             .map(|g| PickItem {
                 label: format!(
                     "{:<16} {:>4} {:>4} {:>5}  {}",
                     g.id, g.bsat_mt, g.br_mt, g.mu_i, g.description
                 ),
-                value: PickValue::Grade(Some(g.id.to_string())),
+                value: PickValue::Ferrite(Some(g.id.to_string())),
             })
             .collect();
         items.push(PickItem {
             label: "own figures: keep the values, no grade".into(),
-            value: PickValue::Grade(None),
+            value: PickValue::Ferrite(None),
         });
         let selected = items
             .iter()
-            .position(|it| it.value == PickValue::Grade(now.clone()))
+            .position(|it| it.value == PickValue::Ferrite(now.clone()))
             .unwrap_or(0);
         let title = "ferrite grade (typical figures, from memory)";
         let header = format!(
@@ -309,7 +309,7 @@ impl App {
         self.push_picker(Picker::new(
             title,
             header,
-            PickPurpose::Grade,
+            PickPurpose::Ferrite,
             items,
             selected,
         ));

@@ -112,7 +112,7 @@ fn columns(app: &App, i: usize) -> (String, ratatui::style::Style, [String; 8]) 
         ),
         SectionKind::Winding {
             winding,
-            with,
+            partner,
             turns,
             turns_per_layer,
             layer_count,
@@ -122,7 +122,7 @@ fn columns(app: &App, i: usize) -> (String, ratatui::style::Style, [String; 8]) 
             ..
         } => {
             let k = app.doc.build.winding_index(winding).unwrap_or(0);
-            let name = match with {
+            let name = match partner {
                 Some(w) => format!("{winding}+{w}"),
                 None => winding.to_string(),
             };

@@ -343,7 +343,7 @@ impl WindowView<'_> {
                 }
                 let label = format!(
                     " x{} allowance {:.2} mm ",
-                    app.doc.build.setup.bulge, e.height_with_allowance_mm
+                    app.doc.build.setup.allowance_factor, e.height_with_allowance_mm
                 );
                 let label = super::fit(&label, cols as usize);
                 let w = label.width() as u16;
@@ -369,7 +369,7 @@ impl WindowView<'_> {
         let sec = &e.sections[s];
         let SectionKind::Winding {
             winding,
-            with,
+            partner,
             pitch_mm,
             ..
         } = &sec.kind
@@ -384,7 +384,9 @@ impl WindowView<'_> {
             return;
         }
         let litz = self.is_litz(a);
-        let b = with.as_ref().and_then(|w| app.doc.build.winding_index(w));
+        let b = partner
+            .as_ref()
+            .and_then(|w| app.doc.build.winding_index(w));
         let over = top_mm > e.window_height_mm + FIT_TOLERANCE_MM;
         // The first winding's share of each bifilar turn's width.
         let share_a = self.turn_width_mm(a) / pitch_mm.max(1e-9);

@@ -369,14 +369,14 @@ fn pieces_of(build: &Build, p: usize, s: usize, r: Option<usize>, a: Arrangement
     let np = build.windings[p].turns;
     let ns = build.windings[s].turns;
     let bifilar = a.reset == Some(ResetPlace::BifilarWithPrimary);
-    let with = if bifilar { r } else { None };
+    let partner = if bifilar { r } else { None };
     let (p1, p2) = (np / 2, np - np / 2);
     let (s1, s2) = (ns / 2, ns - ns / 2);
     let mut pieces: Vec<Piece> = match a.split {
-        Split::PrimaryFirst => vec![(p, np, with), (s, ns, None)],
-        Split::SecondaryFirst => vec![(s, ns, None), (p, np, with)],
-        Split::PrimaryAround => vec![(p, p1, with), (s, ns, None), (p, p2, with)],
-        Split::SecondaryAround => vec![(s, s1, None), (p, np, with), (s, s2, None)],
+        Split::PrimaryFirst => vec![(p, np, partner), (s, ns, None)],
+        Split::SecondaryFirst => vec![(s, ns, None), (p, np, partner)],
+        Split::PrimaryAround => vec![(p, p1, partner), (s, ns, None), (p, p2, partner)],
+        Split::SecondaryAround => vec![(s, s1, None), (p, np, partner), (s, s2, None)],
     };
     if let (Some(r), Some(place)) = (r, a.reset) {
         let nr = build.windings[r].turns;

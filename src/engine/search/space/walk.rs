@@ -80,7 +80,7 @@ impl<'a> Space<'a> {
             height += f64::from(self.base.windings[k].turns.div_ceil(n_l)) * ch.od_mm;
         }
         height += f64::from(self.tape_wraps(pieces)) * self.base.setup.tape_mm;
-        let with_allowance = height * self.base.setup.bulge;
+        let with_allowance = height * self.base.setup.allowance_factor;
         if reasons.least_bound_mm.is_none_or(|l| with_allowance < l) {
             reasons.least_bound_mm = Some(with_allowance);
         }
@@ -132,7 +132,7 @@ impl<'a> Space<'a> {
         let (_, pieces) = &self.arrangements[arrangement];
         let order = self.order(pieces);
         b.stack.clear();
-        for (n, &(k, turns, with)) in order.iter().enumerate() {
+        for (n, &(k, turns, partner)) in order.iter().enumerate() {
             if n > 0 {
                 let cross = primary_side(self.base, order[n - 1].0) != primary_side(self.base, k);
                 let wraps = if cross {
@@ -147,7 +147,7 @@ impl<'a> Space<'a> {
             b.stack.push(Section::Winding(WindingSection {
                 winding: self.base.windings[k].name.to_string(),
                 turns: Some(turns),
-                with: with.map(|w| self.base.windings[w].name.to_string()),
+                partner: partner.map(|w| self.base.windings[w].name.to_string()),
                 layer_tape: 0,
             }));
         }
