@@ -13,5 +13,6 @@ pub mod text;
 pub mod textfmt;
 pub mod verify;
 pub mod verify_conductor;
+pub mod verify_findings;
 
 pub use textfmt::wrap;

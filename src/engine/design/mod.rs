@@ -295,20 +295,18 @@ fn design_on(
         return Some(Err(BobbinVerdict::NoResetTurns));
     }
     weighed.sort_by(|a, b| b.0.cmp(&a.0).then(a.1.total_cmp(&b.1)));
+    let on = OnBobbin {
+        req,
+        needs,
+        id,
+        settings: &settings.search,
+        cancel,
+    };
     let mut best: Option<Design> = None;
     let mut first_verdict = None;
     for (_, _, turns, reset, build) in weighed.into_iter().take(settings.primaries_searched.max(1))
     {
-        match searched(
-            req,
-            needs,
-            id,
-            &build,
-            &turns,
-            reset,
-            &settings.search,
-            cancel,
-        )? {
+        match searched(&on, &build, &turns, reset)? {
             Ok(d) => {
                 if best.as_ref().is_none_or(|b| rank::better(&d, b)) {
                     best = Some(d);
@@ -322,19 +320,37 @@ fn design_on(
     Some(best.ok_or_else(|| first_verdict.unwrap_or(BobbinVerdict::NoResetTurns)))
 }
 
-/// The search on one primary's build; its best candidate that meets every requirement.
-/// `None` when `cancel` stopped the search.
-#[allow(clippy::too_many_arguments)]
+/// What the searches on one bobbin share: the requirements, the reset's needs, the bobbin's
+/// id, the search settings and the cancel flag.
+struct OnBobbin<'a> {
+    /// The requirements designed for.
+    req: &'a Requirements,
+    /// The reset's needs from the requirements.
+    needs: &'a ResetNeeds,
+    /// The bobbin's id, as a design names it.
+    id: &'a str,
+    /// What each search may try and must meet.
+    settings: &'a Settings,
+    /// Stops the search under way when set.
+    cancel: &'a AtomicBool,
+}
+
+/// The search on one primary's build (of `turns`, with the `reset` chosen) on the bobbin
+/// `on` describes; its best candidate that meets every requirement. `None` when `cancel`
+/// stopped the search.
 fn searched(
-    req: &Requirements,
-    needs: &ResetNeeds,
-    id: &str,
+    on: &OnBobbin,
     build: &Build,
     turns: &Turns,
     reset: ResetChoice,
-    settings: &Settings,
-    cancel: &AtomicBool,
 ) -> Option<Result<Design, BobbinVerdict>> {
+    let OnBobbin {
+        req,
+        needs,
+        id,
+        settings,
+        cancel,
+    } = *on;
     let outcome = match search::search_cancellable(build, settings, &|_, _| {}, cancel) {
         Ok(o) => o,
         Err(search::SearchError::Cancelled { .. }) => return None,

@@ -6,6 +6,42 @@ impl fmt::Display for WarningKind {
     fn fmt(&self, f: &mut fmt::Formatter<'_>) -> fmt::Result {
         match self {
             WarningKind::Invalid(problem) => write!(f, "{problem}"),
+            WarningKind::DoesNotFit { .. }
+            | WarningKind::PastWindow { .. }
+            | WarningKind::PartialLayer { .. }
+            | WarningKind::MarginCrowded { .. }
+            | WarningKind::FillHigh { .. }
+            | WarningKind::TiwStrands { .. } => self.write_fit(f),
+            WarningKind::ResetBelowController { .. }
+            | WarningKind::DutyShort { .. }
+            | WarningKind::ResetImpossible { .. }
+            | WarningKind::ResetSteady { .. }
+            | WarningKind::ResetStartup
+            | WarningKind::OutputOffTarget { .. }
+            | WarningKind::Saturation { .. } => self.write_converter(f),
+            WarningKind::CurrentDensity { .. }
+            | WarningKind::TemperatureRise { .. }
+            | WarningKind::HotSpot { .. }
+            | WarningKind::AcBifilarPs { .. }
+            | WarningKind::LitzStrandThick { .. }
+            | WarningKind::LitzTooManyStrands { .. } => self.write_heat(f),
+            WarningKind::LayerVoltage { .. }
+            | WarningKind::BifilarVoltage { .. }
+            | WarningKind::SectionVoltage { .. } => self.write_voltage(f),
+            WarningKind::IsolationBifilar { .. }
+            | WarningKind::IsolationWraps { .. }
+            | WarningKind::IsolationMargin { .. }
+            | WarningKind::IsolationCreepageUnset { .. } => self.write_isolation(f),
+        }
+    }
+}
+
+/// The sentences by kind of warning, each group one match; `fmt` above sends every kind to
+/// its group, so the catch-all arms are never reached.
+impl WarningKind {
+    /// The sentence of a warning on the fit and the layout of the sections.
+    fn write_fit(&self, f: &mut fmt::Formatter<'_>) -> fmt::Result {
+        match self {
             WarningKind::DoesNotFit {
                 height_with_allowance_mm,
                 allowance_factor,
@@ -53,6 +89,13 @@ impl fmt::Display for WarningKind {
                 f,
                 "\"{winding}\": strands of triple-insulated wire in parallel are unusual; check the pitch"
             ),
+            _ => unreachable!("not a warning on the fit and the layout of the sections"),
+        }
+    }
+
+    /// The sentence of a warning on the converter: duty, reset, outputs and flux.
+    fn write_converter(&self, f: &mut fmt::Formatter<'_>) -> fmt::Result {
+        match self {
             WarningKind::ResetBelowController {
                 duty_limit,
                 reset_duty_limit,
@@ -106,6 +149,13 @@ impl fmt::Display for WarningKind {
                 "worst-case flux swing {swing_mt:.0} mT exceeds the {headroom_mt:.0} mT between saturation and \
                  remanence: the core saturates (more primary turns, a larger core or a lower duty limit)"
             ),
+            _ => unreachable!("not a warning on the converter: duty, reset, outputs and flux"),
+        }
+    }
+
+    /// The sentence of a warning on current density, loss and heat.
+    fn write_heat(&self, f: &mut fmt::Formatter<'_>) -> fmt::Result {
+        match self {
             WarningKind::CurrentDensity {
                 winding,
                 density_a_mm2: j,
@@ -148,6 +198,36 @@ impl fmt::Display for WarningKind {
                 "hot spot about {hot_c:.0} C ({ambient_c:.0} C air + the rise) is above the {class_c:.0} C \
                  thermal class of the {part} (IEC 60085): less loss, a larger core, or parts of a higher class"
             ),
+            WarningKind::AcBifilarPs { primary, secondary } => write!(
+                f,
+                "\"{primary}\" and \"{secondary}\" are wound bifilar together: the layer model cannot give them \
+                 AC figures, so their copper loss is taken at DC resistance and understated"
+            ),
+            WarningKind::LitzStrandThick {
+                winding,
+                strand_mm,
+                skin_depth_mm,
+            } => write!(
+                f,
+                "\"{winding}\": litz strands of {strand_mm} mm are thicker than the skin depth \
+                 ({skin_depth_mm:.3} mm), so the litz no longer pays: take finer strands"
+            ),
+            WarningKind::LitzTooManyStrands {
+                winding,
+                strands,
+                ac_factor,
+            } => write!(
+                f,
+                "\"{winding}\": {strands} strands give an AC factor of {ac_factor:.2}, more loss \
+                 to proximity than to DC: fewer strands, or finer ones, would lose less"
+            ),
+            _ => unreachable!("not a warning on current density, loss and heat"),
+        }
+    }
+
+    /// The sentence of a warning on the voltage between layers, turns and sections.
+    fn write_voltage(&self, f: &mut fmt::Formatter<'_>) -> fmt::Result {
+        match self {
             WarningKind::LayerVoltage {
                 section,
                 winding,
@@ -190,29 +270,13 @@ impl fmt::Display for WarningKind {
                 outer.0 + 1,
                 outer.1
             ),
-            WarningKind::AcBifilarPs { primary, secondary } => write!(
-                f,
-                "\"{primary}\" and \"{secondary}\" are wound bifilar together: the layer model cannot give them \
-                 AC figures, so their copper loss is taken at DC resistance and understated"
-            ),
-            WarningKind::LitzStrandThick {
-                winding,
-                strand_mm,
-                skin_depth_mm,
-            } => write!(
-                f,
-                "\"{winding}\": litz strands of {strand_mm} mm are thicker than the skin depth \
-                 ({skin_depth_mm:.3} mm), so the litz no longer pays: take finer strands"
-            ),
-            WarningKind::LitzTooManyStrands {
-                winding,
-                strands,
-                ac_factor,
-            } => write!(
-                f,
-                "\"{winding}\": {strands} strands give an AC factor of {ac_factor:.2}, more loss \
-                 to proximity than to DC: fewer strands, or finer ones, would lose less"
-            ),
+            _ => unreachable!("not a warning on the voltage between layers, turns and sections"),
+        }
+    }
+
+    /// The sentence of a warning on the declared isolation class.
+    fn write_isolation(&self, f: &mut fmt::Formatter<'_>) -> fmt::Result {
+        match self {
             WarningKind::IsolationBifilar {
                 class,
                 section,
@@ -259,6 +323,7 @@ impl fmt::Display for WarningKind {
                  from the applicable standard for your working voltage)",
                 class.key()
             ),
+            _ => unreachable!("not a warning on the declared isolation class"),
         }
     }
 }

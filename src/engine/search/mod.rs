@@ -7,12 +7,12 @@
 
 mod pareto;
 mod space;
+mod threads;
 
 pub use pareto::{Objectives, pareto_indices};
 pub use space::{Arrangement, ResetPlace, WireChoice};
 
-use super::memo::Memo;
-use super::{Evaluation, evaluate_with, validate};
+use super::{Evaluation, validate};
 use crate::model::{Build, Name, Role};
 use std::sync::atomic::{AtomicBool, AtomicUsize, Ordering};
 
@@ -279,86 +279,23 @@ pub fn search_cancellable(
     let threads = settings.threads.clamp(1, MAX_THREADS).min(total.max(1));
 
     // Each thread takes every n-th combination and keeps its own front; the fronts are merged
-    // in index order, so the outcome does not depend on the thread count. The arrangement is
-    // the slowest digit of the index, so a thread rebuilds its candidate's stack rarely and
-    // otherwise only swaps wires.
-    let run = |t: usize| {
-        let mut front: Vec<(usize, Objectives, Candidate)> = Vec::new();
-        let (mut evaluated, mut pruned, mut feasible) = (0usize, 0usize, 0usize);
-        let mut reasons = space::Reasons::default();
-        let mut candidate = build.clone();
-        // Names are shared text whose reference counts every evaluation bumps: each thread
-        // takes copies of its own, or the counts' cache line bounces between the cores.
-        for w in &mut candidate.windings {
-            w.name = Name::from(w.name.as_str());
-        }
-        let mut laid_arrangement = None;
-        let mut memo = Memo::new();
-        let mut combo = space::Combo::default();
-        for (k, index) in (t..total).step_by(threads).enumerate() {
-            // Counted locally and published in steps: one shared counter touched by every
-            // thread on every index would bounce its cache line between the cores.
-            if k > 0 && k.is_multiple_of(PROGRESS_STEP) {
-                let n = done.fetch_add(PROGRESS_STEP, Ordering::Relaxed) + PROGRESS_STEP;
-                progress(n, total);
-            }
-            if k.is_multiple_of(PROGRESS_STEP) && cancel.load(Ordering::Relaxed) {
-                break;
-            }
-            plan.decode(index, &mut combo);
-            let in_band = plan.in_band_all(&combo);
-            if in_band {
-                reasons.in_band += 1;
-            }
-            if settings.prune && (!in_band || !plan.may_fit(&combo, &mut reasons)) {
-                pruned += 1;
-                continue;
-            }
-            if laid_arrangement != Some(combo.arrangement) {
-                plan.set_stack(&mut candidate, combo.arrangement);
-                laid_arrangement = Some(combo.arrangement);
-            }
-            plan.set_wires(&mut candidate, &combo);
-            let eval = evaluate_with(&candidate, &mut memo);
-            evaluated += 1;
-            if !reasons.accept(&eval, settings, plan.sized()) {
-                continue;
-            }
-            feasible += 1;
-            let copper = copper_loss_w(&eval);
-            let objectives = Objectives {
-                loss_w: total_loss_w(&eval),
-                leakage_uh: primary_secondary_leakage_uh(&candidate, &eval),
-                spare_height_mm: eval.spare_height_mm,
-            };
-            let coarse = objectives.coarse();
-            // Of candidates alike at the front's resolution the finer one stays (see
-            // `Objectives::finer`); indices rise within a thread, so of exact equals the first.
-            if front.iter().any(|(_, o, c)| {
-                o.dominates(&coarse) || (*o == coarse && !objectives.finer(&c.objectives))
-            }) {
-                continue;
-            }
-            front.retain(|(_, o, _)| !(coarse.dominates(o) || *o == coarse));
-            front.push((
-                index,
-                coarse,
-                Candidate {
-                    description: plan.describe(&combo),
-                    build: candidate.clone(),
-                    eval,
-                    objectives,
-                    copper_loss_w: copper,
-                },
-            ));
-        }
-        (front, evaluated, pruned, feasible, reasons)
+    // in index order, so the outcome does not depend on the thread count.
+    let walk = threads::Walk {
+        plan: &plan,
+        build,
+        settings,
+        total,
+        threads,
+        done: &done,
+        progress,
+        cancel,
     };
     let parts: Vec<_> = if threads == 1 {
-        vec![run(0)]
+        vec![walk.run(0)]
     } else {
+        let walk = &walk;
         std::thread::scope(|s| {
-            let handles: Vec<_> = (0..threads).map(|t| s.spawn(move || run(t))).collect();
+            let handles: Vec<_> = (0..threads).map(|t| s.spawn(move || walk.run(t))).collect();
             handles
                 .into_iter()
                 .map(|h| h.join().expect("search thread panicked"))
@@ -373,32 +310,10 @@ pub fn search_cancellable(
     }
     progress(total, total);
 
-    let mut all: Vec<(usize, Objectives, Candidate)> = Vec::new();
-    let (mut evaluated, mut pruned, mut feasible) = (0, 0, 0);
-    let mut reasons = space::Reasons::default();
-    for (front, e, p, f, r) in parts {
-        all.extend(front);
-        evaluated += e;
-        pruned += p;
-        feasible += f;
-        reasons.merge(&r);
-    }
-    // Finest first, then by index: the first of each alike group is the one the front keeps,
-    // whichever thread found it.
-    all.sort_by(|(i, _, a), (k, _, b)| a.objectives.exact_cmp(&b.objectives).then(i.cmp(k)));
-    let coarse: Vec<Objectives> = all.iter().map(|(_, o, _)| *o).collect();
-    let keep = pareto_indices(&coarse);
-    let mut candidates: Vec<Candidate> = keep.into_iter().map(|k| all[k].2.clone()).collect();
-    candidates.sort_by(|a, b| {
-        let (x, y) = (&a.objectives, &b.objectives);
-        x.loss_w
-            .total_cmp(&y.loss_w)
-            .then(x.leakage_uh.total_cmp(&y.leakage_uh))
-            .then(y.spare_height_mm.total_cmp(&x.spare_height_mm))
-            .then(a.description.cmp(&b.description))
-    });
+    let all = threads::merge(parts);
+    let candidates = threads::ranked(all.front);
     let binding = candidates.is_empty().then(|| {
-        reasons.binding(
+        all.reasons.binding(
             plan.len(),
             settings,
             build.bobbin.window.height_mm,
@@ -407,9 +322,9 @@ pub fn search_cancellable(
     });
     Ok(Outcome {
         space: total,
-        evaluated,
-        pruned,
-        feasible,
+        evaluated: all.evaluated,
+        pruned: all.pruned,
+        feasible: all.feasible,
         candidates,
         binding,
         notes: plan.notes(),
