@@ -245,7 +245,14 @@ impl Widget for WindowView<'_> {
                 let flange = Style::new();
                 buf.set_string(inner.x + gutter, y, "┃", flange);
                 buf.set_string(x0 + cols, y, "┃", flange);
-                self.draw_row(buf, p.item, x0, y, cols, cell_mm, margin);
+                let at = RowAt {
+                    x0,
+                    y,
+                    cols,
+                    cell_mm,
+                    margin,
+                };
+                self.draw_row(buf, p.item, at);
                 r += 1;
             }
             // Section number in the gutter on the piece's first (lowest) row.
@@ -274,33 +281,14 @@ impl Widget for WindowView<'_> {
 }
 
 impl WindowView<'_> {
-    #[allow(clippy::too_many_arguments)]
-    fn draw_row(
-        &self,
-        buf: &mut Buffer,
-        item: Item,
-        x0: u16,
-        y: u16,
-        cols: u16,
-        cell_mm: f64,
-        margin: f64,
-    ) {
+    fn draw_row(&self, buf: &mut Buffer, item: Item, at: RowAt) {
+        let RowAt { x0, y, cols, .. } = at;
         let app = self.app;
         let t = &app.ui.theme;
         let e = &app.doc.eval;
         let past = |top: f64| top > e.window_height_mm + FIT_TOLERANCE_MM;
         match item {
-            Item::Layer { s, l, top_mm } => self.draw_layer(
-                buf,
-                (s, l, top_mm),
-                RowAt {
-                    x0,
-                    y,
-                    cols,
-                    cell_mm,
-                    margin,
-                },
-            ),
+            Item::Layer { s, l, top_mm } => self.draw_layer(buf, (s, l, top_mm), at),
             Item::Tape { s, top_mm } | Item::LayerTape { s, top_mm } => {
                 let thick = matches!(item, Item::Tape { .. });
                 let ch = if thick { "═" } else { "─" };
