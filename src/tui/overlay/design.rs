@@ -148,11 +148,11 @@ impl App {
             })
             .collect();
         let header = format!(
-            "{:<10} {:<9} {:>5} {:>5} {:>5} {:>4} {:>5} binds (margin left)",
-            "bobbin", "turns", "Nr/Np", "Vsw V", "loss", "rise", "spare"
+            "{:<10} {:<9} {:>5} {:>5} {:>6} {:>6} {:>5} binds (margin left)",
+            "bobbin", "turns", "Nr/Np", "Vsw V", "loss W", "rise C", "spare"
         );
         let title = format!(
-            "{}: {n_found} of {} bobbins meet it all (loss W, rise C, spare mm)",
+            "{}: {n_found} of {} bobbins meet it all (spare in mm)",
             if req.title.is_empty() {
                 "designs"
             } else {
@@ -167,7 +167,7 @@ impl App {
             items,
             0,
         )));
-        self.info("Enter opens the design as the build (u returns to this one); Esc: the form");
+        self.info("Enter opens it as the build (u undoes that); Esc: back to the form");
     }
 
     /// Design `n` becomes the build, as one undo step that also leaves the document's file
@@ -221,7 +221,7 @@ fn design_row(d: &Design) -> String {
         .and_then(|l| l.temperature_rise_c)
         .map_or("-".to_string(), |r| format!("{r:.0}"));
     format!(
-        "{:<10} {:<9} {:>5.2} {:>5.1} {:>5.2} {:>4} {:>5.2} {}",
+        "{:<10} {:<9} {:>5.2} {:>5.1} {:>6.2} {:>6} {:>5.2} {}",
         crate::report::textfmt::truncate(&d.bobbin, 10),
         crate::report::textfmt::truncate(&words::turns_text(d), 9),
         words::reset_ratio(d),
