@@ -15,53 +15,79 @@ const END: f64 = STEP * NODES as f64;
 /// Step of the central difference that gives each node's slopes.
 const SLOPE_STEP: f64 = 1e-4;
 
-/// Each node's terms and their slopes: `[a, da/dD, b, db/dD]`.
-fn table() -> &'static [[f64; 4]] {
-    static TABLE: OnceLock<Vec<[f64; 4]>> = OnceLock::new();
-    TABLE.get_or_init(|| {
-        (0..=NODES)
-            .map(|i| {
-                if i == 0 {
-                    // At D -> 0 the terms tend to (1, 1/2) with zero slope (they move as D^4).
-                    return [1.0, 0.0, 0.5, 0.0];
-                }
-                let x = i as f64 * STEP;
-                let (a, b) = ac::d_terms(x);
-                let (a_hi, b_hi) = ac::d_terms(x + SLOPE_STEP);
-                let (a_lo, b_lo) = ac::d_terms(x - SLOPE_STEP);
-                let k = 0.5 / SLOPE_STEP;
-                [a, (a_hi - a_lo) * k, b, (b_hi - b_lo) * k]
-            })
-            .collect()
-    })
+/// The nodes: each one's terms and their slopes, `[a, b, da/dD, db/dD]`, at `i x STEP`.
+/// A fixed-size array, so that the two nodes around a D are read without a bounds check.
+#[derive(Debug)]
+pub struct Table {
+    nodes: [[f64; 4]; NODES + 1],
 }
 
-/// [`ac::d_terms`] from the table: the same `(D G1(D), D G2(D))` to about 1e-7.
+impl Table {
+    /// The table, made on first use (once per process, from `ac::d_terms`; every thread
+    /// reads the same values).
+    pub fn get() -> &'static Table {
+        static TABLE: OnceLock<Box<Table>> = OnceLock::new();
+        TABLE.get_or_init(|| {
+            let mut nodes = [[0.0; 4]; NODES + 1];
+            for (i, node) in nodes.iter_mut().enumerate() {
+                *node = if i == 0 {
+                    // At D -> 0 the terms tend to (1, 1/2) with zero slope (they move as D^4).
+                    [1.0, 0.5, 0.0, 0.0]
+                } else {
+                    let x = i as f64 * STEP;
+                    let (a, b) = ac::d_terms(x);
+                    let (a_hi, b_hi) = ac::d_terms(x + SLOPE_STEP);
+                    let (a_lo, b_lo) = ac::d_terms(x - SLOPE_STEP);
+                    let k = 0.5 / SLOPE_STEP;
+                    [a, b, (a_hi - a_lo) * k, (b_hi - b_lo) * k]
+                };
+            }
+            Box::new(Table { nodes })
+        })
+    }
+
+    /// [`ac::d_terms`] from the table: the same `(D G1(D), D G2(D))` to about 1e-7.
+    #[inline]
+    pub fn d_terms(&self, d: f64) -> (f64, f64) {
+        if d >= ac::D_SMALL && d < END {
+            self.between_nodes(d)
+        } else if d >= END && d.is_finite() {
+            (d, 0.0)
+        } else {
+            // Resistive, or not a D at all (NaN, infinite).
+            (1.0, 0.5)
+        }
+    }
+
+    /// The cubic Hermite interpolation between the two nodes around `d`, for `d` from
+    /// `ac::D_SMALL` to below `END`.
+    #[inline]
+    fn between_nodes(&self, d: f64) -> (f64, f64) {
+        let u = d / STEP;
+        // u < NODES, so the node below is at most NODES - 1 and the one above exists.
+        let i = (u as u32).min(NODES as u32 - 1) as usize;
+        let t = u - i as f64;
+        let (lo, hi) = (&self.nodes[i], &self.nodes[i + 1]);
+        let t2 = t * t;
+        let s = 1.0 - t;
+        let s2 = s * s;
+        let (h00, h10, h01, h11) = (
+            (1.0 + 2.0 * t) * s2,
+            t * s2 * STEP,
+            t2 * (3.0 - 2.0 * t),
+            -t2 * s * STEP,
+        );
+        (
+            h00 * lo[0] + h10 * lo[2] + h01 * hi[0] + h11 * hi[2],
+            h00 * lo[1] + h10 * lo[3] + h01 * hi[1] + h11 * hi[3],
+        )
+    }
+}
+
+/// [`ac::d_terms`] from the table: the same `(D G1(D), D G2(D))` to about 1e-7. A loop over
+/// many D's takes [`Table::get`] once and calls [`Table::d_terms`].
 pub fn d_terms(d: f64) -> (f64, f64) {
-    if d < ac::D_SMALL || !d.is_finite() {
-        return (1.0, 0.5);
-    }
-    if d >= END {
-        return (d, 0.0);
-    }
-    let u = d / STEP;
-    // d < END, so the node below is at most NODES - 1 and the one above exists.
-    let i = (u as usize).min(NODES - 1);
-    let t = u - i as f64;
-    let (lo, hi) = (table()[i], table()[i + 1]);
-    let t2 = t * t;
-    let s = 1.0 - t;
-    let s2 = s * s;
-    let (h00, h10, h01, h11) = (
-        (1.0 + 2.0 * t) * s2,
-        t * s2 * STEP,
-        t2 * (3.0 - 2.0 * t),
-        -t2 * s * STEP,
-    );
-    (
-        h00 * lo[0] + h10 * lo[1] + h01 * hi[0] + h11 * hi[1],
-        h00 * lo[2] + h10 * lo[3] + h01 * hi[2] + h11 * hi[3],
-    )
+    Table::get().d_terms(d)
 }
 
 #[cfg(test)]

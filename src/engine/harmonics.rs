@@ -2,6 +2,7 @@
 //! of a winding summed over them (Hurley, Gath and Breslin 2000). Pure arithmetic.
 
 use std::f64::consts::PI;
+use std::sync::OnceLock;
 
 /// Harmonics summed one by one; the power above the last is taken at the last one's factor
 /// (see `waveform_factor`). At 100 kHz this reaches 10 MHz, where real switching edges of
@@ -124,49 +125,87 @@ pub struct Spectrum {
 /// The Fourier series of a piecewise-straight waveform: its DC part and the first `count`
 /// harmonics, in closed form per piece.
 pub fn spectrum(w: &Waveform, count: usize) -> Spectrum {
-    // c_n for every n at once: each piece end's phasor e^(-j 2 pi t) is raised to the n-th
-    // power by one complex product per harmonic instead of a sin_cos.
-    let ends: Vec<(f64, f64, f64, f64, f64)> = w
-        .pieces
-        .iter()
-        .filter(|p| p.t1 > p.t0)
-        .flat_map(|p| {
-            let s = (p.y1 - p.y0) / (p.t1 - p.t0);
-            // (t, y, slope, sign): the integral is [..] at t1 minus [..] at t0.
-            [(p.t1, p.y1, s, 1.0, 0.0), (p.t0, p.y0, s, -1.0, 0.0)]
-        })
-        .collect();
-    let step: Vec<(f64, f64)> = ends
-        .iter()
-        .map(|e| {
-            let (sn, c) = (2.0 * PI * e.0).sin_cos();
-            (c, -sn)
-        })
-        .collect();
-    let mut z: Vec<(f64, f64)> = vec![(1.0, 0.0); ends.len()];
-    let harmonic_rms_sq = (1..=count)
-        .map(|n| {
-            let inv_w = 1.0 / (2.0 * PI * n as f64);
-            let inv_w2 = inv_w * inv_w;
-            let (mut re, mut im) = (0.0, 0.0);
-            for (k, e) in ends.iter().enumerate() {
-                let (zr, zi) = z[k];
-                let (sr, si) = step[k];
-                let (c, ms) = (zr * sr - zi * si, zr * si + zi * sr);
-                z[k] = (c, ms);
-                // e^(-j w t) (s / w^2 + j y / w), with e^(-j w t) = c + j ms.
-                let (a, b) = (e.2 * inv_w2, e.1 * inv_w);
-                re += e.3 * (c * a - ms * b);
-                im += e.3 * (c * b + ms * a);
-            }
-            2.0 * (re * re + im * im)
-        })
-        .collect();
+    // c_n for every n at once, one piece end after the other: the end's phasor
+    // e^(-j 2 pi t) is raised to the n-th power by one complex product per harmonic instead
+    // of a sin_cos. `re` becomes the squared RMS in place; `im` stays on the stack.
+    let mut re = vec![0.0; count];
+    let mut im_heap = Vec::new();
+    let mut im_stack = [0.0; HARMONICS];
+    let im: &mut [f64] = if count <= HARMONICS {
+        &mut im_stack[..count]
+    } else {
+        im_heap.resize(count, 0.0);
+        &mut im_heap
+    };
+    for p in w.pieces.iter().filter(|p| p.t1 > p.t0) {
+        let s = (p.y1 - p.y0) / (p.t1 - p.t0);
+        // The integral is [..] at t1 minus [..] at t0.
+        add_end(&mut re, im, (p.t1, p.y1, s), 1.0);
+        add_end(&mut re, im, (p.t0, p.y0, s), -1.0);
+    }
+    for (r, i) in re.iter_mut().zip(im.iter()) {
+        *r = 2.0 * (*r * *r + i * i);
+    }
     Spectrum {
         dc: w.dc(),
-        harmonic_rms_sq,
+        harmonic_rms_sq: re,
         rms_sq: w.rms().powi(2),
     }
+}
+
+/// `1 / (2 pi n)` for n = 1 to [`HARMONICS`], worked out by the compiler.
+const INV_OMEGA: [f64; HARMONICS] = {
+    let mut t = [0.0; HARMONICS];
+    let mut k = 0;
+    while k < HARMONICS {
+        t[k] = 1.0 / (2.0 * PI * (k + 1) as f64);
+        k += 1;
+    }
+    t
+};
+
+/// `1 / (2 pi n)` for n = `k + 1`, from the table while it lasts.
+#[inline]
+fn inv_omega(k: usize) -> f64 {
+    match INV_OMEGA.get(k) {
+        Some(&v) => v,
+        None => 1.0 / (2.0 * PI * (k + 1) as f64),
+    }
+}
+
+/// One piece end's share of every harmonic's coefficient: `sign e^(-j w t) (s / w^2 + j y / w)`
+/// with `w = 2 pi n`, added to `re[n - 1]` and `im[n - 1]`; `(t, y, s)` are the end's time,
+/// value and the piece's slope.
+fn add_end(re: &mut [f64], im: &mut [f64], (t, y, s): (f64, f64, f64), sign: f64) {
+    if t == 0.0 {
+        // The phasor stays 1 + j0 at every power: the same sums without the products.
+        for (k, (re, im)) in re.iter_mut().zip(im.iter_mut()).enumerate() {
+            let inv_w = inv_omega(k);
+            let (a, b) = (s * (inv_w * inv_w), y * inv_w);
+            *re += sign * a;
+            *im += sign * b;
+        }
+        return;
+    }
+    let (sn, c) = (2.0 * PI * t).sin_cos();
+    let (sr, si) = (c, -sn);
+    let (mut zr, mut zi) = (1.0, 0.0);
+    for (k, (re, im)) in re.iter_mut().zip(im.iter_mut()).enumerate() {
+        let inv_w = inv_omega(k);
+        let inv_w2 = inv_w * inv_w;
+        (zr, zi) = (zr * sr - zi * si, zr * si + zi * sr);
+        // e^(-j w t) = zr + j zi.
+        let (a, b) = (s * inv_w2, y * inv_w);
+        *re += sign * (zr * a - zi * b);
+        *im += sign * (zr * b + zi * a);
+    }
+}
+
+/// `sqrt(n)` for n = 1 to [`HARMONICS`] (index n - 1), worked out once per process: a
+/// harmonic's D is the fundamental's times it.
+fn harmonic_roots() -> &'static [f64; HARMONICS] {
+    static ROOTS: OnceLock<[f64; HARMONICS]> = OnceLock::new();
+    ROOTS.get_or_init(|| std::array::from_fn(|k| ((k + 1) as f64).sqrt()))
 }
 
 /// The two Dowell terms of a layer of D `d` (at the fundamental) summed over a spectrum:
@@ -174,16 +213,23 @@ pub fn spectrum(w: &Waveform, count: usize) -> Spectrum {
 /// above the last harmonic taken at the last one's terms. With [`crate::engine::ac::layer_factor_from`]
 /// this gives a layer's share of `waveform_factor` without a loop over harmonics per layer.
 pub fn summed_terms(s: &Spectrum, d: f64) -> (f64, f64) {
+    let table = crate::engine::dowell_table::Table::get();
+    let roots = harmonic_roots();
+    let floor = 1e-12 * s.rms_sq;
     let (mut a, mut b) = (0.0, 0.0);
     let mut summed = s.dc * s.dc;
     let mut last = (1.0, 0.5);
     for (k, &p) in s.harmonic_rms_sq.iter().enumerate() {
-        if p <= 1e-12 * s.rms_sq {
+        if p <= floor {
             continue;
         }
         // The terms from the table (to about 1e-7): an exp and a sin_cos per harmonic were
         // most of a cold evaluation's time.
-        last = crate::engine::dowell_table::d_terms(d * ((k + 1) as f64).sqrt());
+        let root = match roots.get(k) {
+            Some(&r) => r,
+            None => ((k + 1) as f64).sqrt(),
+        };
+        last = table.d_terms(d * root);
         a += p * last.0;
         b += p * last.1;
         summed += p;
