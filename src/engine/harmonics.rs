@@ -208,28 +208,55 @@ fn harmonic_roots() -> &'static [f64; HARMONICS] {
     ROOTS.get_or_init(|| std::array::from_fn(|k| ((k + 1) as f64).sqrt()))
 }
 
+/// Dowell's two terms `(D_n G1(D_n), D_n G2(D_n))` of each harmonic n = 1 to [`HARMONICS`]
+/// (index n - 1) of a layer whose D at the fundamental is `d`: `D_n = d sqrt(n)`.
+pub type HarmonicTerms = [(f64, f64); HARMONICS];
+
+/// The [`HarmonicTerms`] of a layer of D `d`, from the table (to about 1e-7): an exp and a
+/// sin_cos per harmonic were most of a cold evaluation's time. Spectra summed at the same D
+/// share them (`Memo::summed_terms`).
+pub fn fill_harmonic_terms(d: f64, out: &mut HarmonicTerms) {
+    let table = crate::engine::dowell_table::Table::get();
+    for (t, &root) in out.iter_mut().zip(harmonic_roots()) {
+        *t = table.d_terms(d * root);
+    }
+}
+
 /// The two Dowell terms of a layer of D `d` (at the fundamental) summed over a spectrum:
 /// `sum_n I_n^2 (D_n G1(D_n), D_n G2(D_n))` with `D_n = d sqrt(n)`, and what Parseval leaves
 /// above the last harmonic taken at the last one's terms. With [`crate::engine::ac::layer_factor_from`]
 /// this gives a layer's share of `waveform_factor` without a loop over harmonics per layer.
 pub fn summed_terms(s: &Spectrum, d: f64) -> (f64, f64) {
-    let table = crate::engine::dowell_table::Table::get();
-    let roots = harmonic_roots();
+    let mut terms = [(0.0, 0.0); HARMONICS];
+    fill_harmonic_terms(d, &mut terms);
+    summed_terms_with(s, d, &terms)
+}
+
+/// [`summed_terms`] with the harmonics' terms at `d` already found (`fill_harmonic_terms`);
+/// a spectrum longer than [`HARMONICS`] has the terms of the rest worked out here.
+pub fn summed_terms_with(s: &Spectrum, d: f64, terms: &HarmonicTerms) -> (f64, f64) {
     let floor = 1e-12 * s.rms_sq;
     let (mut a, mut b) = (0.0, 0.0);
     let mut summed = s.dc * s.dc;
     let mut last = (1.0, 0.5);
-    for (k, &p) in s.harmonic_rms_sq.iter().enumerate() {
+    let (head, tail) = s
+        .harmonic_rms_sq
+        .split_at(s.harmonic_rms_sq.len().min(HARMONICS));
+    for (&p, &t) in head.iter().zip(terms) {
         if p <= floor {
             continue;
         }
-        // The terms from the table (to about 1e-7): an exp and a sin_cos per harmonic were
-        // most of a cold evaluation's time.
-        let root = match roots.get(k) {
-            Some(&r) => r,
-            None => ((k + 1) as f64).sqrt(),
-        };
-        last = table.d_terms(d * root);
+        last = t;
+        a += p * t.0;
+        b += p * t.1;
+        summed += p;
+    }
+    for (k, &p) in tail.iter().enumerate() {
+        if p <= floor {
+            continue;
+        }
+        let n = HARMONICS + k + 1;
+        last = crate::engine::dowell_table::d_terms(d * (n as f64).sqrt());
         a += p * last.0;
         b += p * last.1;
         summed += p;

@@ -3,7 +3,7 @@
 //! them, as the search's candidates do. It changes no figure: `evaluate` starts an empty one.
 
 use super::ac;
-use super::harmonics::{self, HARMONICS, Spectrum, Waveform};
+use super::harmonics::{self, HARMONICS, HarmonicTerms, Spectrum, Waveform};
 use std::collections::HashMap;
 use std::hash::{BuildHasherDefault, Hasher};
 
@@ -26,7 +26,15 @@ pub struct Memo {
     /// The last core-loss density asked for, by the bits of its inputs: the candidates of a
     /// search share their operating point, so one entry serves them all.
     core_loss: Option<([u64; 7], f64)>,
+    /// The harmonics' Dowell terms at the last few D's (by their bits), for the spectra
+    /// summed at one D (a primary and its bifilar reset, say): the terms are found once.
+    harmonic_terms: Vec<(u64, Box<HarmonicTerms>)>,
+    /// The slot of `harmonic_terms` the next new D takes once it is full.
+    next_terms_slot: usize,
 }
+
+/// D's whose harmonics' terms are kept: a round of an evaluation sums at a handful.
+const HARMONIC_TERMS_KEPT: usize = 8;
 
 impl Memo {
     /// An empty memo.
@@ -100,7 +108,25 @@ impl Memo {
         if let Some(t) = self.terms.get(&key) {
             return *t;
         }
-        let t = harmonics::summed_terms(&self.spectra[spectrum].1, d);
+        let bits = d.to_bits();
+        let slot = match self.harmonic_terms.iter().position(|(b, _)| *b == bits) {
+            Some(i) => i,
+            None => {
+                let mut terms = Box::new([(0.0, 0.0); HARMONICS]);
+                harmonics::fill_harmonic_terms(d, &mut terms);
+                if self.harmonic_terms.len() < HARMONIC_TERMS_KEPT {
+                    self.harmonic_terms.push((bits, terms));
+                    self.harmonic_terms.len() - 1
+                } else {
+                    let i = self.next_terms_slot;
+                    self.next_terms_slot = (i + 1) % HARMONIC_TERMS_KEPT;
+                    self.harmonic_terms[i] = (bits, terms);
+                    i
+                }
+            }
+        };
+        let terms = &self.harmonic_terms[slot].1;
+        let t = harmonics::summed_terms_with(&self.spectra[spectrum].1, d, terms);
         self.terms.insert(key, t);
         t
     }
@@ -148,6 +174,22 @@ mod tests {
             assert_eq!(memo.summed_terms(s, d), harmonics::summed_terms(&fresh, d));
         }
         assert_eq!(memo.spectrum(&wave), s);
+    }
+
+    /// Two spectra summed at the same D share the harmonics' terms, and more D's than the
+    /// memo keeps terms for still give what a fresh computation gives.
+    #[test]
+    fn shared_harmonic_terms_equal_fresh_ones() {
+        let waves = [Waveform::pulse(2.0, 0.4), Waveform::ramp(1.0, 1.5, 0.0, 0.4)];
+        let mut memo = Memo::new();
+        let ids = waves.each_ref().map(|w| memo.spectrum(w));
+        for i in 0..3 * HARMONIC_TERMS_KEPT {
+            let d = 0.2 + 0.37 * i as f64;
+            for (w, &s) in waves.iter().zip(&ids) {
+                let fresh = harmonics::summed_terms(&harmonics::spectrum(w, HARMONICS), d);
+                assert_eq!(memo.summed_terms(s, d), fresh, "D {d}");
+            }
+        }
     }
 
     /// The memoised sinusoidal layer factor is the plain one, for resistive, thin and thick
