@@ -164,40 +164,47 @@ const INV_OMEGA: [f64; HARMONICS] = {
     t
 };
 
-/// `1 / (2 pi n)` for n = `k + 1`, from the table while it lasts.
-#[inline]
-fn inv_omega(k: usize) -> f64 {
-    match INV_OMEGA.get(k) {
-        Some(&v) => v,
-        None => 1.0 / (2.0 * PI * (k + 1) as f64),
-    }
-}
-
 /// One piece end's share of every harmonic's coefficient: `sign e^(-j w t) (s / w^2 + j y / w)`
 /// with `w = 2 pi n`, added to `re[n - 1]` and `im[n - 1]`; `(t, y, s)` are the end's time,
-/// value and the piece's slope.
+/// value and the piece's slope. [`HARMONICS`] at a time: the phasor's powers first (a chain
+/// of products), then the shares, element by element, which the compiler can vectorise.
 fn add_end(re: &mut [f64], im: &mut [f64], (t, y, s): (f64, f64, f64), sign: f64) {
-    if t == 0.0 {
-        // The phasor stays 1 + j0 at every power: the same sums without the products.
-        for (k, (re, im)) in re.iter_mut().zip(im.iter_mut()).enumerate() {
-            let inv_w = inv_omega(k);
-            let (a, b) = (s * (inv_w * inv_w), y * inv_w);
-            *re += sign * a;
-            *im += sign * b;
-        }
-        return;
-    }
     let (sn, c) = (2.0 * PI * t).sin_cos();
     let (sr, si) = (c, -sn);
     let (mut zr, mut zi) = (1.0, 0.0);
-    for (k, (re, im)) in re.iter_mut().zip(im.iter_mut()).enumerate() {
-        let inv_w = inv_omega(k);
-        let inv_w2 = inv_w * inv_w;
-        (zr, zi) = (zr * sr - zi * si, zr * si + zi * sr);
-        // e^(-j w t) = zr + j zi.
-        let (a, b) = (s * inv_w2, y * inv_w);
-        *re += sign * (zr * a - zi * b);
-        *im += sign * (zr * b + zi * a);
+    let (mut pr, mut pi) = ([0.0; HARMONICS], [0.0; HARMONICS]);
+    let chunks = re.chunks_mut(HARMONICS).zip(im.chunks_mut(HARMONICS));
+    for (chunk, (re, im)) in chunks.enumerate() {
+        let len = re.len();
+        let inv_buf: [f64; HARMONICS];
+        let inv = if chunk == 0 {
+            &INV_OMEGA[..len]
+        } else {
+            inv_buf =
+                std::array::from_fn(|k| 1.0 / (2.0 * PI * (chunk * HARMONICS + k + 1) as f64));
+            &inv_buf[..len]
+        };
+        if t == 0.0 {
+            // The phasor stays 1 + j0 at every power: the same sums without the products.
+            for ((re, im), &inv_w) in re.iter_mut().zip(im.iter_mut()).zip(inv) {
+                *re += sign * (s * (inv_w * inv_w));
+                *im += sign * (y * inv_w);
+            }
+            continue;
+        }
+        for (r, i) in pr[..len].iter_mut().zip(&mut pi[..len]) {
+            (zr, zi) = (zr * sr - zi * si, zr * si + zi * sr);
+            (*r, *i) = (zr, zi);
+        }
+        let phasors = pr[..len].iter().zip(&pi[..len]);
+        for (((re, im), &inv_w), (&zr, &zi)) in
+            re.iter_mut().zip(im.iter_mut()).zip(inv).zip(phasors)
+        {
+            // e^(-j w t) = zr + j zi.
+            let (a, b) = (s * (inv_w * inv_w), y * inv_w);
+            *re += sign * (zr * a - zi * b);
+            *im += sign * (zr * b + zi * a);
+        }
     }
 }
 

@@ -180,7 +180,10 @@ mod tests {
     /// memo keeps terms for still give what a fresh computation gives.
     #[test]
     fn shared_harmonic_terms_equal_fresh_ones() {
-        let waves = [Waveform::pulse(2.0, 0.4), Waveform::ramp(1.0, 1.5, 0.0, 0.4)];
+        let waves = [
+            Waveform::pulse(2.0, 0.4),
+            Waveform::ramp(1.0, 1.5, 0.0, 0.4),
+        ];
         let mut memo = Memo::new();
         let ids = waves.each_ref().map(|w| memo.spectrum(w));
         for i in 0..3 * HARMONIC_TERMS_KEPT {
