@@ -59,6 +59,23 @@ impl Table {
         }
     }
 
+    /// [`Table::d_terms`] of `d x root` for each root, into `out`. The roots are in rising
+    /// order, so when the first and the last product lie on the table every one does and the
+    /// loop needs no test per D.
+    pub fn fill_terms(&self, d: f64, roots: &[f64], out: &mut [(f64, f64)]) {
+        let on_table = |x: f64| (ac::D_SMALL..END).contains(&x);
+        let ends = roots.first().zip(roots.last());
+        if ends.is_some_and(|(&lo, &hi)| on_table(d * lo) && on_table(d * hi)) {
+            for (t, &root) in out.iter_mut().zip(roots) {
+                *t = self.between_nodes(d * root);
+            }
+        } else {
+            for (t, &root) in out.iter_mut().zip(roots) {
+                *t = self.d_terms(d * root);
+            }
+        }
+    }
+
     /// The cubic Hermite interpolation between the two nodes around `d`, for `d` from
     /// `ac::D_SMALL` to below `END`.
     #[inline]

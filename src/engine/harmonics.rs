@@ -223,10 +223,7 @@ pub type HarmonicTerms = [(f64, f64); HARMONICS];
 /// sin_cos per harmonic were most of a cold evaluation's time. Spectra summed at the same D
 /// share them (`Memo::summed_terms`).
 pub fn fill_harmonic_terms(d: f64, out: &mut HarmonicTerms) {
-    let table = crate::engine::dowell_table::Table::get();
-    for (t, &root) in out.iter_mut().zip(harmonic_roots()) {
-        *t = table.d_terms(d * root);
-    }
+    crate::engine::dowell_table::Table::get().fill_terms(d, harmonic_roots(), out);
 }
 
 /// The two Dowell terms of a layer of D `d` (at the fundamental) summed over a spectrum:
