@@ -125,6 +125,17 @@ pub struct Spectrum {
 /// The Fourier series of a piecewise-straight waveform: its DC part and the first `count`
 /// harmonics, in closed form per piece.
 pub fn spectrum(w: &Waveform, count: usize) -> Spectrum {
+    spectrum_with(w, count, |_| None)
+}
+
+/// [`spectrum`], with the phasor powers of a piece end at `t` taken from `phasors(t)` where
+/// it has them (`Memo::spectrum` keeps those its waveforms share: a primary, a secondary and
+/// a reset that end or start at the same duty). The same figures either way.
+pub fn spectrum_with<'a>(
+    w: &Waveform,
+    count: usize,
+    phasors: impl Fn(f64) -> Option<&'a Phasors>,
+) -> Spectrum {
     // c_n for every n at once, one piece end after the other: the end's phasor
     // e^(-j 2 pi t) is raised to the n-th power by one complex product per harmonic instead
     // of a sin_cos. `re` becomes the squared RMS in place; `im` stays on the stack.
@@ -140,8 +151,8 @@ pub fn spectrum(w: &Waveform, count: usize) -> Spectrum {
     for p in w.pieces.iter().filter(|p| p.t1 > p.t0) {
         let s = (p.y1 - p.y0) / (p.t1 - p.t0);
         // The integral is [..] at t1 minus [..] at t0.
-        add_end(&mut re, im, (p.t1, p.y1, s), 1.0);
-        add_end(&mut re, im, (p.t0, p.y0, s), -1.0);
+        add_end(&mut re, im, (p.t1, p.y1, s), 1.0, phasors(p.t1));
+        add_end(&mut re, im, (p.t0, p.y0, s), -1.0, phasors(p.t0));
     }
     for (r, i) in re.iter_mut().zip(im.iter()) {
         *r = 2.0 * (*r * *r + i * i);
@@ -164,15 +175,61 @@ const INV_OMEGA: [f64; HARMONICS] = {
     t
 };
 
+/// The powers `e^(-j 2 pi n t)` of a piece end's phasor for n = 1 to [`HARMONICS`] (index
+/// n - 1), each the one before times `e^(-j 2 pi t)`: a chain of products, the slow part of
+/// a spectrum, shared by the waveforms with an end at the same `t`.
+#[derive(Debug, Clone, PartialEq)]
+pub struct Phasors {
+    re: [f64; HARMONICS],
+    im: [f64; HARMONICS],
+}
+
+impl Phasors {
+    /// The powers of `e^(-j 2 pi t)`.
+    pub fn at(t: f64) -> Self {
+        let mut p = Phasors {
+            re: [0.0; HARMONICS],
+            im: [0.0; HARMONICS],
+        };
+        powers(phasor_step(t), &mut (1.0, 0.0), &mut p.re, &mut p.im);
+        p
+    }
+}
+
+/// `e^(-j 2 pi t)`, as (re, im).
+fn phasor_step(t: f64) -> (f64, f64) {
+    let (sn, c) = (2.0 * PI * t).sin_cos();
+    (c, -sn)
+}
+
+/// The next powers of the phasor `step` after `z` into `re` and `im`; `z` ends at the last.
+fn powers((sr, si): (f64, f64), z: &mut (f64, f64), re: &mut [f64], im: &mut [f64]) {
+    let (mut zr, mut zi) = *z;
+    for (r, i) in re.iter_mut().zip(im.iter_mut()) {
+        (zr, zi) = (zr * sr - zi * si, zr * si + zi * sr);
+        (*r, *i) = (zr, zi);
+    }
+    *z = (zr, zi);
+}
+
 /// One piece end's share of every harmonic's coefficient: `sign e^(-j w t) (s / w^2 + j y / w)`
 /// with `w = 2 pi n`, added to `re[n - 1]` and `im[n - 1]`; `(t, y, s)` are the end's time,
-/// value and the piece's slope. [`HARMONICS`] at a time: the phasor's powers first (a chain
-/// of products), then the shares, element by element, which the compiler can vectorise.
-fn add_end(re: &mut [f64], im: &mut [f64], (t, y, s): (f64, f64, f64), sign: f64) {
-    let (sn, c) = (2.0 * PI * t).sin_cos();
-    let (sr, si) = (c, -sn);
-    let (mut zr, mut zi) = (1.0, 0.0);
-    let (mut pr, mut pi) = ([0.0; HARMONICS], [0.0; HARMONICS]);
+/// value and the piece's slope, `given` its phasor powers when already found. [`HARMONICS`]
+/// at a time: the phasor's powers first, then the shares, element by element, which the
+/// compiler can vectorise.
+fn add_end(
+    re: &mut [f64],
+    im: &mut [f64],
+    (t, y, s): (f64, f64, f64),
+    sign: f64,
+    given: Option<&Phasors>,
+) {
+    let step = phasor_step(t);
+    let mut z = (1.0, 0.0);
+    let mut found = Phasors {
+        re: [0.0; HARMONICS],
+        im: [0.0; HARMONICS],
+    };
     let chunks = re.chunks_mut(HARMONICS).zip(im.chunks_mut(HARMONICS));
     for (chunk, (re, im)) in chunks.enumerate() {
         let len = re.len();
@@ -192,11 +249,17 @@ fn add_end(re: &mut [f64], im: &mut [f64], (t, y, s): (f64, f64, f64), sign: f64
             }
             continue;
         }
-        for (r, i) in pr[..len].iter_mut().zip(&mut pi[..len]) {
-            (zr, zi) = (zr * sr - zi * si, zr * si + zi * sr);
-            (*r, *i) = (zr, zi);
-        }
-        let phasors = pr[..len].iter().zip(&pi[..len]);
+        let p = match given.filter(|_| chunk == 0) {
+            Some(p) => {
+                z = (p.re[HARMONICS - 1], p.im[HARMONICS - 1]);
+                p
+            }
+            None => {
+                powers(step, &mut z, &mut found.re[..len], &mut found.im[..len]);
+                &found
+            }
+        };
+        let phasors = p.re[..len].iter().zip(&p.im[..len]);
         for (((re, im), &inv_w), (&zr, &zi)) in
             re.iter_mut().zip(im.iter_mut()).zip(inv).zip(phasors)
         {

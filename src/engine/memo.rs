@@ -3,7 +3,7 @@
 //! them, as the search's candidates do. It changes no figure: `evaluate` starts an empty one.
 
 use super::ac;
-use super::harmonics::{self, HARMONICS, HarmonicTerms, Spectrum, Waveform};
+use super::harmonics::{self, HARMONICS, HarmonicTerms, Phasors, Spectrum, Waveform};
 use std::collections::HashMap;
 use std::hash::{BuildHasherDefault, Hasher};
 
@@ -31,7 +31,14 @@ pub struct Memo {
     harmonic_terms: Vec<(u64, Box<HarmonicTerms>)>,
     /// The slot of `harmonic_terms` the next new D takes once it is full.
     next_terms_slot: usize,
+    /// The phasor powers of the piece ends of the spectra found, by the bits of the end's
+    /// time: a primary, a secondary and a reset share the end at the duty.
+    phasors: Vec<(u64, Box<Phasors>)>,
 }
+
+/// Piece-end times whose phasor powers are kept: the waveforms of one operating point end
+/// at a few.
+const PHASORS_KEPT: usize = 64;
 
 /// D's whose harmonics' terms are kept: a round of an evaluation sums at a handful.
 const HARMONIC_TERMS_KEPT: usize = 8;
@@ -68,8 +75,24 @@ impl Memo {
         if let Some(i) = self.spectra.iter().position(|(w, _)| w == wave) {
             return i;
         }
-        self.spectra
-            .push((wave.clone(), harmonics::spectrum(wave, HARMONICS)));
+        if self.phasors.len() >= PHASORS_KEPT {
+            self.phasors.clear();
+        }
+        for p in wave.pieces.iter().filter(|p| p.t1 > p.t0) {
+            for t in [p.t1, p.t0] {
+                if t != 0.0 && !self.phasors.iter().any(|(b, _)| *b == t.to_bits()) {
+                    self.phasors.push((t.to_bits(), Box::new(Phasors::at(t))));
+                }
+            }
+        }
+        let known = &self.phasors;
+        let spectrum = harmonics::spectrum_with(wave, HARMONICS, |t| {
+            known
+                .iter()
+                .find(|(b, _)| *b == t.to_bits())
+                .map(|(_, p)| &**p)
+        });
+        self.spectra.push((wave.clone(), spectrum));
         self.spectra.len() - 1
     }
 
@@ -174,6 +197,22 @@ mod tests {
             assert_eq!(memo.summed_terms(s, d), harmonics::summed_terms(&fresh, d));
         }
         assert_eq!(memo.spectrum(&wave), s);
+    }
+
+    /// Waveforms that share a piece end (a primary, a secondary and a reset at one duty)
+    /// get the spectra a fresh computation gives, bit for bit.
+    #[test]
+    fn spectra_sharing_an_end_equal_fresh_ones() {
+        let waves = [
+            Waveform::ramp(1.0, 1.4, 0.0, 0.41),
+            Waveform::pulse(3.0, 0.41),
+            Waveform::ramp(0.3, 0.0, 0.41, 0.77),
+        ];
+        let mut memo = Memo::new();
+        for w in &waves {
+            let i = memo.spectrum(w);
+            assert_eq!(memo.spectrum_of(i), &harmonics::spectrum(w, HARMONICS));
+        }
     }
 
     /// Two spectra summed at the same D share the harmonics' terms, and more D's than the
