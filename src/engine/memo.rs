@@ -28,12 +28,12 @@ pub struct Memo {
     core_loss: Option<([u64; 7], f64)>,
     /// The harmonics' Dowell terms at the last few D's (by their bits), for the spectra
     /// summed at one D (a primary and its bifilar reset, say): the terms are found once.
-    harmonic_terms: Vec<(u64, Box<HarmonicTerms>)>,
+    harmonic_terms: Vec<(u64, HarmonicTerms)>,
     /// The slot of `harmonic_terms` the next new D takes once it is full.
     next_terms_slot: usize,
     /// The phasor powers of the piece ends of the spectra found, by the bits of the end's
     /// time: a primary, a secondary and a reset share the end at the duty.
-    phasors: Vec<(u64, Box<Phasors>)>,
+    phasors: Vec<(u64, Phasors)>,
 }
 
 /// Piece-end times whose phasor powers are kept: the waveforms of one operating point end
@@ -81,7 +81,11 @@ impl Memo {
         for p in wave.pieces.iter().filter(|p| p.t1 > p.t0) {
             for t in [p.t1, p.t0] {
                 if t != 0.0 && !self.phasors.iter().any(|(b, _)| *b == t.to_bits()) {
-                    self.phasors.push((t.to_bits(), Box::new(Phasors::at(t))));
+                    if self.phasors.capacity() == 0 {
+                        // Room for the ends of a primary, a secondary and a reset at once.
+                        self.phasors.reserve(4);
+                    }
+                    self.phasors.push((t.to_bits(), Phasors::at(t)));
                 }
             }
         }
@@ -90,7 +94,7 @@ impl Memo {
             known
                 .iter()
                 .find(|(b, _)| *b == t.to_bits())
-                .map(|(_, p)| &**p)
+                .map(|(_, p)| p)
         });
         self.spectra.push((wave.clone(), spectrum));
         self.spectra.len() - 1
@@ -104,6 +108,9 @@ impl Memo {
     /// [`ac::layer_factor_fast`], the terms of each D found once.
     pub fn layer_factor(&mut self, d: f64, f_a: f64, f_b: f64) -> f64 {
         ac::layer_factor_by(d, f_a, f_b, |d| {
+            if self.sine_terms.capacity() == 0 {
+                self.sine_terms.reserve(16);
+            }
             *self
                 .sine_terms
                 .entry(d.to_bits())
@@ -135,21 +142,29 @@ impl Memo {
         let slot = match self.harmonic_terms.iter().position(|(b, _)| *b == bits) {
             Some(i) => i,
             None => {
-                let mut terms = Box::new([(0.0, 0.0); HARMONICS]);
-                harmonics::fill_harmonic_terms(d, &mut terms);
-                if self.harmonic_terms.len() < HARMONIC_TERMS_KEPT {
-                    self.harmonic_terms.push((bits, terms));
+                let i = if self.harmonic_terms.len() < HARMONIC_TERMS_KEPT {
+                    if self.harmonic_terms.capacity() == 0 {
+                        self.harmonic_terms.reserve_exact(HARMONIC_TERMS_KEPT);
+                    }
+                    self.harmonic_terms.push((bits, [(0.0, 0.0); HARMONICS]));
                     self.harmonic_terms.len() - 1
                 } else {
                     let i = self.next_terms_slot;
                     self.next_terms_slot = (i + 1) % HARMONIC_TERMS_KEPT;
-                    self.harmonic_terms[i] = (bits, terms);
                     i
-                }
+                };
+                let (b, terms) = &mut self.harmonic_terms[i];
+                *b = bits;
+                harmonics::fill_harmonic_terms(d, terms);
+                i
             }
         };
         let terms = &self.harmonic_terms[slot].1;
         let t = harmonics::summed_terms_with(&self.spectra[spectrum].1, d, terms);
+        // One allocation for the handful an evaluation adds, rather than growing 3, 7, 14.
+        if self.terms.capacity() == 0 {
+            self.terms.reserve(16);
+        }
         self.terms.insert(key, t);
         t
     }
