@@ -55,7 +55,7 @@ impl Table {
     /// [`ac::d_terms`] from the table: the same `(D G1(D), D G2(D))` to about 1e-7.
     #[inline]
     pub fn d_terms(&self, d: f64) -> (f64, f64) {
-        if d >= ac::D_SMALL && d < END {
+        if (ac::D_SMALL..END).contains(&d) {
             self.between_nodes(d)
         } else if d >= END && d.is_finite() {
             (d, 0.0)
