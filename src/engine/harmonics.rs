@@ -2,6 +2,7 @@
 //! of a winding summed over them (Hurley, Gath and Breslin 2000). Pure arithmetic.
 
 use std::f64::consts::PI;
+use std::sync::OnceLock;
 
 /// Harmonics summed one by one; the power above the last is taken at the last one's factor
 /// (see `waveform_factor`). At 100 kHz this reaches 10 MHz, where real switching edges of
@@ -124,49 +125,168 @@ pub struct Spectrum {
 /// The Fourier series of a piecewise-straight waveform: its DC part and the first `count`
 /// harmonics, in closed form per piece.
 pub fn spectrum(w: &Waveform, count: usize) -> Spectrum {
-    // c_n for every n at once: each piece end's phasor e^(-j 2 pi t) is raised to the n-th
-    // power by one complex product per harmonic instead of a sin_cos.
-    let ends: Vec<(f64, f64, f64, f64, f64)> = w
-        .pieces
-        .iter()
-        .filter(|p| p.t1 > p.t0)
-        .flat_map(|p| {
-            let s = (p.y1 - p.y0) / (p.t1 - p.t0);
-            // (t, y, slope, sign): the integral is [..] at t1 minus [..] at t0.
-            [(p.t1, p.y1, s, 1.0, 0.0), (p.t0, p.y0, s, -1.0, 0.0)]
-        })
-        .collect();
-    let step: Vec<(f64, f64)> = ends
-        .iter()
-        .map(|e| {
-            let (sn, c) = (2.0 * PI * e.0).sin_cos();
-            (c, -sn)
-        })
-        .collect();
-    let mut z: Vec<(f64, f64)> = vec![(1.0, 0.0); ends.len()];
-    let harmonic_rms_sq = (1..=count)
-        .map(|n| {
-            let inv_w = 1.0 / (2.0 * PI * n as f64);
-            let inv_w2 = inv_w * inv_w;
-            let (mut re, mut im) = (0.0, 0.0);
-            for (k, e) in ends.iter().enumerate() {
-                let (zr, zi) = z[k];
-                let (sr, si) = step[k];
-                let (c, ms) = (zr * sr - zi * si, zr * si + zi * sr);
-                z[k] = (c, ms);
-                // e^(-j w t) (s / w^2 + j y / w), with e^(-j w t) = c + j ms.
-                let (a, b) = (e.2 * inv_w2, e.1 * inv_w);
-                re += e.3 * (c * a - ms * b);
-                im += e.3 * (c * b + ms * a);
-            }
-            2.0 * (re * re + im * im)
-        })
-        .collect();
+    spectrum_with(w, count, |_| None)
+}
+
+/// [`spectrum`], with the phasor powers of a piece end at `t` taken from `phasors(t)` where
+/// it has them (`Memo::spectrum` keeps those its waveforms share: a primary, a secondary and
+/// a reset that end or start at the same duty). The same figures either way.
+pub fn spectrum_with<'a>(
+    w: &Waveform,
+    count: usize,
+    phasors: impl Fn(f64) -> Option<&'a Phasors>,
+) -> Spectrum {
+    // c_n for every n at once, one piece end after the other: the end's phasor
+    // e^(-j 2 pi t) is raised to the n-th power by one complex product per harmonic instead
+    // of a sin_cos. `re` becomes the squared RMS in place; `im` stays on the stack.
+    let mut re = vec![0.0; count];
+    let mut im_heap = Vec::new();
+    let mut im_stack = [0.0; HARMONICS];
+    let im: &mut [f64] = if count <= HARMONICS {
+        &mut im_stack[..count]
+    } else {
+        im_heap.resize(count, 0.0);
+        &mut im_heap
+    };
+    for p in w.pieces.iter().filter(|p| p.t1 > p.t0) {
+        let s = (p.y1 - p.y0) / (p.t1 - p.t0);
+        // The integral is [..] at t1 minus [..] at t0.
+        add_end(&mut re, im, (p.t1, p.y1, s), 1.0, phasors(p.t1));
+        add_end(&mut re, im, (p.t0, p.y0, s), -1.0, phasors(p.t0));
+    }
+    for (r, i) in re.iter_mut().zip(im.iter()) {
+        *r = 2.0 * (*r * *r + i * i);
+    }
     Spectrum {
         dc: w.dc(),
-        harmonic_rms_sq,
+        harmonic_rms_sq: re,
         rms_sq: w.rms().powi(2),
     }
+}
+
+/// `1 / (2 pi n)` for n = 1 to [`HARMONICS`], worked out by the compiler.
+const INV_OMEGA: [f64; HARMONICS] = {
+    let mut t = [0.0; HARMONICS];
+    let mut k = 0;
+    while k < HARMONICS {
+        t[k] = 1.0 / (2.0 * PI * (k + 1) as f64);
+        k += 1;
+    }
+    t
+};
+
+/// The powers `e^(-j 2 pi n t)` of a piece end's phasor for n = 1 to [`HARMONICS`] (index
+/// n - 1), each the one before times `e^(-j 2 pi t)`: a chain of products, the slow part of
+/// a spectrum, shared by the waveforms with an end at the same `t`.
+#[derive(Debug, Clone, PartialEq)]
+pub struct Phasors {
+    re: [f64; HARMONICS],
+    im: [f64; HARMONICS],
+}
+
+impl Phasors {
+    /// The powers of `e^(-j 2 pi t)`.
+    pub fn at(t: f64) -> Self {
+        let mut p = Phasors {
+            re: [0.0; HARMONICS],
+            im: [0.0; HARMONICS],
+        };
+        powers(phasor_step(t), &mut (1.0, 0.0), &mut p.re, &mut p.im);
+        p
+    }
+}
+
+/// `e^(-j 2 pi t)`, as (re, im).
+fn phasor_step(t: f64) -> (f64, f64) {
+    let (sn, c) = (2.0 * PI * t).sin_cos();
+    (c, -sn)
+}
+
+/// The next powers of the phasor `step` after `z` into `re` and `im`; `z` ends at the last.
+fn powers((sr, si): (f64, f64), z: &mut (f64, f64), re: &mut [f64], im: &mut [f64]) {
+    let (mut zr, mut zi) = *z;
+    for (r, i) in re.iter_mut().zip(im.iter_mut()) {
+        (zr, zi) = (zr * sr - zi * si, zr * si + zi * sr);
+        (*r, *i) = (zr, zi);
+    }
+    *z = (zr, zi);
+}
+
+/// One piece end's share of every harmonic's coefficient: `sign e^(-j w t) (s / w^2 + j y / w)`
+/// with `w = 2 pi n`, added to `re[n - 1]` and `im[n - 1]`; `(t, y, s)` are the end's time,
+/// value and the piece's slope, `given` its phasor powers when already found. [`HARMONICS`]
+/// at a time: the phasor's powers first, then the shares, element by element, which the
+/// compiler can vectorise.
+fn add_end(
+    re: &mut [f64],
+    im: &mut [f64],
+    (t, y, s): (f64, f64, f64),
+    sign: f64,
+    given: Option<&Phasors>,
+) {
+    let step = phasor_step(t);
+    let mut z = (1.0, 0.0);
+    let mut found = Phasors {
+        re: [0.0; HARMONICS],
+        im: [0.0; HARMONICS],
+    };
+    let chunks = re.chunks_mut(HARMONICS).zip(im.chunks_mut(HARMONICS));
+    for (chunk, (re, im)) in chunks.enumerate() {
+        let len = re.len();
+        let inv_buf: [f64; HARMONICS];
+        let inv = if chunk == 0 {
+            &INV_OMEGA[..len]
+        } else {
+            inv_buf =
+                std::array::from_fn(|k| 1.0 / (2.0 * PI * (chunk * HARMONICS + k + 1) as f64));
+            &inv_buf[..len]
+        };
+        if t == 0.0 {
+            // The phasor stays 1 + j0 at every power: the same sums without the products.
+            for ((re, im), &inv_w) in re.iter_mut().zip(im.iter_mut()).zip(inv) {
+                *re += sign * (s * (inv_w * inv_w));
+                *im += sign * (y * inv_w);
+            }
+            continue;
+        }
+        let p = match given.filter(|_| chunk == 0) {
+            Some(p) => {
+                z = (p.re[HARMONICS - 1], p.im[HARMONICS - 1]);
+                p
+            }
+            None => {
+                powers(step, &mut z, &mut found.re[..len], &mut found.im[..len]);
+                &found
+            }
+        };
+        let phasors = p.re[..len].iter().zip(&p.im[..len]);
+        for (((re, im), &inv_w), (&zr, &zi)) in
+            re.iter_mut().zip(im.iter_mut()).zip(inv).zip(phasors)
+        {
+            // e^(-j w t) = zr + j zi.
+            let (a, b) = (s * (inv_w * inv_w), y * inv_w);
+            *re += sign * (zr * a - zi * b);
+            *im += sign * (zr * b + zi * a);
+        }
+    }
+}
+
+/// `sqrt(n)` for n = 1 to [`HARMONICS`] (index n - 1), worked out once per process: a
+/// harmonic's D is the fundamental's times it.
+fn harmonic_roots() -> &'static [f64; HARMONICS] {
+    static ROOTS: OnceLock<[f64; HARMONICS]> = OnceLock::new();
+    ROOTS.get_or_init(|| std::array::from_fn(|k| ((k + 1) as f64).sqrt()))
+}
+
+/// Dowell's two terms `(D_n G1(D_n), D_n G2(D_n))` of each harmonic n = 1 to [`HARMONICS`]
+/// (index n - 1) of a layer whose D at the fundamental is `d`: `D_n = d sqrt(n)`.
+pub type HarmonicTerms = [(f64, f64); HARMONICS];
+
+/// The [`HarmonicTerms`] of a layer of D `d`, from the table (to about 1e-7): an exp and a
+/// sin_cos per harmonic were most of a cold evaluation's time. Spectra summed at the same D
+/// share them (`Memo::summed_terms`).
+pub fn fill_harmonic_terms(d: f64, out: &mut HarmonicTerms) {
+    crate::engine::dowell_table::Table::get().fill_terms(d, harmonic_roots(), out);
 }
 
 /// The two Dowell terms of a layer of D `d` (at the fundamental) summed over a spectrum:
@@ -174,16 +294,36 @@ pub fn spectrum(w: &Waveform, count: usize) -> Spectrum {
 /// above the last harmonic taken at the last one's terms. With [`crate::engine::ac::layer_factor_from`]
 /// this gives a layer's share of `waveform_factor` without a loop over harmonics per layer.
 pub fn summed_terms(s: &Spectrum, d: f64) -> (f64, f64) {
+    let mut terms = [(0.0, 0.0); HARMONICS];
+    fill_harmonic_terms(d, &mut terms);
+    summed_terms_with(s, d, &terms)
+}
+
+/// [`summed_terms`] with the harmonics' terms at `d` already found (`fill_harmonic_terms`);
+/// a spectrum longer than [`HARMONICS`] has the terms of the rest worked out here.
+pub fn summed_terms_with(s: &Spectrum, d: f64, terms: &HarmonicTerms) -> (f64, f64) {
+    let floor = 1e-12 * s.rms_sq;
     let (mut a, mut b) = (0.0, 0.0);
     let mut summed = s.dc * s.dc;
     let mut last = (1.0, 0.5);
-    for (k, &p) in s.harmonic_rms_sq.iter().enumerate() {
-        if p <= 1e-12 * s.rms_sq {
+    let (head, tail) = s
+        .harmonic_rms_sq
+        .split_at(s.harmonic_rms_sq.len().min(HARMONICS));
+    for (&p, &t) in head.iter().zip(terms) {
+        if p <= floor {
             continue;
         }
-        // The terms from the table (to about 1e-7): an exp and a sin_cos per harmonic were
-        // most of a cold evaluation's time.
-        last = crate::engine::dowell_table::d_terms(d * ((k + 1) as f64).sqrt());
+        last = t;
+        a += p * t.0;
+        b += p * t.1;
+        summed += p;
+    }
+    for (k, &p) in tail.iter().enumerate() {
+        if p <= floor {
+            continue;
+        }
+        let n = HARMONICS + k + 1;
+        last = crate::engine::dowell_table::d_terms(d * (n as f64).sqrt());
         a += p * last.0;
         b += p * last.1;
         summed += p;

@@ -3,7 +3,7 @@
 //! them, as the search's candidates do. It changes no figure: `evaluate` starts an empty one.
 
 use super::ac;
-use super::harmonics::{self, HARMONICS, Spectrum, Waveform};
+use super::harmonics::{self, HARMONICS, HarmonicTerms, Phasors, Spectrum, Waveform};
 use std::collections::HashMap;
 use std::hash::{BuildHasherDefault, Hasher};
 
@@ -26,7 +26,22 @@ pub struct Memo {
     /// The last core-loss density asked for, by the bits of its inputs: the candidates of a
     /// search share their operating point, so one entry serves them all.
     core_loss: Option<([u64; 7], f64)>,
+    /// The harmonics' Dowell terms at the last few D's (by their bits), for the spectra
+    /// summed at one D (a primary and its bifilar reset, say): the terms are found once.
+    harmonic_terms: Vec<(u64, HarmonicTerms)>,
+    /// The slot of `harmonic_terms` the next new D takes once it is full.
+    next_terms_slot: usize,
+    /// The phasor powers of the piece ends of the spectra found, by the bits of the end's
+    /// time: a primary, a secondary and a reset share the end at the duty.
+    phasors: Vec<(u64, Phasors)>,
 }
+
+/// Piece-end times whose phasor powers are kept: the waveforms of one operating point end
+/// at a few.
+const PHASORS_KEPT: usize = 64;
+
+/// D's whose harmonics' terms are kept: a round of an evaluation sums at a handful.
+const HARMONIC_TERMS_KEPT: usize = 8;
 
 impl Memo {
     /// An empty memo.
@@ -60,8 +75,28 @@ impl Memo {
         if let Some(i) = self.spectra.iter().position(|(w, _)| w == wave) {
             return i;
         }
-        self.spectra
-            .push((wave.clone(), harmonics::spectrum(wave, HARMONICS)));
+        if self.phasors.len() >= PHASORS_KEPT {
+            self.phasors.clear();
+        }
+        for p in wave.pieces.iter().filter(|p| p.t1 > p.t0) {
+            for t in [p.t1, p.t0] {
+                if t != 0.0 && !self.phasors.iter().any(|(b, _)| *b == t.to_bits()) {
+                    if self.phasors.capacity() == 0 {
+                        // Room for the ends of a primary, a secondary and a reset at once.
+                        self.phasors.reserve(4);
+                    }
+                    self.phasors.push((t.to_bits(), Phasors::at(t)));
+                }
+            }
+        }
+        let known = &self.phasors;
+        let spectrum = harmonics::spectrum_with(wave, HARMONICS, |t| {
+            known
+                .iter()
+                .find(|(b, _)| *b == t.to_bits())
+                .map(|(_, p)| p)
+        });
+        self.spectra.push((wave.clone(), spectrum));
         self.spectra.len() - 1
     }
 
@@ -73,6 +108,9 @@ impl Memo {
     /// [`ac::layer_factor_fast`], the terms of each D found once.
     pub fn layer_factor(&mut self, d: f64, f_a: f64, f_b: f64) -> f64 {
         ac::layer_factor_by(d, f_a, f_b, |d| {
+            if self.sine_terms.capacity() == 0 {
+                self.sine_terms.reserve(16);
+            }
             *self
                 .sine_terms
                 .entry(d.to_bits())
@@ -100,7 +138,33 @@ impl Memo {
         if let Some(t) = self.terms.get(&key) {
             return *t;
         }
-        let t = harmonics::summed_terms(&self.spectra[spectrum].1, d);
+        let bits = d.to_bits();
+        let slot = match self.harmonic_terms.iter().position(|(b, _)| *b == bits) {
+            Some(i) => i,
+            None => {
+                let i = if self.harmonic_terms.len() < HARMONIC_TERMS_KEPT {
+                    if self.harmonic_terms.capacity() == 0 {
+                        self.harmonic_terms.reserve_exact(HARMONIC_TERMS_KEPT);
+                    }
+                    self.harmonic_terms.push((bits, [(0.0, 0.0); HARMONICS]));
+                    self.harmonic_terms.len() - 1
+                } else {
+                    let i = self.next_terms_slot;
+                    self.next_terms_slot = (i + 1) % HARMONIC_TERMS_KEPT;
+                    i
+                };
+                let (b, terms) = &mut self.harmonic_terms[i];
+                *b = bits;
+                harmonics::fill_harmonic_terms(d, terms);
+                i
+            }
+        };
+        let terms = &self.harmonic_terms[slot].1;
+        let t = harmonics::summed_terms_with(&self.spectra[spectrum].1, d, terms);
+        // One allocation for the handful an evaluation adds, rather than growing 3, 7, 14.
+        if self.terms.capacity() == 0 {
+            self.terms.reserve(16);
+        }
         self.terms.insert(key, t);
         t
     }
@@ -148,6 +212,41 @@ mod tests {
             assert_eq!(memo.summed_terms(s, d), harmonics::summed_terms(&fresh, d));
         }
         assert_eq!(memo.spectrum(&wave), s);
+    }
+
+    /// Waveforms that share a piece end (a primary, a secondary and a reset at one duty)
+    /// get the spectra a fresh computation gives, bit for bit.
+    #[test]
+    fn spectra_sharing_an_end_equal_fresh_ones() {
+        let waves = [
+            Waveform::ramp(1.0, 1.4, 0.0, 0.41),
+            Waveform::pulse(3.0, 0.41),
+            Waveform::ramp(0.3, 0.0, 0.41, 0.77),
+        ];
+        let mut memo = Memo::new();
+        for w in &waves {
+            let i = memo.spectrum(w);
+            assert_eq!(memo.spectrum_of(i), &harmonics::spectrum(w, HARMONICS));
+        }
+    }
+
+    /// Two spectra summed at the same D share the harmonics' terms, and more D's than the
+    /// memo keeps terms for still give what a fresh computation gives.
+    #[test]
+    fn shared_harmonic_terms_equal_fresh_ones() {
+        let waves = [
+            Waveform::pulse(2.0, 0.4),
+            Waveform::ramp(1.0, 1.5, 0.0, 0.4),
+        ];
+        let mut memo = Memo::new();
+        let ids = waves.each_ref().map(|w| memo.spectrum(w));
+        for i in 0..3 * HARMONIC_TERMS_KEPT {
+            let d = 0.2 + 0.37 * i as f64;
+            for (w, &s) in waves.iter().zip(&ids) {
+                let fresh = harmonics::summed_terms(&harmonics::spectrum(w, HARMONICS), d);
+                assert_eq!(memo.summed_terms(s, d), fresh, "D {d}");
+            }
+        }
     }
 
     /// The memoised sinusoidal layer factor is the plain one, for resistive, thin and thick

@@ -130,29 +130,34 @@ pub(super) fn check_outputs(
     let Some(op) = build.operating.as_ref() else {
         return;
     };
-    let secondaries: Vec<&str> = build
+    let secondaries = build
         .windings
         .iter()
         .filter(|w| w.role == Role::Secondary)
-        .map(|w| w.name.as_str())
-        .collect();
-    let list = if secondaries.is_empty() {
-        "the build has none".to_string()
-    } else {
-        format!("the secondaries are {}", secondaries.join(", "))
+        .map(|w| w.name.as_str());
+    let first_secondary = secondaries.clone().next();
+    // Only a refusal quotes the list: it is not built for a build that passes.
+    let list = || {
+        let names: Vec<&str> = secondaries.clone().collect();
+        if names.is_empty() {
+            "the build has none".to_string()
+        } else {
+            format!("the secondaries are {}", names.join(", "))
+        }
     };
     for (i, o) in op.outputs.iter().enumerate() {
         match build.winding(&o.winding) {
             None => bad(
                 Place::Output(i, "name"),
-                format!("unknown winding \"{}\"; {list}", o.winding),
+                format!("unknown winding \"{}\"; {}", o.winding, list()),
             ),
             Some(w) if w.role != Role::Secondary => bad(
                 Place::Output(i, "name"),
                 format!(
-                    "\"{}\" is a {} winding; an output is fed by a secondary winding ({list})",
+                    "\"{}\" is a {} winding; an output is fed by a secondary winding ({})",
                     o.winding,
-                    w.role.key()
+                    w.role.key(),
+                    list()
                 ),
             ),
             Some(_) => {
@@ -165,14 +170,14 @@ pub(super) fn check_outputs(
                             j + 1
                         ),
                     );
-                } else if i == 0 && secondaries.first() != Some(&o.winding.as_str()) {
+                } else if i == 0 && first_secondary != Some(o.winding.as_str()) {
                     bad(
                         Place::Output(0, "name"),
                         format!(
                             "the regulated output (the first [[output]]) is fed by the first \
                              secondary winding in file order, \"{}\": list its output first, or \
                              move winding \"{}\" before it",
-                            secondaries.first().copied().unwrap_or(""),
+                            first_secondary.unwrap_or(""),
                             o.winding
                         ),
                     );

@@ -54,7 +54,29 @@ pub(super) fn solve_temperature(
     leakage: &[LeakageEval],
     memo: &mut Memo,
 ) -> (f64, TemperatureSource, Electrical) {
-    let at = |t: f64, memo: &mut Memo| electrical(build, laid, wires, valid, leakage, t, memo);
+    // The converter and the currents do not depend on the temperature: found once.
+    let drive = drive(build, wires, valid, leakage);
+    let at = |t: f64, memo: &mut Memo| electrical(build, laid, wires, &drive, t, memo);
+    let (t, source, (windings, losses, ac_warnings)) = fixed_point(build, at, memo);
+    let electrical = Electrical {
+        windings,
+        converter: drive.converter,
+        losses,
+        ac_warnings,
+    };
+    (t, source, electrical)
+}
+
+/// The figures of one temperature: the windings, the losses and the AC warnings.
+type AtTemperature = (Vec<WindingEval>, Option<LossEval>, Vec<Warning>);
+
+/// The temperature and where it came from, with the figures `at` gives there (see
+/// [`solve_temperature`]).
+fn fixed_point(
+    build: &Build,
+    at: impl Fn(f64, &mut Memo) -> AtTemperature,
+    memo: &mut Memo,
+) -> (f64, TemperatureSource, AtTemperature) {
     if build.setup.temperature_given || build.operating.is_none() {
         let source = if build.setup.temperature_given {
             TemperatureSource::Given
@@ -69,13 +91,10 @@ pub(super) fn solve_temperature(
         .as_ref()
         .and_then(|o| o.ambient_c)
         .unwrap_or(thermal::DEFAULT_AMBIENT_C);
+    let rise = |e: &AtTemperature| e.1.as_ref().and_then(|l| l.temperature_rise_c);
     let mut t = ambient;
     let mut e = at(t, memo);
-    if e.losses
-        .as_ref()
-        .and_then(|l| l.temperature_rise_c)
-        .is_none()
-    {
+    if rise(&e).is_none() {
         let given_ambient = build.operating.as_ref().and_then(|o| o.ambient_c);
         return match given_ambient {
             Some(a) => (a, TemperatureSource::Ambient, e),
@@ -86,12 +105,7 @@ pub(super) fn solve_temperature(
         };
     }
     for _ in 0..TEMPERATURE_ROUNDS {
-        let rise = e
-            .losses
-            .as_ref()
-            .and_then(|l| l.temperature_rise_c)
-            .unwrap_or(0.0);
-        let next = (ambient + rise).min(TEMPERATURE_CEILING_C);
+        let next = (ambient + rise(&e).unwrap_or(0.0)).min(TEMPERATURE_CEILING_C);
         if (next - t).abs() < TEMPERATURE_TOLERANCE_C {
             break;
         }
@@ -101,18 +115,20 @@ pub(super) fn solve_temperature(
     (t, TemperatureSource::AmbientPlusRise, e)
 }
 
-/// The figures of [`Electrical`] with the windings at `temperature_c`.
-pub(super) fn electrical(
+/// What the operating point drives, whatever the temperature: the converter's figures
+/// (with the leakage's toll and the currents' RMS) and each winding's current.
+struct Drive {
+    converter: Option<ConverterEval>,
+    currents: Vec<WindingCurrent>,
+}
+
+/// The [`Drive`] of a build (no converter for one `validate` refuses).
+fn drive(
     build: &Build,
-    laid: &[Laid],
     wires: &[crate::library::wires::ResolvedWire],
     valid: bool,
     leakage: &[LeakageEval],
-    temperature_c: f64,
-    memo: &mut Memo,
-) -> Electrical {
-    let mut windings = dc_windings(build, laid, wires, temperature_c);
-
+) -> Drive {
     let mut converter = if valid {
         converter::evaluate(build)
     } else {
@@ -123,14 +139,44 @@ pub(super) fn electrical(
     {
         converter::apply_leakage(c, build, l);
     }
+    let breadth = layout::usable_width_mm(build);
     if let Some(c) = converter.as_mut()
-        && let Some(r) = windings.iter().find(|w| w.role == Role::Reset)
-        && r.copper_area_mm2 > 0.0
+        && let Some(r) = build.windings.iter().position(|w| w.role == Role::Reset)
     {
-        c.reset_current_density_a_mm2 = c.reset_rms_a.map(|i| i / r.copper_area_mm2);
+        let area = conductor::copper_area_mm2(&build.windings[r], &wires[r], breadth);
+        if area > 0.0 {
+            c.reset_current_density_a_mm2 = c.reset_rms_a.map(|i| i / area);
+        }
     }
     let currents = currents::winding_currents(build, converter.as_ref());
-    for (w, c) in windings.iter_mut().zip(&currents) {
+    if let Some(c) = converter.as_mut() {
+        for o in c.outputs.iter_mut() {
+            o.current_rms_a = build
+                .windings
+                .iter()
+                .zip(&currents)
+                .find(|(w, _)| w.name == o.winding)
+                .and_then(|(_, c)| c.rms_a);
+        }
+    }
+    Drive {
+        converter,
+        currents,
+    }
+}
+
+/// The figures of [`AtTemperature`] with the windings at `temperature_c`.
+fn electrical(
+    build: &Build,
+    laid: &[Laid],
+    wires: &[crate::library::wires::ResolvedWire],
+    drive: &Drive,
+    temperature_c: f64,
+    memo: &mut Memo,
+) -> AtTemperature {
+    let mut windings = dc_windings(build, laid, wires, temperature_c);
+    let currents = &drive.currents;
+    for (w, c) in windings.iter_mut().zip(currents) {
         w.current_rms_a = c.rms_a;
         w.current_source = c.source;
         w.current_model_rms_a = c.model_rms_a;
@@ -139,14 +185,6 @@ pub(super) fn electrical(
             .filter(|_| w.copper_area_mm2 > 0.0)
             .map(|a| a / w.copper_area_mm2);
     }
-    if let Some(c) = converter.as_mut() {
-        for o in c.outputs.iter_mut() {
-            o.current_rms_a = windings
-                .iter()
-                .find(|w| w.name == o.winding)
-                .and_then(|w| w.current_rms_a);
-        }
-    }
     let mut ac_warnings = Vec::new();
     if build.setup.frequency_khz.is_some() {
         ac_figures(
@@ -154,7 +192,7 @@ pub(super) fn electrical(
             laid,
             temperature_c,
             wires,
-            &currents,
+            currents,
             &mut windings,
             &mut ac_warnings,
             memo,
@@ -169,15 +207,11 @@ pub(super) fn electrical(
             (None, p) => p,
         };
     }
-    let losses = converter
+    let losses = drive
+        .converter
         .as_ref()
         .map(|c| losses::evaluate(build, c, &windings, memo));
-    Electrical {
-        windings,
-        converter,
-        losses,
-        ac_warnings,
-    }
+    (windings, losses, ac_warnings)
 }
 
 /// Every winding with its wire, length and DC resistance at `temperature_c`; the AC,
