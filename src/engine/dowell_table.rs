@@ -12,20 +12,24 @@ const STEP: f64 = 0.05;
 const NODES: usize = 400;
 /// Above this D the terms are `(D, 0)` to within `D e^-D`, below 1e-7 of `D`.
 const END: f64 = STEP * NODES as f64;
-/// D's a [`Table::fill_terms`] pass takes at a time (at least `harmonics::HARMONICS`).
-const BATCH: usize = 128;
-/// 2^52: adding and taking it away rounds a smaller positive double to a whole number.
-const TWO_52: f64 = 4_503_599_627_370_496.0;
-/// The last node that has one above it, as a double.
-const LAST_LOW_NODE: f64 = (NODES - 1) as f64;
 /// Step of the central difference that gives each node's slopes.
 const SLOPE_STEP: f64 = 1e-4;
 
-/// The nodes: each one's terms and their slopes, `[a, b, da/dD, db/dD]`, at `i x STEP`.
-/// A fixed-size array, so that the two nodes around a D are read without a bounds check.
+/// The intervals between the nodes, each as the two cubics in `t` (0 at the node below, 1 at
+/// the one above) that Hermite interpolation from the nodes' terms and slopes makes:
+/// `[a0, a1, a2, a3, b0, b1, b2, b3]` with `a(t) = a0 + t (a1 + t (a2 + t a3))`. One cache
+/// line per interval, read in one go, and two Horner steps instead of the Hermite weights.
 #[derive(Debug)]
 pub struct Table {
-    nodes: [[f64; 4]; NODES + 1],
+    intervals: [[f64; 8]; NODES],
+}
+
+/// One term's cubic between two nodes, from its values `y0`, `y1` and slopes `m0`, `m1` (per
+/// unit D) at them: `y0 + m0 h t + (3 dy - (2 m0 + m1) h) t^2 + ((m0 + m1) h - 2 dy) t^3`.
+fn hermite_cubic(y0: f64, m0: f64, y1: f64, m1: f64) -> [f64; 4] {
+    let (m0, m1) = (m0 * STEP, m1 * STEP);
+    let dy = y1 - y0;
+    [y0, m0, 3.0 * dy - 2.0 * m0 - m1, m0 + m1 - 2.0 * dy]
 }
 
 impl Table {
@@ -34,9 +38,9 @@ impl Table {
     pub fn get() -> &'static Table {
         static TABLE: OnceLock<Box<Table>> = OnceLock::new();
         TABLE.get_or_init(|| {
-            let mut nodes = [[0.0; 4]; NODES + 1];
-            for (i, node) in nodes.iter_mut().enumerate() {
-                *node = if i == 0 {
+            // Each node's terms and their slopes, `[a, b, da/dD, db/dD]`, at `i x STEP`.
+            let node = |i: usize| {
+                if i == 0 {
                     // At D -> 0 the terms tend to (1, 1/2) with zero slope (they move as D^4).
                     [1.0, 0.5, 0.0, 0.0]
                 } else {
@@ -46,9 +50,19 @@ impl Table {
                     let (a_lo, b_lo) = ac::d_terms(x - SLOPE_STEP);
                     let k = 0.5 / SLOPE_STEP;
                     [a, b, (a_hi - a_lo) * k, (b_hi - b_lo) * k]
-                };
+                }
+            };
+            let mut intervals = [[0.0; 8]; NODES];
+            let mut lo = node(0);
+            for (i, cubics) in intervals.iter_mut().enumerate() {
+                let hi = node(i + 1);
+                let a = hermite_cubic(lo[0], lo[2], hi[0], hi[2]);
+                let b = hermite_cubic(lo[1], lo[3], hi[1], hi[3]);
+                cubics[..4].copy_from_slice(&a);
+                cubics[4..].copy_from_slice(&b);
+                lo = hi;
             }
-            Box::new(Table { nodes })
+            Box::new(Table { intervals })
         })
     }
 
@@ -56,7 +70,7 @@ impl Table {
     #[inline]
     pub fn d_terms(&self, d: f64) -> (f64, f64) {
         if (ac::D_SMALL..END).contains(&d) {
-            self.between_nodes(d)
+            self.on_table(d)
         } else if d >= END && d.is_finite() {
             (d, 0.0)
         } else {
@@ -72,8 +86,8 @@ impl Table {
         let on_table = |x: f64| (ac::D_SMALL..END).contains(&x);
         let ends = roots.first().zip(roots.last());
         if ends.is_some_and(|(&lo, &hi)| on_table(d * lo) && on_table(d * hi)) {
-            for (roots, out) in roots.chunks(BATCH).zip(out.chunks_mut(BATCH)) {
-                self.batch_on_table(d, roots, out);
+            for (t, &root) in out.iter_mut().zip(roots) {
+                *t = self.on_table(d * root);
             }
         } else {
             for (t, &root) in out.iter_mut().zip(roots) {
@@ -82,70 +96,17 @@ impl Table {
         }
     }
 
-    /// [`Table::between_nodes`] of `d x root` for up to [`BATCH`] roots whose products all
-    /// lie on the table, in two passes: the node and the Hermite weights of every D first
-    /// (plain arithmetic, which the compiler vectorises), then the reads of the nodes. The
-    /// same operations on the same values as `between_nodes`, so the same bits.
-    fn batch_on_table(&self, d: f64, roots: &[f64], out: &mut [(f64, f64)]) {
-        let n = roots.len().min(out.len()).min(BATCH);
-        let (roots, out) = (&roots[..n], &mut out[..n]);
-        let mut node = [0.0; BATCH];
-        let mut h = [[0.0; BATCH]; 4];
-        let [h00, h10, h01, h11] = &mut h;
-        let rows = node[..n].iter_mut().zip(&mut h00[..n]).zip(&mut h10[..n]);
-        let rows = rows.zip(&mut h01[..n]).zip(&mut h11[..n]).zip(roots);
-        for (((((node, h00), h10), h01), h11), &root) in rows {
-            let u = d * root / STEP;
-            // floor(u) without a conversion to an integer (u is below 2^51): add and take away
-            // 2^52 to round to the nearest whole number, then step down if that went up.
-            let r = (u + TWO_52) - TWO_52;
-            let below = if r > u { r - 1.0 } else { r };
-            *node = if below > LAST_LOW_NODE {
-                LAST_LOW_NODE
-            } else {
-                below
-            };
-            let t = u - *node;
-            let t2 = t * t;
-            let s = 1.0 - t;
-            let s2 = s * s;
-            *h00 = (1.0 + 2.0 * t) * s2;
-            *h10 = t * s2 * STEP;
-            *h01 = t2 * (3.0 - 2.0 * t);
-            *h11 = -t2 * s * STEP;
-        }
-        for (k, o) in out.iter_mut().enumerate() {
-            let i = (node[k] as usize).min(NODES - 1);
-            let (lo, hi) = (&self.nodes[i], &self.nodes[i + 1]);
-            let (h00, h10, h01, h11) = (h[0][k], h[1][k], h[2][k], h[3][k]);
-            *o = (
-                h00 * lo[0] + h10 * lo[2] + h01 * hi[0] + h11 * hi[2],
-                h00 * lo[1] + h10 * lo[3] + h01 * hi[1] + h11 * hi[3],
-            );
-        }
-    }
-
-    /// The cubic Hermite interpolation between the two nodes around `d`, for `d` from
-    /// `ac::D_SMALL` to below `END`.
+    /// The two cubics of the interval around `d`, for `d` from `ac::D_SMALL` to below `END`.
     #[inline]
-    fn between_nodes(&self, d: f64) -> (f64, f64) {
-        let u = d / STEP;
-        // u < NODES, so the node below is at most NODES - 1 and the one above exists.
+    fn on_table(&self, d: f64) -> (f64, f64) {
+        let u = d * (1.0 / STEP);
+        // u < NODES, so the interval is at most the last one.
         let i = (u as u32).min(NODES as u32 - 1) as usize;
         let t = u - i as f64;
-        let (lo, hi) = (&self.nodes[i], &self.nodes[i + 1]);
-        let t2 = t * t;
-        let s = 1.0 - t;
-        let s2 = s * s;
-        let (h00, h10, h01, h11) = (
-            (1.0 + 2.0 * t) * s2,
-            t * s2 * STEP,
-            t2 * (3.0 - 2.0 * t),
-            -t2 * s * STEP,
-        );
+        let c = &self.intervals[i];
         (
-            h00 * lo[0] + h10 * lo[2] + h01 * hi[0] + h11 * hi[2],
-            h00 * lo[1] + h10 * lo[3] + h01 * hi[1] + h11 * hi[3],
+            c[0] + t * (c[1] + t * (c[2] + t * c[3])),
+            c[4] + t * (c[5] + t * (c[6] + t * c[7])),
         )
     }
 }

@@ -203,14 +203,32 @@ fn phasor_step(t: f64) -> (f64, f64) {
 }
 
 /// The next powers of the phasor `step` after `z` into `re` and `im`; `z` ends at the last.
+/// Four chains side by side: the first four powers one product at a time, then each power is
+/// the one four before times `step^4`, so that four products are in flight at once instead
+/// of one waiting on the last (a single chain of products was the slowest part of a
+/// spectrum). The same bits wherever it is called from.
 fn powers((sr, si): (f64, f64), z: &mut (f64, f64), re: &mut [f64], im: &mut [f64]) {
+    let n = re.len().min(im.len());
+    let (re, im) = (&mut re[..n], &mut im[..n]);
     let (mut zr, mut zi) = *z;
-    for (r, i) in re.iter_mut().zip(im.iter_mut()) {
+    for k in 0..n.min(CHAINS) {
         (zr, zi) = (zr * sr - zi * si, zr * si + zi * sr);
-        (*r, *i) = (zr, zi);
+        (re[k], im[k]) = (zr, zi);
     }
-    *z = (zr, zi);
+    // step^4 as (step^2)^2.
+    let (s2r, s2i) = (sr * sr - si * si, 2.0 * sr * si);
+    let (s4r, s4i) = (s2r * s2r - s2i * s2i, 2.0 * s2r * s2i);
+    for k in CHAINS..n {
+        let (r, i) = (re[k - CHAINS], im[k - CHAINS]);
+        (re[k], im[k]) = (r * s4r - i * s4i, r * s4i + i * s4r);
+    }
+    if n > 0 {
+        *z = (re[n - 1], im[n - 1]);
+    }
 }
+
+/// Chains of products [`powers`] keeps going side by side.
+const CHAINS: usize = 4;
 
 /// One piece end's share of every harmonic's coefficient: `sign e^(-j w t) (s / w^2 + j y / w)`
 /// with `w = 2 pi n`, added to `re[n - 1]` and `im[n - 1]`; `(t, y, s)` are the end's time,
@@ -224,12 +242,9 @@ fn add_end(
     sign: f64,
     given: Option<&Phasors>,
 ) {
-    let step = phasor_step(t);
     let mut z = (1.0, 0.0);
-    let mut found = Phasors {
-        re: [0.0; HARMONICS],
-        im: [0.0; HARMONICS],
-    };
+    // The powers worked out here when not given (made, and zeroed, only then).
+    let mut found: Option<(Phasors, (f64, f64))> = None;
     let chunks = re.chunks_mut(HARMONICS).zip(im.chunks_mut(HARMONICS));
     for (chunk, (re, im)) in chunks.enumerate() {
         let len = re.len();
@@ -255,8 +270,15 @@ fn add_end(
                 p
             }
             None => {
-                powers(step, &mut z, &mut found.re[..len], &mut found.im[..len]);
-                &found
+                let (f, step) = found.get_or_insert_with(|| {
+                    let blank = Phasors {
+                        re: [0.0; HARMONICS],
+                        im: [0.0; HARMONICS],
+                    };
+                    (blank, phasor_step(t))
+                });
+                powers(*step, &mut z, &mut f.re[..len], &mut f.im[..len]);
+                &*f
             }
         };
         let phasors = p.re[..len].iter().zip(&p.im[..len]);
@@ -303,21 +325,40 @@ pub fn summed_terms(s: &Spectrum, d: f64) -> (f64, f64) {
 /// a spectrum longer than [`HARMONICS`] has the terms of the rest worked out here.
 pub fn summed_terms_with(s: &Spectrum, d: f64, terms: &HarmonicTerms) -> (f64, f64) {
     let floor = 1e-12 * s.rms_sq;
-    let (mut a, mut b) = (0.0, 0.0);
-    let mut summed = s.dc * s.dc;
-    let mut last = (1.0, 0.5);
     let (head, tail) = s
         .harmonic_rms_sq
         .split_at(s.harmonic_rms_sq.len().min(HARMONICS));
-    for (&p, &t) in head.iter().zip(terms) {
-        if p <= floor {
-            continue;
+    // The harmonics below the floor add nothing (their power counts as zero); the last one
+    // above it gives the terms the rest is taken at.
+    let mut last = head
+        .iter()
+        .rposition(|&p| p > floor)
+        .map_or((1.0, 0.5), |k| terms[k]);
+    // Four running sums of each, side by side, so that the additions do not wait on each
+    // other; added up at the end.
+    let (mut a, mut b, mut summed) = ([0.0; LANES], [0.0; LANES], [0.0; LANES]);
+    let (powers, terms) = (
+        head.chunks_exact(LANES),
+        terms[..head.len()].chunks_exact(LANES),
+    );
+    let (rest_p, rest_t) = (powers.remainder(), terms.remainder());
+    for (p, t) in powers.zip(terms) {
+        for k in 0..LANES {
+            let p = if p[k] > floor { p[k] } else { 0.0 };
+            a[k] += p * t[k].0;
+            b[k] += p * t[k].1;
+            summed[k] += p;
         }
-        last = t;
-        a += p * t.0;
-        b += p * t.1;
-        summed += p;
     }
+    for (&p, &t) in rest_p.iter().zip(rest_t) {
+        let p = if p > floor { p } else { 0.0 };
+        a[0] += p * t.0;
+        b[0] += p * t.1;
+        summed[0] += p;
+    }
+    let total = |x: [f64; LANES]| (x[0] + x[1]) + (x[2] + x[3]);
+    let (mut a, mut b) = (total(a), total(b));
+    let mut summed = s.dc * s.dc + total(summed);
     for (k, &p) in tail.iter().enumerate() {
         if p <= floor {
             continue;
@@ -331,6 +372,9 @@ pub fn summed_terms_with(s: &Spectrum, d: f64, terms: &HarmonicTerms) -> (f64, f
     let rest = (s.rms_sq - summed).max(0.0);
     (a + rest * last.0, b + rest * last.1)
 }
+
+/// Running sums [`summed_terms_with`] keeps side by side.
+const LANES: usize = 4;
 
 /// `R_eff / R_dc = [I_dc^2 + sum_n I_n^2 F_R(n)] / I_rms^2` (Hurley, Gath and Breslin, IEEE
 /// Trans. Power Electron. 15(2), 2000), with `factor_at(n)` the winding's AC factor at the
