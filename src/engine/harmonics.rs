@@ -1,8 +1,10 @@
 //! Fourier series of piecewise-linear current waveforms over one period, and the AC factor
 //! of a winding summed over them (Hurley, Gath and Breslin 2000). Pure arithmetic.
 
+pub use super::harmonic_sum::{
+    HarmonicTerms, SUM_POINTS, SumWeights, fill_harmonic_terms, summed_terms, summed_terms_with,
+};
 use std::f64::consts::PI;
-use std::sync::OnceLock;
 
 /// Harmonics summed one by one; the power above the last is taken at the last one's factor
 /// (see `waveform_factor`). At 100 kHz this reaches 10 MHz, where real switching edges of
@@ -120,6 +122,9 @@ pub struct Spectrum {
     pub harmonic_rms_sq: Vec<f64>,
     /// The whole waveform's RMS squared (A^2), DC and every harmonic together.
     pub rms_sq: f64,
+    /// What every harmonic sum over it needs of it, found once (a spectrum of
+    /// [`HARMONICS`] only; one of another length is summed harmonic by harmonic).
+    pub sum_weights: Option<SumWeights>,
 }
 
 /// The Fourier series of a piecewise-straight waveform: its DC part and the first `count`
@@ -128,17 +133,87 @@ pub fn spectrum(w: &Waveform, count: usize) -> Spectrum {
     spectrum_with(w, count, |_| None)
 }
 
-/// [`spectrum`], with the phasor powers of a piece end at `t` taken from `phasors(t)` where
-/// it has them (`Memo::spectrum` keeps those its waveforms share: a primary, a secondary and
-/// a reset that end or start at the same duty). The same figures either way.
+/// [`spectrum`], with the phasor powers `e^(-j 2 pi n t)` of a `t` taken from `phasors(t)`
+/// where it has them (`Memo::spectrum` keeps those its waveforms share: a primary and a
+/// secondary of the same on-time). The `t`s asked for are [`phasor_times`]. The same figures
+/// either way.
 pub fn spectrum_with<'a>(
     w: &Waveform,
     count: usize,
     phasors: impl Fn(f64) -> Option<&'a Phasors>,
 ) -> Spectrum {
-    // c_n for every n at once, one piece end after the other: the end's phasor
-    // e^(-j 2 pi t) is raised to the n-th power by one complex product per harmonic instead
-    // of a sin_cos. `re` becomes the squared RMS in place; `im` stays on the stack.
+    let mut pieces = w.pieces.iter().filter(|p| p.t1 > p.t0);
+    let harmonic_rms_sq = match (pieces.next(), pieces.next()) {
+        (None, _) => vec![0.0; count],
+        (Some(p), None) if count == HARMONICS => one_piece(p, phasors(p.t1 - p.t0)),
+        _ => piece_ends(w, count, phasors),
+    };
+    let (dc, rms_sq) = (w.dc(), w.rms().powi(2));
+    let sum_weights = <&[f64; HARMONICS]>::try_from(harmonic_rms_sq.as_slice())
+        .ok()
+        .map(|powers| SumWeights::of(powers, dc, rms_sq));
+    Spectrum {
+        dc,
+        harmonic_rms_sq,
+        rms_sq,
+        sum_weights,
+    }
+}
+
+/// The times whose phasor powers [`spectrum_with`] asks for at [`HARMONICS`]: a single
+/// piece's width (where it lies in the period changes no harmonic's size), else every piece
+/// end but 0.
+pub fn phasor_times(w: &Waveform) -> impl Iterator<Item = f64> + '_ {
+    let live = || w.pieces.iter().filter(|p| p.t1 > p.t0);
+    let single = match live().count() {
+        1 => live().next().map(|p| p.t1 - p.t0),
+        _ => None,
+    };
+    let ends = live()
+        .filter(move |_| single.is_none())
+        .flat_map(|p| [p.t1, p.t0])
+        .filter(|&t| t != 0.0);
+    single.into_iter().chain(ends)
+}
+
+/// The squared RMS of harmonics 1 to [`HARMONICS`] of one straight piece, in closed form. A
+/// shift in time turns every `c_n` by a phase and leaves its size, so the piece is taken from
+/// 0 to its width `w`: with slope `s`, `w_n = 2 pi n` and `e^(-j w_n w) = zr + j zi`,
+/// `c_n = e^(-j w_n w) (s / w_n^2 + j y1 / w_n) - (s / w_n^2 + j y0 / w_n)`, that is
+/// `Re = a (zr - 1) - b1 zi` and `Im = b1 zr + a zi - b0` with `a = s / w_n^2`,
+/// `b1 = y1 / w_n`, `b0 = y0 / w_n`; and `I_n^2 = 2 |c_n|^2`.
+fn one_piece(p: &Piece, given: Option<&Phasors>) -> Vec<f64> {
+    let width = p.t1 - p.t0;
+    let s = (p.y1 - p.y0) / width;
+    let found;
+    let z = match given {
+        Some(z) => z,
+        None => {
+            found = Phasors::at(width);
+            &found
+        }
+    };
+    let mut out = vec![0.0; HARMONICS];
+    for (k, o) in out.iter_mut().enumerate().take(HARMONICS) {
+        let inv_w = INV_OMEGA[k];
+        let (zr, zi) = (z.re[k], z.im[k]);
+        let (a, b1, b0) = (s * (inv_w * inv_w), p.y1 * inv_w, p.y0 * inv_w);
+        let re = a * (zr - 1.0) - b1 * zi;
+        let im = b1 * zr + a * zi - b0;
+        *o = 2.0 * (re * re + im * im);
+    }
+    out
+}
+
+/// The squared RMS of harmonics 1 to `count` of any waveform: `c_n` for every n at once, one
+/// piece end after the other. The end's phasor `e^(-j 2 pi t)` is raised to the n-th power by
+/// one complex product per harmonic instead of a sin_cos. `re` becomes the squared RMS in
+/// place; `im` stays on the stack.
+fn piece_ends<'a>(
+    w: &Waveform,
+    count: usize,
+    phasors: impl Fn(f64) -> Option<&'a Phasors>,
+) -> Vec<f64> {
     let mut re = vec![0.0; count];
     let mut im_heap = Vec::new();
     let mut im_stack = [0.0; HARMONICS];
@@ -157,11 +232,7 @@ pub fn spectrum_with<'a>(
     for (r, i) in re.iter_mut().zip(im.iter()) {
         *r = 2.0 * (*r * *r + i * i);
     }
-    Spectrum {
-        dc: w.dc(),
-        harmonic_rms_sq: re,
-        rms_sq: w.rms().powi(2),
-    }
+    re
 }
 
 /// `1 / (2 pi n)` for n = 1 to [`HARMONICS`], worked out by the compiler.
@@ -292,89 +363,6 @@ fn add_end(
         }
     }
 }
-
-/// `sqrt(n)` for n = 1 to [`HARMONICS`] (index n - 1), worked out once per process: a
-/// harmonic's D is the fundamental's times it.
-fn harmonic_roots() -> &'static [f64; HARMONICS] {
-    static ROOTS: OnceLock<[f64; HARMONICS]> = OnceLock::new();
-    ROOTS.get_or_init(|| std::array::from_fn(|k| ((k + 1) as f64).sqrt()))
-}
-
-/// Dowell's two terms `(D_n G1(D_n), D_n G2(D_n))` of each harmonic n = 1 to [`HARMONICS`]
-/// (index n - 1) of a layer whose D at the fundamental is `d`: `D_n = d sqrt(n)`.
-pub type HarmonicTerms = [(f64, f64); HARMONICS];
-
-/// The [`HarmonicTerms`] of a layer of D `d`, from the table (to about 1e-7): an exp and a
-/// sin_cos per harmonic were most of a cold evaluation's time. Spectra summed at the same D
-/// share them (`Memo::summed_terms`).
-pub fn fill_harmonic_terms(d: f64, out: &mut HarmonicTerms) {
-    crate::engine::dowell_table::Table::get().fill_terms(d, harmonic_roots(), out);
-}
-
-/// The two Dowell terms of a layer of D `d` (at the fundamental) summed over a spectrum:
-/// `sum_n I_n^2 (D_n G1(D_n), D_n G2(D_n))` with `D_n = d sqrt(n)`, and what Parseval leaves
-/// above the last harmonic taken at the last one's terms. With [`crate::engine::ac::layer_factor_from`]
-/// this gives a layer's share of `waveform_factor` without a loop over harmonics per layer.
-pub fn summed_terms(s: &Spectrum, d: f64) -> (f64, f64) {
-    let mut terms = [(0.0, 0.0); HARMONICS];
-    fill_harmonic_terms(d, &mut terms);
-    summed_terms_with(s, d, &terms)
-}
-
-/// [`summed_terms`] with the harmonics' terms at `d` already found (`fill_harmonic_terms`);
-/// a spectrum longer than [`HARMONICS`] has the terms of the rest worked out here.
-pub fn summed_terms_with(s: &Spectrum, d: f64, terms: &HarmonicTerms) -> (f64, f64) {
-    let floor = 1e-12 * s.rms_sq;
-    let (head, tail) = s
-        .harmonic_rms_sq
-        .split_at(s.harmonic_rms_sq.len().min(HARMONICS));
-    // The harmonics below the floor add nothing (their power counts as zero); the last one
-    // above it gives the terms the rest is taken at.
-    let mut last = head
-        .iter()
-        .rposition(|&p| p > floor)
-        .map_or((1.0, 0.5), |k| terms[k]);
-    // Four running sums of each, side by side, so that the additions do not wait on each
-    // other; added up at the end.
-    let (mut a, mut b, mut summed) = ([0.0; LANES], [0.0; LANES], [0.0; LANES]);
-    let (powers, terms) = (
-        head.chunks_exact(LANES),
-        terms[..head.len()].chunks_exact(LANES),
-    );
-    let (rest_p, rest_t) = (powers.remainder(), terms.remainder());
-    for (p, t) in powers.zip(terms) {
-        for k in 0..LANES {
-            let p = if p[k] > floor { p[k] } else { 0.0 };
-            a[k] += p * t[k].0;
-            b[k] += p * t[k].1;
-            summed[k] += p;
-        }
-    }
-    for (&p, &t) in rest_p.iter().zip(rest_t) {
-        let p = if p > floor { p } else { 0.0 };
-        a[0] += p * t.0;
-        b[0] += p * t.1;
-        summed[0] += p;
-    }
-    let total = |x: [f64; LANES]| (x[0] + x[1]) + (x[2] + x[3]);
-    let (mut a, mut b) = (total(a), total(b));
-    let mut summed = s.dc * s.dc + total(summed);
-    for (k, &p) in tail.iter().enumerate() {
-        if p <= floor {
-            continue;
-        }
-        let n = HARMONICS + k + 1;
-        last = crate::engine::dowell_table::d_terms(d * (n as f64).sqrt());
-        a += p * last.0;
-        b += p * last.1;
-        summed += p;
-    }
-    let rest = (s.rms_sq - summed).max(0.0);
-    (a + rest * last.0, b + rest * last.1)
-}
-
-/// Running sums [`summed_terms_with`] keeps side by side.
-const LANES: usize = 4;
 
 /// `R_eff / R_dc = [I_dc^2 + sum_n I_n^2 F_R(n)] / I_rms^2` (Hurley, Gath and Breslin, IEEE
 /// Trans. Power Electron. 15(2), 2000), with `factor_at(n)` the winding's AC factor at the

@@ -3,7 +3,7 @@
 //! them, as the search's candidates do. It changes no figure: `evaluate` starts an empty one.
 
 use super::ac;
-use super::harmonics::{self, HARMONICS, HarmonicTerms, Phasors, Spectrum, Waveform};
+use super::harmonics::{self, HARMONICS, HarmonicTerms, Phasors, SUM_POINTS, Spectrum, Waveform};
 use std::collections::HashMap;
 use std::hash::{BuildHasherDefault, Hasher};
 
@@ -78,15 +78,13 @@ impl Memo {
         if self.phasors.len() >= PHASORS_KEPT {
             self.phasors.clear();
         }
-        for p in wave.pieces.iter().filter(|p| p.t1 > p.t0) {
-            for t in [p.t1, p.t0] {
-                if t != 0.0 && !self.phasors.iter().any(|(b, _)| *b == t.to_bits()) {
-                    if self.phasors.capacity() == 0 {
-                        // Room for the ends of a primary, a secondary and a reset at once.
-                        self.phasors.reserve(4);
-                    }
-                    self.phasors.push((t.to_bits(), Phasors::at(t)));
+        for t in harmonics::phasor_times(wave) {
+            if !self.phasors.iter().any(|(b, _)| *b == t.to_bits()) {
+                if self.phasors.capacity() == 0 {
+                    // Room for the on-times and reset times of a few waveforms at once.
+                    self.phasors.reserve(4);
                 }
+                self.phasors.push((t.to_bits(), Phasors::at(t)));
             }
         }
         let known = &self.phasors;
@@ -146,7 +144,7 @@ impl Memo {
                     if self.harmonic_terms.capacity() == 0 {
                         self.harmonic_terms.reserve_exact(HARMONIC_TERMS_KEPT);
                     }
-                    self.harmonic_terms.push((bits, [(0.0, 0.0); HARMONICS]));
+                    self.harmonic_terms.push((bits, [(0.0, 0.0); SUM_POINTS]));
                     self.harmonic_terms.len() - 1
                 } else {
                     let i = self.next_terms_slot;

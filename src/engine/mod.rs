@@ -17,6 +17,7 @@ pub mod dowell_table;
 mod evaluation;
 pub mod foil_cut;
 pub mod geometry;
+pub mod harmonic_sum;
 pub mod harmonics;
 pub mod isolation;
 pub mod layout;
