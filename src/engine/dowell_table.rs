@@ -79,20 +79,17 @@ impl Table {
         }
     }
 
-    /// [`Table::d_terms`] of `d x root` for each root, into `out`. The roots are in rising
-    /// order, so when the first and the last product lie on the table every one does and the
-    /// loop needs no test per D.
-    pub fn fill_terms(&self, d: f64, roots: &[f64], out: &mut [(f64, f64)]) {
+    /// `sum_k weights[k] x` [`Table::d_terms`]`(d x roots[k])`, both terms: a harmonic sum in
+    /// one pass, with four running sums side by side so that the additions do not wait on
+    /// each other. The roots are in rising order, so when the first and the last product lie
+    /// on the table every one does and the loop needs no test per D.
+    pub fn weighted_sum(&self, d: f64, roots: &[f64], weights: &[f64]) -> (f64, f64) {
         let on_table = |x: f64| (ac::D_SMALL..END).contains(&x);
         let ends = roots.first().zip(roots.last());
         if ends.is_some_and(|(&lo, &hi)| on_table(d * lo) && on_table(d * hi)) {
-            for (t, &root) in out.iter_mut().zip(roots) {
-                *t = self.on_table(d * root);
-            }
+            lanes(roots, weights, |root| self.on_table(d * root))
         } else {
-            for (t, &root) in out.iter_mut().zip(roots) {
-                *t = self.d_terms(d * root);
-            }
+            lanes(roots, weights, |root| self.d_terms(d * root))
         }
     }
 
@@ -109,6 +106,28 @@ impl Table {
             c[4] + t * (c[5] + t * (c[6] + t * c[7])),
         )
     }
+}
+
+/// `sum_k weights[k] x terms(roots[k])` in four running sums, added up at the end.
+#[inline]
+fn lanes(roots: &[f64], weights: &[f64], terms: impl Fn(f64) -> (f64, f64)) -> (f64, f64) {
+    const LANES: usize = 4;
+    let (mut a, mut b) = ([0.0; LANES], [0.0; LANES]);
+    let (r4, w4) = (roots.chunks_exact(LANES), weights.chunks_exact(LANES));
+    let (r_rest, w_rest) = (r4.remainder(), w4.remainder());
+    for (r, w) in r4.zip(w4) {
+        for k in 0..LANES {
+            let t = terms(r[k]);
+            a[k] += w[k] * t.0;
+            b[k] += w[k] * t.1;
+        }
+    }
+    for (&r, &w) in r_rest.iter().zip(w_rest) {
+        let t = terms(r);
+        a[0] += w * t.0;
+        b[0] += w * t.1;
+    }
+    ((a[0] + a[1]) + (a[2] + a[3]), (b[0] + b[1]) + (b[2] + b[3]))
 }
 
 /// [`ac::d_terms`] from the table: the same `(D G1(D), D G2(D))` to about 1e-7. A loop over
@@ -135,29 +154,29 @@ mod tests {
         }
     }
 
-    /// The batch that fills a layer's harmonics gives each D's terms bit for bit as one
-    /// lookup does: on nodes, between them, at the table's ends and past them.
+    /// The one-pass weighted sum gives what the lookups one by one give, summed plainly: on
+    /// nodes, between them, at the table's ends and past them.
     #[test]
-    fn batch_terms_equal_single_lookups() {
-        let roots: Vec<f64> = (1..=100).map(|n| f64::from(n).sqrt()).collect();
+    fn weighted_sum_equals_single_lookups_summed() {
+        let roots: Vec<f64> = (1..=37).map(|n| f64::from(n).sqrt()).collect();
+        let weights: Vec<f64> = (1..=37).map(|n| 1.0 / f64::from(n * n)).collect();
         let table = Table::get();
-        let mut out = vec![(0.0, 0.0); roots.len()];
-        for d in [
-            0.0,
-            1e-4,
-            0.05,
-            0.1,
-            0.7735,
-            1.3,
-            1.999_999_999,
-            2.0,
-            2.5,
-            30.0,
-        ] {
-            table.fill_terms(d, &roots, &mut out);
-            for (k, (&r, &t)) in roots.iter().zip(&out).enumerate() {
-                assert_eq!(t, table.d_terms(d * r), "D {d}, harmonic {}", k + 1);
+        for d in [0.0, 1e-4, 0.05, 0.1, 0.7735, 1.3, 2.0, 2.5, 3.4, 30.0] {
+            let (a, b) = table.weighted_sum(d, &roots, &weights);
+            let (mut pa, mut pb) = (0.0, 0.0);
+            for (&r, &w) in roots.iter().zip(&weights) {
+                let t = table.d_terms(d * r);
+                pa += w * t.0;
+                pb += w * t.1;
             }
+            assert!(
+                (a - pa).abs() <= 1e-14 * pa.abs(),
+                "a at D {d}: {a} vs {pa}"
+            );
+            assert!(
+                (b - pb).abs() <= 1e-14 * pa.abs(),
+                "b at D {d}: {b} vs {pb}"
+            );
         }
     }
 }

@@ -31,11 +31,7 @@ const BLOCKS: [(usize, usize); 7] = [
     (91, HARMONICS),
 ];
 /// The points a sum takes the terms at: the exact harmonics' and the blocks' nodes.
-pub const SUM_POINTS: usize = EXACT + BLOCKS.len() * PER_BLOCK;
-
-/// Dowell's two terms at each of the [`SUM_POINTS`] of a layer of D `d` (at the fundamental),
-/// as [`fill_harmonic_terms`] finds them; spectra summed at the same D share them.
-pub type HarmonicTerms = [(f64, f64); SUM_POINTS];
+const SUM_POINTS: usize = EXACT + BLOCKS.len() * PER_BLOCK;
 
 /// The points, in rising order, and each interpolated harmonic's weights on its block's
 /// nodes; made once per process.
@@ -132,55 +128,19 @@ impl SumWeights {
     }
 }
 
-/// The [`HarmonicTerms`] of a layer of D `d`, from the table (to about 1e-7).
-pub fn fill_harmonic_terms(d: f64, out: &mut HarmonicTerms) {
-    Table::get().fill_terms(d, &points().roots, out);
-}
-
 /// The two Dowell terms of a layer of D `d` (at the fundamental) summed over a spectrum:
 /// `sum_n I_n^2 (D_n G1(D_n), D_n G2(D_n))` with `D_n = d sqrt(n)`, and what Parseval leaves
 /// above the last harmonic taken at the last one's terms. With [`crate::engine::ac::layer_factor_from`]
 /// this gives a layer's share of `waveform_factor` without a loop over harmonics per layer.
+/// A spectrum of another length than [`HARMONICS`] is summed harmonic by harmonic.
 pub fn summed_terms(s: &Spectrum, d: f64) -> (f64, f64) {
-    match &s.sum_weights {
-        Some(w) => {
-            let mut terms = [(0.0, 0.0); SUM_POINTS];
-            fill_harmonic_terms(d, &mut terms);
-            weighted(w, d, &terms)
-        }
-        None => harmonic_by_harmonic(s, d),
-    }
-}
-
-/// [`summed_terms`] with the terms at `d` already found (`fill_harmonic_terms`). A spectrum
-/// of another length than [`HARMONICS`] is summed harmonic by harmonic.
-pub fn summed_terms_with(s: &Spectrum, d: f64, terms: &HarmonicTerms) -> (f64, f64) {
-    match &s.sum_weights {
-        Some(w) => weighted(w, d, terms),
-        None => harmonic_by_harmonic(s, d),
-    }
-}
-
-/// The points' terms times their weights, in four running sums side by side (so that the
-/// additions do not wait on each other), and the rest at the last harmonic's terms.
-fn weighted(w: &SumWeights, d: f64, terms: &HarmonicTerms) -> (f64, f64) {
-    const LANES: usize = 4;
-    let (mut a, mut b) = ([0.0; LANES], [0.0; LANES]);
-    for (p, t) in w
-        .at_points
-        .chunks_exact(LANES)
-        .zip(terms.chunks_exact(LANES))
-    {
-        for k in 0..LANES {
-            a[k] += p[k] * t[k].0;
-            b[k] += p[k] * t[k].1;
-        }
-    }
-    let total = |x: [f64; LANES]| (x[0] + x[1]) + (x[2] + x[3]);
-    let last = w
-        .last_root
-        .map_or((1.0, 0.5), |r| Table::get().d_terms(d * r));
-    (total(a) + w.rest * last.0, total(b) + w.rest * last.1)
+    let Some(w) = &s.sum_weights else {
+        return harmonic_by_harmonic(s, d);
+    };
+    let table = Table::get();
+    let (a, b) = table.weighted_sum(d, &points().roots, &w.at_points);
+    let last = w.last_root.map_or((1.0, 0.5), |r| table.d_terms(d * r));
+    (a + w.rest * last.0, b + w.rest * last.1)
 }
 
 /// The sum one harmonic at a time, the terms of each from the table: the definition, for a

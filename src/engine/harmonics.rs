@@ -1,9 +1,7 @@
 //! Fourier series of piecewise-linear current waveforms over one period, and the AC factor
 //! of a winding summed over them (Hurley, Gath and Breslin 2000). Pure arithmetic.
 
-pub use super::harmonic_sum::{
-    HarmonicTerms, SUM_POINTS, SumWeights, fill_harmonic_terms, summed_terms, summed_terms_with,
-};
+pub use super::harmonic_sum::{SumWeights, summed_terms};
 use std::f64::consts::PI;
 
 /// Harmonics summed one by one; the power above the last is taken at the last one's factor

@@ -3,7 +3,7 @@
 //! them, as the search's candidates do. It changes no figure: `evaluate` starts an empty one.
 
 use super::ac;
-use super::harmonics::{self, HARMONICS, HarmonicTerms, Phasors, SUM_POINTS, Spectrum, Waveform};
+use super::harmonics::{self, HARMONICS, Phasors, Spectrum, Waveform};
 use std::collections::HashMap;
 use std::hash::{BuildHasherDefault, Hasher};
 
@@ -26,22 +26,13 @@ pub struct Memo {
     /// The last core-loss density asked for, by the bits of its inputs: the candidates of a
     /// search share their operating point, so one entry serves them all.
     core_loss: Option<([u64; 7], f64)>,
-    /// The harmonics' Dowell terms at the last few D's (by their bits), for the spectra
-    /// summed at one D (a primary and its bifilar reset, say): the terms are found once.
-    harmonic_terms: Vec<(u64, HarmonicTerms)>,
-    /// The slot of `harmonic_terms` the next new D takes once it is full.
-    next_terms_slot: usize,
-    /// The phasor powers of the piece ends of the spectra found, by the bits of the end's
-    /// time: a primary, a secondary and a reset share the end at the duty.
+    /// The phasor powers the spectra found asked for (`harmonics::phasor_times`), by the
+    /// bits of the time: a primary and a secondary share their on-time.
     phasors: Vec<(u64, Phasors)>,
 }
 
-/// Piece-end times whose phasor powers are kept: the waveforms of one operating point end
-/// at a few.
+/// Times whose phasor powers are kept: the waveforms of one operating point need a few.
 const PHASORS_KEPT: usize = 64;
-
-/// D's whose harmonics' terms are kept: a round of an evaluation sums at a handful.
-const HARMONIC_TERMS_KEPT: usize = 8;
 
 impl Memo {
     /// An empty memo.
@@ -94,6 +85,10 @@ impl Memo {
                 .find(|(b, _)| *b == t.to_bits())
                 .map(|(_, p)| p)
         });
+        if self.spectra.capacity() == 0 {
+            // A primary, a secondary, a reset and a second output's, in one allocation.
+            self.spectra.reserve(4);
+        }
         self.spectra.push((wave.clone(), spectrum));
         self.spectra.len() - 1
     }
@@ -136,29 +131,7 @@ impl Memo {
         if let Some(t) = self.terms.get(&key) {
             return *t;
         }
-        let bits = d.to_bits();
-        let slot = match self.harmonic_terms.iter().position(|(b, _)| *b == bits) {
-            Some(i) => i,
-            None => {
-                let i = if self.harmonic_terms.len() < HARMONIC_TERMS_KEPT {
-                    if self.harmonic_terms.capacity() == 0 {
-                        self.harmonic_terms.reserve_exact(HARMONIC_TERMS_KEPT);
-                    }
-                    self.harmonic_terms.push((bits, [(0.0, 0.0); SUM_POINTS]));
-                    self.harmonic_terms.len() - 1
-                } else {
-                    let i = self.next_terms_slot;
-                    self.next_terms_slot = (i + 1) % HARMONIC_TERMS_KEPT;
-                    i
-                };
-                let (b, terms) = &mut self.harmonic_terms[i];
-                *b = bits;
-                harmonics::fill_harmonic_terms(d, terms);
-                i
-            }
-        };
-        let terms = &self.harmonic_terms[slot].1;
-        let t = harmonics::summed_terms_with(&self.spectra[spectrum].1, d, terms);
+        let t = harmonics::summed_terms(&self.spectra[spectrum].1, d);
         // One allocation for the handful an evaluation adds, rather than growing 3, 7, 14.
         if self.terms.capacity() == 0 {
             self.terms.reserve(16);
@@ -228,17 +201,17 @@ mod tests {
         }
     }
 
-    /// Two spectra summed at the same D share the harmonics' terms, and more D's than the
-    /// memo keeps terms for still give what a fresh computation gives.
+    /// Two spectra of the same on-time (their phasor powers shared), summed at many D's,
+    /// give what a fresh computation gives.
     #[test]
-    fn shared_harmonic_terms_equal_fresh_ones() {
+    fn spectra_sharing_an_on_time_sum_as_fresh_ones() {
         let waves = [
             Waveform::pulse(2.0, 0.4),
             Waveform::ramp(1.0, 1.5, 0.0, 0.4),
         ];
         let mut memo = Memo::new();
         let ids = waves.each_ref().map(|w| memo.spectrum(w));
-        for i in 0..3 * HARMONIC_TERMS_KEPT {
+        for i in 0..24 {
             let d = 0.2 + 0.37 * i as f64;
             for (w, &s) in waves.iter().zip(&ids) {
                 let fresh = harmonics::summed_terms(&harmonics::spectrum(w, HARMONICS), d);
