@@ -100,39 +100,40 @@ pub(super) fn ac_figures(
         Conductor::Litz(_) => 0.0,
     };
 
+    let window = Window {
+        build,
+        laid,
+        currents,
+        d_of: &d_of,
+    };
     if let (Some(p), Some(s)) = (p, s) {
-        pair_sums(
-            build,
-            laid,
-            (p, s),
-            currents,
-            windings,
-            &mut sums,
-            warnings,
-            memo,
-            &d_of,
-        );
+        pair_sums(&window, (p, s), windings, &mut sums, warnings, memo);
     }
-    unpaired_sums(laid, &mut sums, memo, &d_of);
+    unpaired_sums(&window, &mut sums, memo);
     apply_sums(windings, &sums, delta_mm);
     super::ac_litz::litz_factors(build, windings, &sums, memo, (delta_mm, b_w), warnings);
 }
 
+/// What the AC sums read of the build: the windings as laid in the window, their currents,
+/// and each layer's D at the switching frequency (`d_of(winding, turns in the layer)`).
+struct Window<'a, D: Fn(usize, u32) -> f64> {
+    build: &'a Build,
+    laid: &'a [Laid],
+    currents: &'a [WindingCurrent],
+    d_of: &'a D,
+}
+
 /// The first primary and first secondary under their leakage excitation, and every other
 /// winding in their field; a bifilar primary-secondary pair is skipped with a warning.
-#[allow(clippy::too_many_arguments)]
 fn pair_sums(
-    build: &Build,
-    laid: &[Laid],
+    window: &Window<'_, impl Fn(usize, u32) -> f64>,
     (p, s): (usize, usize),
-    currents: &[WindingCurrent],
     windings: &[WindingEval],
     sums: &mut [AcSums],
     warnings: &mut Vec<Warning>,
     memo: &mut Memo,
-    d_of: &impl Fn(usize, u32) -> f64,
 ) {
-    let bifilar_ps = laid.iter().any(|l| {
+    let bifilar_ps = window.laid.iter().any(|l| {
         matches!(&l.kind, LaidKind::Winding { winding: Some(a), partner: Some(b), .. }
             if (*a == p && *b == s) || (*a == s && *b == p))
     });
@@ -147,21 +148,24 @@ fn pair_sums(
             },
         });
     } else {
-        pair_field(build, laid, (p, s), currents, sums, memo, d_of);
+        pair_field(window, (p, s), sums, memo);
     }
 }
 
 /// The first primary and first secondary under their leakage excitation, the primary's
 /// current driving the field every other winding in the window sits in.
 fn pair_field(
-    build: &Build,
-    laid: &[Laid],
+    window: &Window<'_, impl Fn(usize, u32) -> f64>,
     (p, s): (usize, usize),
-    currents: &[WindingCurrent],
     sums: &mut [AcSums],
     memo: &mut Memo,
-    d_of: &impl Fn(usize, u32) -> f64,
 ) {
+    let Window {
+        build,
+        laid,
+        currents,
+        d_of,
+    } = *window;
     sums[p].paired = true;
     sums[s].paired = true;
     // The primary's current drives the field the other windings sit in: its spectrum
@@ -235,12 +239,12 @@ fn pair_field(
 
 /// Every winding not in the pair: each of its sections alone, from zero MMF at its face.
 fn unpaired_sums(
-    laid: &[Laid],
+    window: &Window<'_, impl Fn(usize, u32) -> f64>,
     sums: &mut [AcSums],
     memo: &mut Memo,
-    d_of: &impl Fn(usize, u32) -> f64,
 ) {
-    for l in laid {
+    let d_of = window.d_of;
+    for l in window.laid {
         let LaidKind::Winding {
             winding,
             partner,
