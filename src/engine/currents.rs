@@ -7,6 +7,7 @@
 
 use super::converter::ConverterEval;
 use super::harmonics::Waveform;
+use super::outputs::OutputAt;
 use crate::model::{Build, Role};
 
 /// Where a winding's RMS current comes from.
@@ -76,8 +77,12 @@ fn role_waveform(
 
 /// Each winding's current. The first winding of each power role gets the operating point's
 /// RMS, and so does every winding that feeds an output (each its own output's current).
-pub fn winding_currents(build: &Build, conv: Option<&ConverterEval>) -> Vec<WindingCurrent> {
-    let feeds = super::outputs::resolve(build);
+/// `feeds` are the build's outputs as [`super::outputs::resolve`] gives them.
+pub fn winding_currents(
+    build: &Build,
+    conv: Option<&ConverterEval>,
+    feeds: &[OutputAt<'_>],
+) -> Vec<WindingCurrent> {
     build
         .windings
         .iter()

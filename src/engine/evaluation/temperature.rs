@@ -1,6 +1,7 @@
 //! The winding temperature the resistances are taken at, and the electrical figures at it.
 
 use super::*;
+use crate::engine::outputs;
 
 /// What depends on the winding temperature: resistances, AC figures, currents, losses.
 pub(super) struct Electrical {
@@ -129,8 +130,10 @@ fn drive(
     valid: bool,
     leakage: &[LeakageEval],
 ) -> Drive {
+    // Which winding feeds each output: the converter and the currents both read them.
+    let feeds = outputs::resolve(build);
     let mut converter = if valid {
-        converter::evaluate(build)
+        converter::evaluate(build, &feeds)
     } else {
         None
     };
@@ -148,15 +151,12 @@ fn drive(
             c.reset_current_density_a_mm2 = c.reset_rms_a.map(|i| i / area);
         }
     }
-    let currents = currents::winding_currents(build, converter.as_ref());
+    let currents = currents::winding_currents(build, converter.as_ref(), &feeds);
     if let Some(c) = converter.as_mut() {
-        for o in c.outputs.iter_mut() {
-            o.current_rms_a = build
-                .windings
-                .iter()
-                .zip(&currents)
-                .find(|(w, _)| w.name == o.winding)
-                .and_then(|(_, c)| c.rms_a);
+        // The outputs' figures follow `feeds` one for one (a valid build names each winding
+        // once), so each output's winding is its feed's.
+        for (o, feed) in c.outputs.iter_mut().zip(&feeds) {
+            o.current_rms_a = currents[feed.winding].rms_a;
         }
     }
     Drive {
