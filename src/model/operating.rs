@@ -81,7 +81,7 @@ impl Operating {
 
     /// [`Operating::outputs_or_shorthand`] one by one, without building the list.
     pub fn output_figures(&self) -> impl Iterator<Item = OutputFigures<'_>> + '_ {
-        let shorthand = self.outputs.is_empty().then(|| OutputFigures {
+        let shorthand = self.outputs.is_empty().then_some(OutputFigures {
             winding: None,
             vout_v: self.vout_v,
             iout_a: self.iout_a,
