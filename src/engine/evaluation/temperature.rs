@@ -55,7 +55,8 @@ pub(super) fn solve_temperature(
     leakage: &[LeakageEval],
     memo: &mut Memo,
 ) -> (f64, TemperatureSource, Electrical) {
-    // The converter and the currents do not depend on the temperature: found once.
+    // The converter, the currents, the windings' cold figures and the core's loss do not
+    // depend on the temperature: found once.
     let drive = drive(build, laid, wires, valid, leakage, memo);
     let at = |t: f64, memo: &mut Memo| electrical(build, laid, wires, &drive, t, memo);
     let (t, source, (windings, losses, ac_warnings)) = fixed_point(build, at, memo);
