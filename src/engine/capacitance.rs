@@ -79,9 +79,9 @@ pub fn evaluate(
         .as_ref()
         .map_or(ResetSide::Primary, |o| o.reset_side);
     let n = build.windings.len();
-    // Energy-weighted sum per winding: C_eq = sum C_sec (N_sec / N)^2.
-    let mut self_sum = vec![0.0f64; n];
-    let mut any_multi = vec![false; n];
+    // Energy-weighted sum per winding: C_eq = sum C_sec (N_sec / N)^2; `None` until a
+    // section of more than one layer adds to it.
+    let mut self_pf: Vec<Option<f64>> = vec![None; n];
     let mut primary_secondary_pf = 0.0;
     // The last winding section: (winding, outer face y).
     let mut last: Option<(usize, f64)> = None;
@@ -121,15 +121,9 @@ pub fn evaluate(
         for i in [Some(k), *partner].into_iter().flatten() {
             let total = f64::from(build.windings[i].turns.max(1));
             let share = f64::from(*turns) / total;
-            self_sum[i] += c_sec * share * share;
-            any_multi[i] = true;
+            *self_pf[i].get_or_insert(0.0) += c_sec * share * share;
         }
     }
-    let self_pf: Vec<Option<f64>> = self_sum
-        .iter()
-        .zip(&any_multi)
-        .map(|(c, m)| m.then_some(*c))
-        .collect();
     let cp = build
         .windings
         .iter()
@@ -149,18 +143,15 @@ pub fn evaluate(
 fn section_self_pf(tube: &Tube, layers: &[Layer], tape_m: f64, enamel_m: f64, b_w: f64) -> f64 {
     let mm = 1e-3;
     // Adjacent layers: both films and the layer tape between, over the MLT at the face.
-    let c_layers: Vec<f64> = layers
-        .windows(2)
-        .map(|p| {
-            let face = p[0].y_mm + p[0].height_mm;
-            let area = mlt_at_mm(tube, face) * mm * b_w;
-            plate_pf(
-                area,
-                &[(tape_m, EPS_R_TAPE), (2.0 * enamel_m, EPS_R_ENAMEL)],
-            )
-        })
-        .collect();
-    let c_l = c_layers.iter().sum::<f64>() / c_layers.len() as f64;
+    let c_layers = layers.windows(2).map(|p| {
+        let face = p[0].y_mm + p[0].height_mm;
+        let area = mlt_at_mm(tube, face) * mm * b_w;
+        plate_pf(
+            area,
+            &[(tape_m, EPS_R_TAPE), (2.0 * enamel_m, EPS_R_ENAMEL)],
+        )
+    });
+    let c_l = c_layers.sum::<f64>() / layers.len().saturating_sub(1) as f64;
     z_winding_pf(c_l, layers.len())
 }
 

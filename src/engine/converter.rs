@@ -2,7 +2,7 @@
 //! switch voltage, duty needed, flux swing, magnetising and reset currents (format spec).
 
 use super::magnetics::{self, AlSource};
-use super::outputs::{self, OutputEval};
+use super::outputs::{self, OutputAt, OutputEval};
 use crate::model::{Build, Operating, ResetSide, Role};
 
 /// The single-switch forward converter's figures at the operating point: turns, duty
@@ -148,13 +148,13 @@ fn duties(
 }
 
 /// `None` when the build has no operating point or lacks what it needs (validation refuses
-/// those builds; this keeps `evaluate` total).
-pub fn evaluate(build: &Build) -> Option<ConverterEval> {
+/// those builds; this keeps `evaluate` total). `feeds` are the build's outputs as
+/// [`outputs::resolve`] gives them.
+pub fn evaluate(build: &Build, feeds: &[OutputAt<'_>]) -> Option<ConverterEval> {
     let op = build.operating.as_ref()?;
     let np = build.first_of(Role::Primary)?.turns;
     // The regulated output's winding sets the duty (the first secondary: validation holds
     // the first [[output]] to it).
-    let feeds = outputs::resolve(build);
     let regulated = feeds.first()?;
     let ns = build.windings[regulated.winding].turns;
     let nr = build.first_of(Role::Reset)?.turns;
@@ -225,7 +225,7 @@ pub fn evaluate(build: &Build) -> Option<ConverterEval> {
         reset_current_density_a_mm2: None,
         duty_used_at_vin_min: duty.used,
         reflected_a,
-        outputs: outputs::evaluate(build),
+        outputs: outputs::evaluate(build, feeds),
     })
 }
 

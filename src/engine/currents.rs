@@ -7,6 +7,7 @@
 
 use super::converter::ConverterEval;
 use super::harmonics::Waveform;
+use super::outputs::OutputAt;
 use crate::model::{Build, Role};
 
 /// Where a winding's RMS current comes from.
@@ -76,8 +77,12 @@ fn role_waveform(
 
 /// Each winding's current. The first winding of each power role gets the operating point's
 /// RMS, and so does every winding that feeds an output (each its own output's current).
-pub fn winding_currents(build: &Build, conv: Option<&ConverterEval>) -> Vec<WindingCurrent> {
-    let feeds = super::outputs::resolve(build);
+/// `feeds` are the build's outputs as [`super::outputs::resolve`] gives them.
+pub fn winding_currents(
+    build: &Build,
+    conv: Option<&ConverterEval>,
+    feeds: &[OutputAt<'_>],
+) -> Vec<WindingCurrent> {
     build
         .windings
         .iter()
@@ -88,21 +93,20 @@ pub fn winding_currents(build: &Build, conv: Option<&ConverterEval>) -> Vec<Wind
                 .find(|o| o.winding == k)
                 .map(|o| o.figures.iout_a);
             let shape = conv.and_then(|c| role_waveform(build, c, w.role, load_a));
+            // The shape's own RMS, before any scaling to the current used.
+            let shape_rms_a = shape.as_ref().map(Waveform::rms);
             let first =
                 build.windings.iter().position(|x| x.role == w.role) == Some(k) || load_a.is_some();
             let sized = w.role != Role::Reset || conv.is_some_and(|c| c.reset_peak_a.is_some());
-            let model_rms_a = shape.as_ref().filter(|_| first && sized).map(Waveform::rms);
+            let model_rms_a = shape_rms_a.filter(|_| first && sized);
             let (rms_a, source) = match (w.current_rms_a, model_rms_a) {
                 (Some(a), _) => (Some(a), Some(CurrentSource::Given)),
                 (None, Some(a)) => (Some(a), Some(CurrentSource::OperatingPoint)),
                 (None, None) => (None, None),
             };
-            let waveform = shape.map(|s| {
-                let r = s.rms();
-                match rms_a {
-                    Some(a) if r > 0.0 => s.scaled(a / r),
-                    _ => s,
-                }
+            let waveform = shape.map(|s| match (rms_a, shape_rms_a) {
+                (Some(a), Some(r)) if r > 0.0 => s.scaled(a / r),
+                _ => s,
             });
             WindingCurrent {
                 rms_a,

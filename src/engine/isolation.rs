@@ -1,7 +1,6 @@
 //! Checks of the stack against the build's declared isolation, as warnings. Pure; it can only
 //! say where the plan falls short of the usual layout, never that a build is safe or compliant.
 
-use super::evaluation::Evaluation;
 use super::remarks::{Warning, WarningAt, WarningKind};
 use super::validate::{Invalid, Place};
 use crate::model::{Build, Insulation, IsolationClass, Role, Section, SectionRef};
@@ -79,24 +78,23 @@ fn windings(s: &SectionWindings) -> impl Iterator<Item = (usize, Side, bool)> + 
     s.iter().flatten().copied()
 }
 
-/// Warnings where the stack as planned cannot hold the declared isolation.
-pub fn warnings(build: &Build, eval: &Evaluation) -> Vec<Warning> {
-    let mut out = Vec::new();
+/// Warnings where the stack as planned cannot hold the declared isolation, added to `out`;
+/// `sections` are the stack's resolved names ([`Build::section_refs`]).
+pub fn warnings(build: &Build, sections: &[SectionRef], out: &mut Vec<Warning>) {
     let Some(iso) = &build.isolation else {
-        return out;
+        return;
     };
     let need = match iso.class {
-        IsolationClass::Functional => return out,
+        IsolationClass::Functional => return,
         IsolationClass::Basic => BASIC_TAPE_WRAPS,
         IsolationClass::Reinforced => REINFORCED_TAPE_WRAPS,
     };
     let class = iso.class;
-    let sections: Vec<SectionWindings> = build
-        .section_refs()
+    let sections: Vec<SectionWindings> = sections
         .iter()
         .map(|s| section_windings(build, s))
         .collect();
-    let name = |k: usize| eval.windings[k].name.clone();
+    let name = |k: usize| build.windings[k].name.clone();
 
     for (i, ws) in sections.iter().enumerate() {
         let has = |side: Side| windings(ws).any(|w| w.1 == side);
@@ -116,7 +114,7 @@ pub fn warnings(build: &Build, eval: &Evaluation) -> Vec<Warning> {
         }
     }
 
-    wraps_warnings(build, eval, &sections, class, need, &mut out);
+    wraps_warnings(build, &sections, class, need, out);
 
     let secondary_all_tiw = build
         .windings
@@ -140,20 +138,18 @@ pub fn warnings(build: &Build, eval: &Evaluation) -> Vec<Warning> {
         }),
         _ => {}
     }
-    out
 }
 
 /// Every pair of a primary-side and a secondary-side section with fewer than `need` wraps of
 /// tape between them (unless one side is wound all in triple-insulated wire).
 fn wraps_warnings(
     build: &Build,
-    eval: &Evaluation,
     sections: &[SectionWindings],
     class: IsolationClass,
     need: u32,
     out: &mut Vec<Warning>,
 ) {
-    let name = |k: usize| eval.windings[k].name.clone();
+    let name = |k: usize| build.windings[k].name.clone();
     // Every pair of a primary-side and a secondary-side section, however far apart.
     for a in 0..sections.len() {
         for b in a + 1..sections.len() {

@@ -54,13 +54,32 @@ pub fn evaluate(
     windings: &[WindingEval],
     memo: &mut Memo,
 ) -> LossEval {
+    with_copper(&without_copper(build, c, memo), windings)
+}
+
+/// The figures of a [`LossEval`] that the windings do not move (the core's loss, the
+/// surface, the limits), found once for every winding temperature tried.
+#[derive(Debug, Clone, PartialEq)]
+pub struct CoreAndLimits {
+    /// (kW/m3, volume mm3, swing mT, duty, reset fraction), as [`core_figures`] gives them.
+    core_figures: Option<(Option<f64>, f64, f64, f64, f64)>,
+    /// The core loss (W), when there is a density.
+    core_loss_w: Option<f64>,
+    /// Given, else estimated from the area product.
+    surface_area_cm2: Option<f64>,
+    /// The surface was estimated.
+    surface_estimated: bool,
+    /// `[operating] ambient_c`, or the default.
+    ambient_c: f64,
+    /// `[operating] rise_limit_c`, or the default.
+    rise_limit_c: f64,
+    /// The lowest thermal class and whose it is.
+    class: (f64, InsulationPart),
+}
+
+/// The [`CoreAndLimits`] of a build at the converter's operating point.
+pub fn without_copper(build: &Build, c: &ConverterEval, memo: &mut Memo) -> CoreAndLimits {
     let op = build.operating.as_ref();
-    let copper_loss_w = windings.iter().filter_map(|w| w.copper_loss_w).sum();
-    let windings_without_current = windings
-        .iter()
-        .filter(|w| w.copper_loss_w.is_none())
-        .map(|w| w.name.clone())
-        .collect();
     let core = build.bobbin.core.as_ref();
 
     // Core loss is largest at the highest input: the same swing (CCM), over a shorter,
@@ -73,7 +92,6 @@ pub fn evaluate(
     let core_loss_w = core_loss_kw_m3
         .zip(core_figures.map(|f| f.1))
         .map(|(p, v)| p * v * 1e-6);
-    let total_loss_w = copper_loss_w + core_loss_w.unwrap_or(0.0);
 
     let given = op.and_then(|o| o.surface_area_cm2);
     let estimated = core.map(|c| {
@@ -82,12 +100,35 @@ pub fn evaluate(
             c.ae_mm2,
         )
     });
-    let surface_area_cm2 = given.or(estimated);
-    let temperature_rise_c = surface_area_cm2.map(|a| thermal::rise_c(total_loss_w, a));
-    let ambient_c = op.and_then(|o| o.ambient_c).unwrap_or(DEFAULT_AMBIENT_C);
     let st = &build.setup;
-    let (class_limit_c, class_binding) =
-        thermal::binding_class(st.wire_class_c, st.tape_class_c, st.bobbin_class_c);
+    CoreAndLimits {
+        core_figures,
+        core_loss_w,
+        surface_area_cm2: given.or(estimated),
+        surface_estimated: given.is_none() && estimated.is_some(),
+        ambient_c: op.and_then(|o| o.ambient_c).unwrap_or(DEFAULT_AMBIENT_C),
+        rise_limit_c: op
+            .and_then(|o| o.rise_limit_c)
+            .unwrap_or(DEFAULT_RISE_LIMIT_C),
+        class: thermal::binding_class(st.wire_class_c, st.tape_class_c, st.bobbin_class_c),
+    }
+}
+
+/// The losses of `windings` (which carry their copper loss already) with the core's.
+pub fn with_copper(fixed: &CoreAndLimits, windings: &[WindingEval]) -> LossEval {
+    let copper_loss_w = windings.iter().filter_map(|w| w.copper_loss_w).sum();
+    let windings_without_current = windings
+        .iter()
+        .filter(|w| w.copper_loss_w.is_none())
+        .map(|w| w.name.clone())
+        .collect();
+    let core_figures = fixed.core_figures;
+    let total_loss_w = copper_loss_w + fixed.core_loss_w.unwrap_or(0.0);
+    let temperature_rise_c = fixed
+        .surface_area_cm2
+        .map(|a| thermal::rise_c(total_loss_w, a));
+    let ambient_c = fixed.ambient_c;
+    let (class_limit_c, class_binding) = fixed.class;
     LossEval {
         ambient_c,
         hot_spot_c: temperature_rise_c.map(|r| ambient_c + r),
@@ -95,19 +136,17 @@ pub fn evaluate(
         class_binding,
         copper_loss_w,
         windings_without_current,
-        core_loss_kw_m3,
-        core_loss_w,
+        core_loss_kw_m3: core_figures.and_then(|f| f.0),
+        core_loss_w: fixed.core_loss_w,
         core_volume_mm3: core_figures.map(|f| f.1),
         core_swing_mt: core_figures.map(|f| f.2),
         core_duty: core_figures.map(|f| f.3),
         core_reset_fraction: core_figures.map(|f| f.4),
         total_loss_w,
-        surface_area_cm2,
-        surface_estimated: given.is_none() && estimated.is_some(),
+        surface_area_cm2: fixed.surface_area_cm2,
+        surface_estimated: fixed.surface_estimated,
         temperature_rise_c,
-        rise_limit_c: op
-            .and_then(|o| o.rise_limit_c)
-            .unwrap_or(DEFAULT_RISE_LIMIT_C),
+        rise_limit_c: fixed.rise_limit_c,
     }
 }
 

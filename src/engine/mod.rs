@@ -68,8 +68,5 @@ pub fn evaluate(build: &Build) -> Evaluation {
 /// `evaluate`, with a memo of its costly pure parts kept by the caller across builds that
 /// share them (the search's candidates). The figures are the same as `evaluate`'s.
 pub fn evaluate_with(build: &Build, memo: &mut memo::Memo) -> Evaluation {
-    let mut eval = evaluation::evaluate(build, memo);
-    let isolation = isolation::warnings(build, &eval);
-    eval.warnings.extend(isolation);
-    eval
+    evaluation::evaluate(build, memo)
 }

@@ -31,8 +31,7 @@ pub fn resolve(build: &Build) -> Vec<OutputAt<'_>> {
     let Some(op) = build.operating.as_ref() else {
         return Vec::new();
     };
-    op.outputs_or_shorthand()
-        .into_iter()
+    op.output_figures()
         .filter_map(|figures| {
             let winding = match figures.winding {
                 None => build
@@ -73,13 +72,13 @@ pub struct OutputEval {
 }
 
 /// The outputs' figures, when the build gives `[[output]]` tables (empty for the shorthand,
-/// whose one output is the regulated one and is shown as before).
-pub fn evaluate(build: &Build) -> Vec<OutputEval> {
+/// whose one output is the regulated one and is shown as before); `outputs` are the build's
+/// as [`resolve`] gives them.
+pub fn evaluate(build: &Build, outputs: &[OutputAt<'_>]) -> Vec<OutputEval> {
     let explicit = build
         .operating
         .as_ref()
         .is_some_and(|op| !op.outputs.is_empty());
-    let outputs = resolve(build);
     let Some(reg) = outputs.first().filter(|_| explicit) else {
         return Vec::new();
     };

@@ -76,23 +76,24 @@ impl Operating {
     /// Every output with its defaults taken, the regulated one first: the `[[output]]`
     /// tables, or the shorthand's one output.
     pub fn outputs_or_shorthand(&self) -> Vec<OutputFigures<'_>> {
-        if self.outputs.is_empty() {
-            return vec![OutputFigures {
-                winding: None,
-                vout_v: self.vout_v,
-                iout_a: self.iout_a,
-                rectifier_drop_v: self.rectifier_drop_v,
-            }];
-        }
-        self.outputs
-            .iter()
-            .map(|o| OutputFigures {
-                winding: Some(&o.winding),
-                vout_v: o.vout_v,
-                iout_a: o.iout_a,
-                rectifier_drop_v: o.rectifier_drop_v.unwrap_or(self.rectifier_drop_v),
-            })
-            .collect()
+        self.output_figures().collect()
+    }
+
+    /// [`Operating::outputs_or_shorthand`] one by one, without building the list.
+    pub fn output_figures(&self) -> impl Iterator<Item = OutputFigures<'_>> + '_ {
+        let shorthand = self.outputs.is_empty().then_some(OutputFigures {
+            winding: None,
+            vout_v: self.vout_v,
+            iout_a: self.iout_a,
+            rectifier_drop_v: self.rectifier_drop_v,
+        });
+        let tables = self.outputs.iter().map(|o| OutputFigures {
+            winding: Some(&o.winding),
+            vout_v: o.vout_v,
+            iout_a: o.iout_a,
+            rectifier_drop_v: o.rectifier_drop_v.unwrap_or(self.rectifier_drop_v),
+        });
+        shorthand.into_iter().chain(tables)
     }
 
     /// The regulated output (the first `[[output]]`, else the shorthand).

@@ -6,6 +6,7 @@ use super::conductor;
 use super::constants::{FIT_TOLERANCE_MM, MM};
 use super::converter::{self, ConverterEval};
 use super::currents::{self, CurrentSource, WindingCurrent};
+use super::isolation;
 use super::layout::{self, Laid, LaidKind};
 use super::leakage;
 use super::limits::{self, CURRENT_DENSITY_BAND_A_MM2, Constraint, Limit};
@@ -309,6 +310,7 @@ pub(super) fn evaluate(build: &Build, memo: &mut Memo) -> Evaluation {
     eval.limits = design_limits(&eval);
     warnings::collect(build, &problems, &mut eval);
     eval.warnings.extend(ac_warnings);
+    isolation::warnings(build, &resolved.sections, &mut eval.warnings);
     eval
 }
 

@@ -1,6 +1,7 @@
 //! The winding temperature the resistances are taken at, and the electrical figures at it.
 
 use super::*;
+use crate::engine::outputs;
 
 /// What depends on the winding temperature: resistances, AC figures, currents, losses.
 pub(super) struct Electrical {
@@ -54,8 +55,9 @@ pub(super) fn solve_temperature(
     leakage: &[LeakageEval],
     memo: &mut Memo,
 ) -> (f64, TemperatureSource, Electrical) {
-    // The converter and the currents do not depend on the temperature: found once.
-    let drive = drive(build, wires, valid, leakage);
+    // The converter, the currents, the windings' cold figures and the core's loss do not
+    // depend on the temperature: found once.
+    let drive = drive(build, laid, wires, valid, leakage, memo);
     let at = |t: f64, memo: &mut Memo| electrical(build, laid, wires, &drive, t, memo);
     let (t, source, (windings, losses, ac_warnings)) = fixed_point(build, at, memo);
     let electrical = Electrical {
@@ -116,21 +118,31 @@ fn fixed_point(
 }
 
 /// What the operating point drives, whatever the temperature: the converter's figures
-/// (with the leakage's toll and the currents' RMS) and each winding's current.
+/// (with the leakage's toll and the currents' RMS) and each winding's current; with each
+/// winding's figures that do not depend on the temperature.
 struct Drive {
     converter: Option<ConverterEval>,
     currents: Vec<WindingCurrent>,
+    /// Every winding with its wire, length and current, its DC resistance left at zero and
+    /// the AC and loss figures unset: what each temperature round starts from.
+    windings: Vec<WindingEval>,
+    /// The core's loss, the surface and the limits of the losses (with a converter).
+    core_and_limits: Option<losses::CoreAndLimits>,
 }
 
 /// The [`Drive`] of a build (no converter for one `validate` refuses).
 fn drive(
     build: &Build,
+    laid: &[Laid],
     wires: &[crate::library::wires::ResolvedWire],
     valid: bool,
     leakage: &[LeakageEval],
+    memo: &mut Memo,
 ) -> Drive {
+    // Which winding feeds each output: the converter and the currents both read them.
+    let feeds = outputs::resolve(build);
     let mut converter = if valid {
-        converter::evaluate(build)
+        converter::evaluate(build, &feeds)
     } else {
         None
     };
@@ -148,20 +160,23 @@ fn drive(
             c.reset_current_density_a_mm2 = c.reset_rms_a.map(|i| i / area);
         }
     }
-    let currents = currents::winding_currents(build, converter.as_ref());
+    let currents = currents::winding_currents(build, converter.as_ref(), &feeds);
     if let Some(c) = converter.as_mut() {
-        for o in c.outputs.iter_mut() {
-            o.current_rms_a = build
-                .windings
-                .iter()
-                .zip(&currents)
-                .find(|(w, _)| w.name == o.winding)
-                .and_then(|(_, c)| c.rms_a);
+        // The outputs' figures follow `feeds` one for one (a valid build names each winding
+        // once), so each output's winding is its feed's.
+        for (o, feed) in c.outputs.iter_mut().zip(&feeds) {
+            o.current_rms_a = currents[feed.winding].rms_a;
         }
     }
+    let windings = cold_windings(build, laid, wires, &currents);
+    let core_and_limits = converter
+        .as_ref()
+        .map(|c| losses::without_copper(build, c, memo));
     Drive {
         converter,
         currents,
+        windings,
+        core_and_limits,
     }
 }
 
@@ -174,17 +189,7 @@ fn electrical(
     temperature_c: f64,
     memo: &mut Memo,
 ) -> AtTemperature {
-    let mut windings = dc_windings(build, laid, wires, temperature_c);
-    let currents = &drive.currents;
-    for (w, c) in windings.iter_mut().zip(currents) {
-        w.current_rms_a = c.rms_a;
-        w.current_source = c.source;
-        w.current_model_rms_a = c.model_rms_a;
-        w.current_density_a_mm2 = c
-            .rms_a
-            .filter(|_| w.copper_area_mm2 > 0.0)
-            .map(|a| a / w.copper_area_mm2);
-    }
+    let mut windings = windings_at(build, wires, &drive.windings, temperature_c);
     let mut ac_warnings = Vec::new();
     if build.setup.frequency_khz.is_some() {
         ac_figures(
@@ -192,7 +197,7 @@ fn electrical(
             laid,
             temperature_c,
             wires,
-            currents,
+            &drive.currents,
             &mut windings,
             &mut ac_warnings,
             memo,
@@ -208,50 +213,71 @@ fn electrical(
         };
     }
     let losses = drive
-        .converter
+        .core_and_limits
         .as_ref()
-        .map(|c| losses::evaluate(build, c, &windings, memo));
+        .map(|fixed| losses::with_copper(fixed, &windings));
     (windings, losses, ac_warnings)
 }
 
-/// Every winding with its wire, length and DC resistance at `temperature_c`; the AC,
-/// current and loss figures left for [`electrical`] to fill in.
-fn dc_windings(
+/// The `cold` windings of [`Drive::windings`] with their DC resistance at `temperature_c`.
+fn windings_at(
+    build: &Build,
+    wires: &[crate::library::wires::ResolvedWire],
+    cold: &[WindingEval],
+    temperature_c: f64,
+) -> Vec<WindingEval> {
+    let breadth = layout::usable_width_mm(build);
+    cold.iter()
+        .zip(&build.windings)
+        .zip(wires)
+        .map(|((e, w), wire)| WindingEval {
+            dcr_ohm: conductor::ohm_per_m(w, wire, breadth, temperature_c) * e.length_m,
+            ..e.clone()
+        })
+        .collect()
+}
+
+/// Every winding with its wire, length and current ([`Drive::windings`]).
+fn cold_windings(
     build: &Build,
     laid: &[Laid],
     wires: &[crate::library::wires::ResolvedWire],
-    temperature_c: f64,
+    currents: &[WindingCurrent],
 ) -> Vec<WindingEval> {
+    let breadth = layout::usable_width_mm(build);
     build
         .windings
         .iter()
+        .zip(wires)
+        .zip(currents)
         .enumerate()
-        .map(|(i, w)| {
-            let breadth = layout::usable_width_mm(build);
-            let copper_area_mm2 = conductor::copper_area_mm2(w, &wires[i], breadth);
+        .map(|(i, ((w, wire), c))| {
+            let copper_area_mm2 = conductor::copper_area_mm2(w, wire, breadth);
             let length_mm = winding_length_mm(laid, i);
-            let length_m = length_mm * MM;
             WindingEval {
                 name: w.name.clone(),
                 role: w.role,
                 turns: w.turns,
                 strands: w.strands,
-                bare_mm: wires[i].bare_mm,
-                od_mm: wires[i].od_mm,
+                bare_mm: wire.bare_mm,
+                od_mm: wire.od_mm,
                 copper_area_mm2,
-                length_m,
+                length_m: length_mm * MM,
                 mlt_mm: if w.turns > 0 {
                     length_mm / f64::from(w.turns)
                 } else {
                     0.0
                 },
-                dcr_ohm: conductor::ohm_per_m(w, &wires[i], breadth, temperature_c) * length_m,
-                conductor: conductor::figures(w, &wires[i], breadth),
+                dcr_ohm: 0.0,
+                conductor: conductor::figures(w, wire, breadth),
                 ac: None,
-                current_density_a_mm2: None,
-                current_rms_a: None,
-                current_source: None,
-                current_model_rms_a: None,
+                current_density_a_mm2: c
+                    .rms_a
+                    .filter(|_| copper_area_mm2 > 0.0)
+                    .map(|a| a / copper_area_mm2),
+                current_rms_a: c.rms_a,
+                current_source: c.source,
+                current_model_rms_a: c.model_rms_a,
                 copper_loss_w: None,
                 layer_voltage_v: None,
                 proximity_loss_w: None,
