@@ -7,8 +7,10 @@
 //!   `engine::evaluate` starts an empty memo on every call, so nothing is reused.
 //! - `evaluate_demo_warm`, `evaluate_example_warm`: `evaluate_with` and one memo kept across
 //!   the calls, as the search's candidates share it (every spectrum and harmonic sum found).
-//! - `harmonic_sum`: the piece that dominates a cold evaluate, one waveform's harmonic-summed
-//!   Dowell terms at one D (100 harmonics), and the spectrum it sums over.
+//! - `harmonic_sum`, `spectrum`: the two pieces a cold evaluate adds to a warm one, one
+//!   waveform's harmonic-summed Dowell terms at one D (forty points standing for 100
+//!   harmonics, `engine::harmonic_sum`), and the spectrum it sums over. A cold evaluation of
+//!   an example finds three spectra and four or five sums.
 
 use std::path::Path;
 use turnstack::engine::harmonics::{self, HARMONICS, Waveform};
