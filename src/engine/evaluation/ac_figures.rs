@@ -52,19 +52,31 @@ impl AcSums {
     }
 }
 
-/// AC factors per the spec: the first primary and first secondary under their leakage
-/// excitation, every other winding section by section from zero MMF.
-#[allow(clippy::too_many_arguments)]
+/// What the AC figures are found from, the same at every temperature: the build, its
+/// sections as laid, each winding's wire and current.
+pub(super) struct AcInputs<'a> {
+    pub(super) build: &'a Build,
+    pub(super) laid: &'a [Laid],
+    pub(super) wires: &'a [crate::library::wires::ResolvedWire],
+    pub(super) currents: &'a [WindingCurrent],
+}
+
+/// AC factors per the spec at the winding temperature `temperature_c`: the first primary and
+/// first secondary under their leakage excitation, every other winding section by section
+/// from zero MMF. Into each winding's figures, with the warnings they raise.
 pub(super) fn ac_figures(
-    build: &Build,
-    laid: &[Laid],
+    inputs: &AcInputs<'_>,
     temperature_c: f64,
-    wires: &[crate::library::wires::ResolvedWire],
-    currents: &[WindingCurrent],
     windings: &mut [WindingEval],
     warnings: &mut Vec<Warning>,
     memo: &mut Memo,
 ) {
+    let AcInputs {
+        build,
+        laid,
+        wires,
+        currents,
+    } = *inputs;
     let Some(f_khz) = build.setup.frequency_khz else {
         return;
     };

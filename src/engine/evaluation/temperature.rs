@@ -192,12 +192,15 @@ fn electrical(
     let mut windings = windings_at(build, wires, &drive.windings, temperature_c);
     let mut ac_warnings = Vec::new();
     if build.setup.frequency_khz.is_some() {
-        ac_figures(
+        let inputs = super::ac_figures::AcInputs {
             build,
             laid,
-            temperature_c,
             wires,
-            &drive.currents,
+            currents: &drive.currents,
+        };
+        ac_figures(
+            &inputs,
+            temperature_c,
             &mut windings,
             &mut ac_warnings,
             memo,
