@@ -109,3 +109,75 @@ fn an_impossible_switch_rating_is_named_under_the_form() {
     let s = render(&app, 80, 24).join(" ");
     assert!(s.contains("switch rating"), "{s}");
 }
+
+/// A second output typed into the form: the design winds it on its own secondary S2, and the
+/// turns give it `V2 = (N2 / N1)(V1 + Vd) - Vd` (a forward converter's outputs share the
+/// volts per turn while the switch is on; common practice) within 5 % of its target. Clearing
+/// its voltage returns the form to one output.
+#[test]
+fn a_second_output_typed_in_the_form_gets_its_own_secondary() {
+    let mut app = bench_app();
+    press(&mut app, "N<down><enter>");
+    // Rows: lowest input, highest input, output voltage, output current, then the second's.
+    press(&mut app, "<down><down><down><down><enter>");
+    press(&mut app, &"<bs>".repeat(20));
+    press(&mut app, "12<enter>");
+    press(&mut app, "<down><enter>");
+    press(&mut app, &"<bs>".repeat(20));
+    press(&mut app, "0.3<enter>");
+    let mut req = app.ui.needs.clone().unwrap();
+    let outs = &req.operating.outputs;
+    assert_eq!(outs.len(), 2, "{outs:?}");
+    assert_eq!(
+        (outs[1].winding.as_str(), outs[1].vout_v, outs[1].iout_a),
+        ("S2", 12.0, 0.3)
+    );
+    assert_eq!(outs[0].vout_v, req.operating.vout_v);
+    req.bobbins = Some(vec!["etd29".into()]);
+    app.ui.needs = Some(req.clone());
+    press(&mut app, &"<down>".repeat(20));
+    for e in press(&mut app, "<enter>") {
+        perform(&mut app, e);
+    }
+    finish_job(&mut app);
+    press(&mut app, "<enter>");
+    let b = &app.doc.build;
+    let turns_of = |name: &str| {
+        b.windings
+            .iter()
+            .find(|w| w.name.as_str() == name)
+            .map(|w| w.turns)
+    };
+    let (n1, n2) = (turns_of("S").unwrap(), turns_of("S2").unwrap());
+    let vd = req.operating.rectifier_drop_v;
+    let v2 = f64::from(n2) / f64::from(n1) * (req.operating.vout_v + vd) - vd;
+    assert!(
+        (v2 - 12.0).abs() <= 0.05 * 12.0,
+        "S {n1} turns, S2 {n2}: {v2} V"
+    );
+}
+
+/// Clearing the second output's voltage in the form returns it to one output, and the second
+/// current cannot be typed before a second voltage.
+#[test]
+fn clearing_the_second_output_leaves_one() {
+    let mut app = bench_app();
+    press(&mut app, "N<down><enter>");
+    press(&mut app, "<down><down><down><down><down><enter>");
+    press(&mut app, "1<enter>");
+    assert!(app.ui.needs.as_ref().unwrap().operating.outputs.is_empty());
+    assert!(status(&app).contains("voltage first"), "{}", status(&app));
+    press(&mut app, "<up><enter>");
+    press(&mut app, &"<bs>".repeat(20));
+    press(&mut app, "12<enter>");
+    assert_eq!(
+        app.ui.needs.as_ref().unwrap().operating.outputs.len(),
+        2,
+        "{}",
+        screen(&app, 80, 24)
+    );
+    press(&mut app, "<enter>");
+    press(&mut app, &"<bs>".repeat(20));
+    press(&mut app, "<enter>");
+    assert!(app.ui.needs.as_ref().unwrap().operating.outputs.is_empty());
+}

@@ -1,10 +1,10 @@
 //! The "from requirements" form: what a user knows of the converter before any turns (one
-//! output; a converter with several goes in a requirements file), then a row that runs the
-//! design over the planner's bobbin library.
+//! or two outputs; a converter with more goes in a requirements file), then a row that runs
+//! the design over the planner's bobbin library.
 
-use super::{Ctx, Enter, FieldSpec, number, opt, optional};
+use super::{Ctx, Enter, FieldSpec, num_text, number, opt, optional};
 use crate::library::materials::FERRITES;
-use crate::model::Requirements;
+use crate::model::{Operating, Output, Requirements};
 use crate::tui::app::{App, Effect};
 use crate::tui::edit::Refusal;
 
@@ -48,6 +48,49 @@ macro_rules! need {
     };
 }
 
+/// A second output of `vout_v`: the one-output shorthand becomes two `[[output]]`s (the
+/// regulated one on S, the new one on S2, at a tenth of the regulated current until the
+/// user types its own); with two already, the second takes the voltage.
+fn set_second_output(op: &mut Operating, vout_v: f64) {
+    if let Some(o) = op.outputs.get_mut(1) {
+        o.vout_v = vout_v;
+        return;
+    }
+    if op.outputs.is_empty() {
+        op.outputs.push(Output {
+            winding: "S".into(),
+            vout_v: op.vout_v,
+            iout_a: op.iout_a,
+            rectifier_drop_v: None,
+        });
+    }
+    let taken = |n: &str| op.outputs.iter().any(|o| o.winding == n);
+    let name = ["S2", "S3", "SEC2"]
+        .into_iter()
+        .find(|n| !taken(n))
+        .unwrap_or("S2");
+    op.outputs.push(Output {
+        winding: name.into(),
+        vout_v,
+        iout_a: 0.1 * op.iout_a,
+        rectifier_drop_v: None,
+    });
+}
+
+/// No second output: it goes, and a lone regulated output made by the form (on S, with
+/// the shared rectifier drop) turns back into the one-output shorthand.
+fn drop_second_output(op: &mut Operating) {
+    if op.outputs.len() > 1 {
+        op.outputs.remove(1);
+    }
+    if let [o] = op.outputs.as_slice()
+        && o.winding == "S"
+        && o.rectifier_drop_v.is_none()
+    {
+        op.outputs.clear();
+    }
+}
+
 /// The next bundled ferrite after the one the requirements name.
 fn next_ferrite(app: &mut App, _: usize) {
     let Some(r) = app.ui.needs.as_mut() else {
@@ -87,7 +130,7 @@ pub static FIELDS: &[FieldSpec] = &[
     ),
     need!(
         "output voltage",
-        "V; one output here (several: a requirements file)",
+        "V; the regulated output",
         |r| format!("{} V", r.operating.vout_v),
         |r| r.operating.vout_v.to_string(),
         |r, t| {
@@ -106,6 +149,34 @@ pub static FIELDS: &[FieldSpec] = &[
             let i = positive(t)?;
             let v = r.operating.vout_v;
             r.operating.set_regulated(v, i);
+            Ok(())
+        }
+    ),
+    need!(
+        "second output voltage",
+        "V, its own secondary S2; empty: one output (more: a requirements file)",
+        |r| opt(r.operating.outputs.get(1).map(|o| o.vout_v), "V"),
+        |r| num_text(r.operating.outputs.get(1).map(|o| o.vout_v)),
+        |r, t| {
+            match optional(t)? {
+                Some(v) if v > 0.0 => set_second_output(&mut r.operating, v),
+                Some(v) => return Err(format!("expected a number above 0, got {v}")),
+                None => drop_second_output(&mut r.operating),
+            }
+            Ok(())
+        }
+    ),
+    need!(
+        "second output current",
+        "A, the second output's full load",
+        |r| opt(r.operating.outputs.get(1).map(|o| o.iout_a), "A"),
+        |r| num_text(r.operating.outputs.get(1).map(|o| o.iout_a)),
+        |r, t| {
+            let i = positive(t)?;
+            match r.operating.outputs.get_mut(1) {
+                Some(o) => o.iout_a = i,
+                None => return Err("give the second output's voltage first".into()),
+            }
             Ok(())
         }
     ),

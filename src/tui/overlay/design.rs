@@ -135,12 +135,20 @@ impl App {
             return;
         }
         let n_found = outcome.designs.len();
+        // As wide as the longest turns (four windings with a second output), never cut.
+        let turns_w = outcome
+            .designs
+            .iter()
+            .map(|d| words::turns_text(d).chars().count())
+            .max()
+            .unwrap_or(0)
+            .max("turns".len());
         let items = outcome
             .designs
             .into_iter()
             .enumerate()
             .map(|(n, d)| PickItem {
-                label: design_row(&d),
+                label: design_row(&d, turns_w),
                 value: PickValue::Design {
                     n,
                     design: Box::new(d),
@@ -148,7 +156,7 @@ impl App {
             })
             .collect();
         let header = format!(
-            "{:<10} {:<9} {:>5} {:>5} {:>6} {:>6} {:>5} binds (margin left)",
+            "{:<10} {:<turns_w$} {:>5} {:>5} {:>6} {:>6} {:>5} binds (margin left)",
             "bobbin", "turns", "Nr/Np", "Vsw V", "loss W", "rise C", "spare"
         );
         let title = format!(
@@ -204,15 +212,16 @@ impl App {
             return vec![format!("Nothing meets them: {why}")];
         }
         vec![
-            "One output here; a converter with several outputs goes in a requirements file \
-             ([[output]] tables) for `turnstack design`."
+            "One or two outputs here (a second on its own secondary, S2); three or more go in \
+             a requirements file ([[output]] tables) for `turnstack design`."
                 .into(),
         ]
     }
 }
 
-/// One design as a list line, the CLI's figures in narrower columns.
-fn design_row(d: &Design) -> String {
+/// One design as a list line, the CLI's figures in narrower columns, the turns in a column
+/// `turns_w` wide.
+fn design_row(d: &Design, turns_w: usize) -> String {
     let c = d.eval.converter.as_ref();
     let rise = d
         .eval
@@ -221,9 +230,9 @@ fn design_row(d: &Design) -> String {
         .and_then(|l| l.temperature_rise_c)
         .map_or("-".to_string(), |r| format!("{r:.0}"));
     format!(
-        "{:<10} {:<9} {:>5.2} {:>5.1} {:>6.2} {:>6} {:>5.2} {}",
+        "{:<10} {:<turns_w$} {:>5.2} {:>5.1} {:>6.2} {:>6} {:>5.2} {}",
         crate::report::textfmt::truncate(&d.bobbin, 10),
-        crate::report::textfmt::truncate(&words::turns_text(d), 9),
+        words::turns_text(d),
         words::reset_ratio(d),
         c.map_or(0.0, |c| c.switch_voltage_v),
         d.total_loss_w,
