@@ -16,12 +16,13 @@ const END: f64 = STEP * NODES as f64;
 const SLOPE_STEP: f64 = 1e-4;
 
 /// The intervals between the nodes, each as the two cubics in `t` (0 at the node below, 1 at
-/// the one above) that Hermite interpolation from the nodes' terms and slopes makes:
-/// `[a0, a1, a2, a3, b0, b1, b2, b3]` with `a(t) = a0 + t (a1 + t (a2 + t a3))`. One cache
-/// line per interval, read in one go, and two Horner steps instead of the Hermite weights.
+/// the one above) that Hermite interpolation from the nodes' terms and slopes makes, their
+/// coefficients side by side: `[[a0, b0], [a1, b1], [a2, b2], [a3, b3]]` with
+/// `a(t) = a0 + t (a1 + t (a2 + t a3))`. One cache line per interval, read in one go, and the
+/// two Horner steps taken together, a pair of terms at a time.
 #[derive(Debug)]
 pub struct Table {
-    intervals: [[f64; 8]; NODES],
+    intervals: [[[f64; 2]; 4]; NODES],
 }
 
 /// One term's cubic between two nodes, from its values `y0`, `y1` and slopes `m0`, `m1` (per
@@ -52,14 +53,13 @@ impl Table {
                     [a, b, (a_hi - a_lo) * k, (b_hi - b_lo) * k]
                 }
             };
-            let mut intervals = [[0.0; 8]; NODES];
+            let mut intervals = [[[0.0; 2]; 4]; NODES];
             let mut lo = node(0);
             for (i, cubics) in intervals.iter_mut().enumerate() {
                 let hi = node(i + 1);
                 let a = hermite_cubic(lo[0], lo[2], hi[0], hi[2]);
                 let b = hermite_cubic(lo[1], lo[3], hi[1], hi[3]);
-                cubics[..4].copy_from_slice(&a);
-                cubics[4..].copy_from_slice(&b);
+                *cubics = std::array::from_fn(|k| [a[k], b[k]]);
                 lo = hi;
             }
             Box::new(Table { intervals })
@@ -100,11 +100,9 @@ impl Table {
         // u < NODES, so the interval is at most the last one.
         let i = (u as u32).min(NODES as u32 - 1) as usize;
         let t = u - i as f64;
-        let c = &self.intervals[i];
-        (
-            c[0] + t * (c[1] + t * (c[2] + t * c[3])),
-            c[4] + t * (c[5] + t * (c[6] + t * c[7])),
-        )
+        let [c0, c1, c2, c3] = &self.intervals[i];
+        let pair = |k: usize| c0[k] + t * (c1[k] + t * (c2[k] + t * c3[k]));
+        (pair(0), pair(1))
     }
 }
 
