@@ -105,6 +105,9 @@ fn winding_temperature_is_ambient_plus_the_rise_it_causes() {
         1e-3,
         "T = ambient + rise",
     );
+    // To the tolerance FORMAT.md gives the solution: 0.01 C.
+    let gap = (solved.temperature_c - (30.0 + rise)).abs();
+    assert!(gap < 0.01, "T is {gap} C off ambient + rise");
     assert_rel(l.hot_spot_c.unwrap(), 30.0 + rise, 1e-3, "hot spot");
     // The same build at a given 20 C: the DC resistance scales by IEC 60028's law.
     let (_, at20) = eval(&spike_build("temperature_c = 20", op));

@@ -106,15 +106,30 @@ fn fixed_point(
             }
         };
     }
+    // The round before: its temperature and how far the rise there moved it.
+    let mut before: Option<(f64, f64)> = None;
     for _ in 0..TEMPERATURE_ROUNDS {
         let next = (ambient + rise(&e).unwrap_or(0.0)).min(TEMPERATURE_CEILING_C);
-        if (next - t).abs() < TEMPERATURE_TOLERANCE_C {
+        let moved = next - t;
+        if moved.abs() < TEMPERATURE_TOLERANCE_C {
             break;
         }
-        t = next;
+        let step = before.and_then(|b| secant_step((t, moved), b));
+        before = Some((t, moved));
+        // Never below the ambient, never past the ceiling.
+        t = step.unwrap_or(next).max(ambient).min(TEMPERATURE_CEILING_C);
         e = at(t, memo);
     }
     (t, TemperatureSource::AmbientPlusRise, e)
+}
+
+/// Where the line through two rounds `(T, moved)` crosses `moved = 0`: the fixed point to
+/// second order, as the rise is nearly straight in `T` over a round's step. `None` where the
+/// two rounds do not show a contraction (the slope of `moved` in `T` must lie between -2 and
+/// 0, i.e. the rise's between -1 and 1): the plain step is taken then.
+fn secant_step((t, moved): (f64, f64), (t_before, moved_before): (f64, f64)) -> Option<f64> {
+    let slope = (moved - moved_before) / (t - t_before);
+    (slope > -2.0 && slope < 0.0).then(|| t - moved / slope)
 }
 
 /// What the operating point drives, whatever the temperature: the converter's figures
@@ -287,4 +302,34 @@ fn cold_windings(
             }
         })
         .collect()
+}
+
+#[cfg(test)]
+mod tests {
+    use super::secant_step;
+
+    /// For a rise straight in T, `rise = r0 + k (T - a)`, the fixed point of
+    /// `T = a + rise` is `a + r0 / (1 - k)` (solved by hand), and one secant step through any
+    /// two rounds lands on it.
+    #[test]
+    fn a_secant_step_solves_a_straight_rise_at_once() {
+        let (a, r0, k) = (40.0, 50.0, 0.07);
+        let moved = |t: f64| a + r0 + k * (t - a) - t;
+        let exact = a + r0 / (1.0 - k);
+        let (t0, t1) = (a, a + r0);
+        let step = secant_step((t1, moved(t1)), (t0, moved(t0))).unwrap();
+        assert!((step - exact).abs() < 1e-9, "{step} vs {exact}");
+    }
+
+    /// Two rounds that do not contract (the rise growing faster than T, or the slope lost
+    /// to a repeated T) give no secant step: the plain step is taken.
+    #[test]
+    fn no_secant_step_without_a_contraction() {
+        // moved rises with T: slope +0.5.
+        assert_eq!(secant_step((50.0, 5.0), (40.0, 0.0)), None);
+        // Slope -3: the rise falls by more than T rises.
+        assert_eq!(secant_step((50.0, -25.0), (40.0, 5.0)), None);
+        // The same T twice: no slope at all.
+        assert_eq!(secant_step((40.0, 1.0), (40.0, 2.0)), None);
+    }
 }
