@@ -189,6 +189,20 @@ fn design_out_refuses_an_existing_file_without_force() {
 fn ctrl_c_stops_a_design_and_writes_nothing() {
     let dir = tempfile::tempdir().unwrap();
     let out = dir.path().join("picked.toml");
+    // Sixteen more copies of every bundled bobbin, so that the design is still running when
+    // the signal comes however fast the machine (the bundled library alone takes under a
+    // second even in a test build).
+    let many = dir.path().join("many");
+    std::fs::create_dir(&many).unwrap();
+    for entry in std::fs::read_dir("bobbins").unwrap() {
+        let path = entry.unwrap().path();
+        if path.extension().is_some_and(|e| e == "toml") {
+            let stem = path.file_stem().unwrap().to_string_lossy().into_owned();
+            for k in 0..16 {
+                std::fs::copy(&path, many.join(format!("copy{k}-{stem}.toml"))).unwrap();
+            }
+        }
+    }
     let child = Command::new(env!("CARGO_BIN_EXE_turnstack"))
         .args([
             "design",
@@ -196,14 +210,14 @@ fn ctrl_c_stops_a_design_and_writes_nothing() {
             "--out",
         ])
         .arg(&out)
-        .args(["--pick", "1"])
+        .args(["--pick", "1", "--bobbins"])
+        .arg(&many)
         .env("TURNSTACK_BOBBINS", "/nonexistent-turnstack-test-dir")
         .stdout(std::process::Stdio::piped())
         .stderr(std::process::Stdio::piped())
         .spawn()
         .unwrap();
-    // A design over the library takes seconds in a test build; the handler is set up after
-    // the requirements are read, a few milliseconds in.
+    // The handler is set up after the requirements are read, a few milliseconds in.
     std::thread::sleep(std::time::Duration::from_millis(1000));
     let killed = Command::new("kill")
         .args(["-INT", &child.id().to_string()])

@@ -87,8 +87,8 @@ fn the_sweep_at_the_builds_nr_is_the_evaluations() {
     assert!(reset_sweep(&b).is_none());
 }
 
-/// A search whose cancel flag is already set returns at once with `Cancelled`, and the build
-/// it was given is unchanged; with the flag clear the same search finds candidates.
+/// A search whose cancel flag is already set returns `Cancelled` before trying anything, and
+/// the build it was given is unchanged; with the flag clear the same search finds candidates.
 #[test]
 fn a_cancelled_search_returns_promptly_and_leaves_the_build() {
     use std::sync::atomic::AtomicBool;
@@ -96,14 +96,12 @@ fn a_cancelled_search_returns_promptly_and_leaves_the_build() {
     let b = turnstack::files::demo_build().unwrap();
     let before = b.clone();
     let settings = Settings::default();
-    let started = std::time::Instant::now();
     let r = search_cancellable(&b, &settings, &|_, _| {}, &AtomicBool::new(true));
+    // Promptly: not one combination was evaluated (counted, not timed).
     assert!(
         matches!(r, Err(SearchError::Cancelled { tried: 0, .. })),
         "{r:?}"
     );
-    // Well under the whole search, whatever the machine: no combination was evaluated.
-    assert!(started.elapsed() < std::time::Duration::from_secs(2));
     assert_eq!(b, before);
     let r = search_cancellable(&b, &settings, &|_, _| {}, &AtomicBool::new(false));
     assert!(!r.unwrap().candidates.is_empty());
