@@ -181,3 +181,49 @@ fn clearing_the_second_output_leaves_one() {
     press(&mut app, "<enter>");
     assert!(app.ui.needs.as_ref().unwrap().operating.outputs.is_empty());
 }
+
+/// A bobbin id longer than the bundled ones (a user's own, fourteen characters) shows whole
+/// in the designs list, and the columns after it line up with the header's.
+#[test]
+fn a_long_bobbin_id_shows_whole_in_the_designs_list() {
+    let mut app = bench_app();
+    let mut own = app
+        .library
+        .iter()
+        .find(|e| e.id == "e25-13-7")
+        .cloned()
+        .unwrap();
+    own.id = "my-e25-rewound".into();
+    app.library.push(own);
+    press(&mut app, "N<down><enter>");
+    let mut req = app.ui.needs.clone().unwrap();
+    req.bobbins = Some(vec!["my-e25-rewound".into()]);
+    app.ui.needs = Some(req);
+    press(&mut app, &"<down>".repeat(20));
+    for e in press(&mut app, "<enter>") {
+        perform(&mut app, e);
+    }
+    finish_job(&mut app);
+    let lines = render(&app, 80, 24);
+    let header = lines
+        .iter()
+        .find(|l| l.contains("bobbin") && l.contains("turns"))
+        .unwrap_or_else(|| panic!("{}", lines.join("\n")));
+    let row = lines
+        .iter()
+        .find(|l| l.contains("my-e25-rewound"))
+        .unwrap_or_else(|| panic!("{}", lines.join("\n")));
+    // The turns start where the header's "turns" does: right after the id and one space.
+    let col = |l: &str, s: &str| l.find(s).map(|b| l[..b].chars().count());
+    let turns_at = col(header, "turns").unwrap();
+    let id_at = col(row, "my-e25-rewound").unwrap();
+    assert!(
+        turns_at >= id_at + "my-e25-rewound ".len(),
+        "{header}\n{row}"
+    );
+    let after_id: String = row.chars().skip(turns_at).take(1).collect();
+    assert!(
+        after_id.chars().all(|c| c.is_ascii_digit()),
+        "the turns sit under their header:\n{header}\n{row}"
+    );
+}

@@ -7,9 +7,11 @@ use crate::engine::design::{Design, DesignOutcome, DesignSettings};
 use crate::engine::search::Settings;
 use crate::model::{Bobbin, Requirements};
 use crate::report::design as words;
+use crate::report::textfmt::pad;
 use crate::tui::app::App;
 use crate::tui::fields::FormKind;
 use crate::tui::job::Job;
+use unicode_width::UnicodeWidthStr;
 
 impl App {
     /// How to start a new build: on a bobbin of the library, or from requirements.
@@ -143,12 +145,21 @@ impl App {
             .max()
             .unwrap_or(0)
             .max("turns".len());
+        // As wide as the longest bobbin id, up to a limit that leaves the figures on screen.
+        let bobbin_w = outcome
+            .designs
+            .iter()
+            .map(|d| d.bobbin.width())
+            .max()
+            .unwrap_or(0)
+            .clamp("bobbin".len(), BOBBIN_COLUMN_MAX);
+        let widths = (bobbin_w, turns_w);
         let items = outcome
             .designs
             .into_iter()
             .enumerate()
             .map(|(n, d)| PickItem {
-                label: design_row(&d, turns_w),
+                label: design_row(&d, widths),
                 value: PickValue::Design {
                     n,
                     design: Box::new(d),
@@ -156,8 +167,14 @@ impl App {
             })
             .collect();
         let header = format!(
-            "{:<10} {:<turns_w$} {:>5} {:>5} {:>6} {:>6} {:>5} binds (margin left)",
-            "bobbin", "turns", "Nr/Np", "Vsw V", "loss W", "rise C", "spare"
+            "{} {:<turns_w$} {:>5} {:>5} {:>6} {:>6} {:>5} binds (margin left)",
+            pad("bobbin", bobbin_w),
+            "turns",
+            "Nr/Np",
+            "Vsw V",
+            "loss W",
+            "rise C",
+            "spare"
         );
         let title = format!(
             "{}: {n_found} of {} bobbins meet it all (spare in mm)",
@@ -219,9 +236,12 @@ impl App {
     }
 }
 
-/// One design as a list line, the CLI's figures in narrower columns, the turns in a column
-/// `turns_w` wide.
-fn design_row(d: &Design, turns_w: usize) -> String {
+/// Display columns the designs list gives a bobbin id at most; a longer one is cut.
+const BOBBIN_COLUMN_MAX: usize = 16;
+
+/// One design as a list line, the CLI's figures in narrower columns, the bobbin id and the
+/// turns in columns `bobbin_w` and `turns_w` wide.
+fn design_row(d: &Design, (bobbin_w, turns_w): (usize, usize)) -> String {
     let c = d.eval.converter.as_ref();
     let rise = d
         .eval
@@ -230,8 +250,8 @@ fn design_row(d: &Design, turns_w: usize) -> String {
         .and_then(|l| l.temperature_rise_c)
         .map_or("-".to_string(), |r| format!("{r:.0}"));
     format!(
-        "{:<10} {:<turns_w$} {:>5.2} {:>5.1} {:>6.2} {:>6} {:>5.2} {}",
-        crate::report::textfmt::truncate(&d.bobbin, 10),
+        "{} {:<turns_w$} {:>5.2} {:>5.1} {:>6.2} {:>6} {:>5.2} {}",
+        pad(&d.bobbin, bobbin_w),
         words::turns_text(d),
         words::reset_ratio(d),
         c.map_or(0.0, |c| c.switch_voltage_v),
