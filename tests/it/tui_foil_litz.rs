@@ -213,6 +213,21 @@ fn the_screen_labels_foil_and_litz_and_draws_the_foil_as_a_band() {
     }
 }
 
+/// The litz primary wound bifilar with the round reset wire: at a scale where P's share of
+/// each turn spans three cells or more, the share is drawn as a bracketed bundle, `(PPP)`,
+/// beside R's plain letter; R's share never is.
+#[test]
+fn a_bifilar_litz_share_is_drawn_as_a_bundle() {
+    let app = example_app();
+    let s = screen(&app, 200, 30);
+    let row = s
+        .lines()
+        .find(|l| l.contains("1▶┃"))
+        .unwrap_or_else(|| panic!("no first-section row:\n{s}"));
+    assert!(row.contains("R(PPP)"), "{row}");
+    assert!(!row.contains("(R"), "{row}");
+}
+
 /// A save after a foil edit rewrites only the foil's wire line, keeping its comment above
 /// and every other line byte for byte.
 #[test]

@@ -371,7 +371,6 @@ impl WindowView<'_> {
             self.draw_foil(buf, a, width_mm, over, at);
             return;
         }
-        let litz = self.is_litz(a);
         let b = partner
             .as_ref()
             .and_then(|w| app.doc.build.winding_index(w));
@@ -408,13 +407,20 @@ impl WindowView<'_> {
                 _ => n,
             };
             for j in 0..n {
-                let k = match b {
-                    Some(b) if j >= first => b,
-                    _ => a,
+                // The winding of this cell, and the cells of its share of the turn: a litz
+                // bundle is bracketed within its own share.
+                let (k, share) = match b {
+                    Some(b) if j >= first => (b, (j - first, n - first)),
+                    _ => (a, (j, first)),
                 };
                 let style = if over { t.bad() } else { t.winding(k) };
-                let bundle = litz && b.is_none();
-                let ch = turn_cell(letter(app, k), (turn, j, n), bundle, pitch >= 2.0 * cell_mm);
+                let cell = (turn, share.0, share.1);
+                let ch = turn_cell(
+                    letter(app, k),
+                    cell,
+                    self.is_litz(k),
+                    pitch >= 2.0 * cell_mm,
+                );
                 buf.set_string(x0 + c + j, y, ch, style);
             }
             c += n;
