@@ -10,7 +10,8 @@
 //! - `harmonic_sum`, `spectrum`: the two pieces a cold evaluate adds to a warm one, one
 //!   waveform's harmonic-summed Dowell terms at one D (forty points standing for 100
 //!   harmonics, `engine::harmonic_sum`), and the spectrum it sums over. A cold evaluation of
-//!   an example finds three spectra and four or five sums.
+//!   an example finds three spectra and four or five sums per temperature round (one round
+//!   where `temperature_c` is given; mains-isolated, solved for ambient + rise, takes three).
 
 use std::path::Path;
 use turnstack::engine::harmonics::{self, HARMONICS, Waveform};
