@@ -84,6 +84,36 @@ fn reset_turns_in_the_operating_form_move_duty_limit_and_switch_voltage_common_p
     assert!((app.doc.eval.converter.as_ref().unwrap().reset_duty_limit - 0.5).abs() < 1e-12);
 }
 
+/// With no rise limit or ambient in the file, the operating form names the figures the
+/// engine takes instead (the evaluation's own `rise_limit_c` and ambient, FORMAT.md's
+/// defaults) rather than a bare "none" that reads as no limit at all.
+#[test]
+fn the_operating_form_shows_the_defaults_the_engine_takes() {
+    let mut app = demo_app();
+    app.edit("clear the limits", |b| {
+        let o = b.operating.as_mut().unwrap();
+        o.rise_limit_c = None;
+        o.ambient_c = None;
+        Ok(())
+    });
+    let losses = app.doc.eval.losses.clone().unwrap();
+    let rows = app.form_rows(turnstack::tui::fields::FormKind::Operating);
+    let value = |label: &str| {
+        rows.iter()
+            .find(|r| r.label == label)
+            .map(|r| r.value.clone())
+            .unwrap_or_else(|| panic!("no row {label}"))
+    };
+    assert_eq!(
+        value("temperature rise allowed"),
+        format!("none: {} C taken", losses.rise_limit_c)
+    );
+    assert_eq!(
+        value("ambient air"),
+        format!("none: {} C taken", losses.ambient_c)
+    );
+}
+
 #[test]
 fn operating_fields_edit_and_the_engine_refuses_a_bad_point() {
     let mut app = demo_app();

@@ -174,6 +174,14 @@ fn opt(v: Option<f64>, unit: &str) -> String {
     v.map_or("none".to_string(), |v| format!("{v} {unit}"))
 }
 
+/// An optional value the engine takes a default for when none is given: `40 C`, or
+/// `none: 40 C taken`.
+fn opt_or_default(v: Option<f64>, unit: &str, default: f64) -> String {
+    v.map_or(format!("none: {default} {unit} taken"), |v| {
+        format!("{v} {unit}")
+    })
+}
+
 /// An optional number as the text to edit (empty for none).
 fn num_text(v: Option<f64>) -> String {
     v.map(|v| v.to_string()).unwrap_or_default()

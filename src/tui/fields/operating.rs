@@ -1,6 +1,6 @@
 //! The operating-point form, `[operating]`: one row to add it while the build has none.
 
-use super::{Ctx, Enter, FieldSpec, num_text, number, opt, optional, parse_u32};
+use super::{Ctx, Enter, FieldSpec, num_text, number, opt, opt_or_default, optional, parse_u32};
 use crate::model::{Build, Operating, ResetSide, Role};
 use crate::tui::app::App;
 use crate::tui::edit::{self, Refusal};
@@ -167,20 +167,14 @@ pub static FIELDS: &[FieldSpec] = &[
     ),
     optional_field!(
         "temperature rise allowed",
-        "a number; empty: none",
-        |v| opt(v, "C"),
+        "a number in C; empty: the default",
+        |v| opt_or_default(v, "C", crate::engine::thermal::DEFAULT_RISE_LIMIT_C),
         rise_limit_c
     ),
     optional_field!(
         "ambient air",
         "the air around the part in C; empty: the default",
-        |v: Option<f64>| v.map_or(
-            format!(
-                "none: {} C taken",
-                crate::engine::thermal::DEFAULT_AMBIENT_C
-            ),
-            |v| format!("{v} C")
-        ),
+        |v| opt_or_default(v, "C", crate::engine::thermal::DEFAULT_AMBIENT_C),
         ambient_c
     ),
     optional_field!(

@@ -2,7 +2,7 @@
 //! or two outputs; a converter with more goes in a requirements file), then a row that runs
 //! the design over the planner's bobbin library.
 
-use super::{Ctx, Enter, FieldSpec, num_text, number, opt, optional};
+use super::{Ctx, Enter, FieldSpec, num_text, number, opt, opt_or_default, optional};
 use crate::library::materials::FERRITES;
 use crate::model::{Operating, Output, Requirements};
 use crate::tui::app::{App, Effect};
@@ -263,7 +263,11 @@ pub static FIELDS: &[FieldSpec] = &[
     need!(
         "temperature rise allowed",
         "C; empty: the engine's default",
-        |r| opt(r.operating.rise_limit_c, "C"),
+        |r| opt_or_default(
+            r.operating.rise_limit_c,
+            "C",
+            crate::engine::thermal::DEFAULT_RISE_LIMIT_C
+        ),
         |r| r
             .operating
             .rise_limit_c
@@ -277,7 +281,11 @@ pub static FIELDS: &[FieldSpec] = &[
     need!(
         "ambient",
         "C, the air around the part; empty: the engine's default",
-        |r| opt(r.operating.ambient_c, "C"),
+        |r| opt_or_default(
+            r.operating.ambient_c,
+            "C",
+            crate::engine::thermal::DEFAULT_AMBIENT_C
+        ),
         |r| r
             .operating
             .ambient_c
