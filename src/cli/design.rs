@@ -39,6 +39,9 @@ fn candidates(library: &BobbinLibrary, only: Option<&[String]>) -> Vec<(String, 
 }
 
 pub fn run(args: &DesignArgs) -> Result<ExitCode, Error> {
+    // Before the library is read (a large folder takes a while): a Ctrl-C from here on stops
+    // the design cleanly, at its start if it came during the reading.
+    let stop = super::progress::ctrl_c_flag().unwrap_or_else(|| Arc::new(AtomicBool::new(false)));
     if args.pick == 0 {
         return Err(Error::input(
             "design: --pick 0: expected 1 or more (1 = the first design listed)",
@@ -63,7 +66,6 @@ pub fn run(args: &DesignArgs) -> Result<ExitCode, Error> {
     let req = load_requirements(args.file, &library)?;
     let bobbins = candidates(&library, req.bobbins.as_deref());
     let bar = super::progress::Progress::new("designing");
-    let stop = super::progress::ctrl_c_flag().unwrap_or_else(|| Arc::new(AtomicBool::new(false)));
     let outcome = design(
         &req,
         &bobbins,

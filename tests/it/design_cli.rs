@@ -217,7 +217,7 @@ fn ctrl_c_stops_a_design_and_writes_nothing() {
         .stderr(std::process::Stdio::piped())
         .spawn()
         .unwrap();
-    // The handler is set up after the requirements are read, a few milliseconds in.
+    // The handler is the first thing the command sets up, a millisecond or two in.
     std::thread::sleep(std::time::Duration::from_millis(1000));
     let killed = Command::new("kill")
         .args(["-INT", &child.id().to_string()])

@@ -215,7 +215,7 @@ fn the_screen_labels_foil_and_litz_and_draws_the_foil_as_a_band() {
 
 /// The litz primary wound bifilar with the round reset wire: at a scale where P's share of
 /// each turn spans three cells or more, the share is drawn as a bracketed bundle, `(PPP)`,
-/// beside R's plain letter; R's share never is.
+/// beside R's plain letter, and every other turn in lower case, `r(ppp)`, as a wide turn is.
 #[test]
 fn a_bifilar_litz_share_is_drawn_as_a_bundle() {
     let app = example_app();
@@ -224,8 +224,7 @@ fn a_bifilar_litz_share_is_drawn_as_a_bundle() {
         .lines()
         .find(|l| l.contains("1▶┃"))
         .unwrap_or_else(|| panic!("no first-section row:\n{s}"));
-    assert!(row.contains("R(PPP)"), "{row}");
-    assert!(!row.contains("(R"), "{row}");
+    assert!(row.contains("R(PPP)r(ppp)R(PPP)"), "{row}");
 }
 
 /// A save after a foil edit rewrites only the foil's wire line, keeping its comment above

@@ -221,9 +221,10 @@ fn a_long_bobbin_id_shows_whole_in_the_designs_list() {
         turns_at >= id_at + "my-e25-rewound ".len(),
         "{header}\n{row}"
     );
-    let after_id: String = row.chars().skip(turns_at).take(1).collect();
     assert!(
-        after_id.chars().all(|c| c.is_ascii_digit()),
+        row.chars()
+            .nth(turns_at)
+            .is_some_and(|c| c.is_ascii_digit()),
         "the turns sit under their header:\n{header}\n{row}"
     );
 }

@@ -93,9 +93,14 @@ fn fixed_point(
         .as_ref()
         .and_then(|o| o.ambient_c)
         .unwrap_or(thermal::DEFAULT_AMBIENT_C);
-    let rise = |e: &AtTemperature| e.1.as_ref().and_then(|l| l.temperature_rise_c);
-    let mut t = ambient;
-    let mut e = at(t, memo);
+    // A rise that is not a number (a loss gone non-finite) counts as none.
+    let rise = |e: &AtTemperature| {
+        e.1.as_ref()
+            .and_then(|l| l.temperature_rise_c)
+            .filter(|r| r.is_finite())
+    };
+    let t = ambient;
+    let e = at(t, memo);
     if rise(&e).is_none() {
         let given_ambient = build.operating.as_ref().and_then(|o| o.ambient_c);
         return match given_ambient {
@@ -106,6 +111,21 @@ fn fixed_point(
             }
         };
     }
+    let (t, e) = ambient_plus_rise(ambient, (t, e), rise, |t| at(t, memo));
+    (t, TemperatureSource::AmbientPlusRise, e)
+}
+
+/// `T = ambient + rise(T)` solved from the figures `e` of a first round at `t` (FORMAT.md,
+/// "Winding temperature"): the plain step, then secant steps, each `T` held between the
+/// ambient and the ceiling, until the next plain step would move `T` by less than the
+/// tolerance or the rounds run out. `at(T)` gives a round's figures, `rise` reads the rise
+/// from them. Returns the last `T` and its figures.
+fn ambient_plus_rise<E>(
+    ambient: f64,
+    (mut t, mut e): (f64, E),
+    rise: impl Fn(&E) -> Option<f64>,
+    mut at: impl FnMut(f64) -> E,
+) -> (f64, E) {
     // The round before: its temperature and how far the rise there moved it.
     let mut before: Option<(f64, f64)> = None;
     for _ in 0..TEMPERATURE_ROUNDS {
@@ -118,9 +138,9 @@ fn fixed_point(
         before = Some((t, moved));
         // Never below the ambient, never past the ceiling.
         t = step.unwrap_or(next).max(ambient).min(TEMPERATURE_CEILING_C);
-        e = at(t, memo);
+        e = at(t);
     }
-    (t, TemperatureSource::AmbientPlusRise, e)
+    (t, e)
 }
 
 /// Where the line through two rounds `(T, moved)` crosses `moved = 0`: the fixed point to
@@ -306,7 +326,66 @@ fn cold_windings(
 
 #[cfg(test)]
 mod tests {
-    use super::secant_step;
+    use super::*;
+
+    /// Solve with `rise(T)` as the round's only figure, counting the rounds.
+    fn solve(ambient: f64, rise: impl Fn(f64) -> f64) -> (f64, usize) {
+        let mut rounds = 1;
+        let first = rise(ambient);
+        let (t, _) = ambient_plus_rise(
+            ambient,
+            (ambient, first),
+            |r| Some(*r),
+            |t| {
+                rounds += 1;
+                rise(t)
+            },
+        );
+        (t, rounds)
+    }
+
+    /// A copper-like rise, `r0 (1 + 0.00393 (T - a))^0.826` (FORMAT.md's power law on a loss
+    /// growing as IEC 60028's resistance), solved to 0.01 C of its own fixed point (found
+    /// here by bisection) in fewer rounds than plain iteration, counted here, takes.
+    #[test]
+    fn a_copper_like_rise_is_solved_in_fewer_rounds_than_plain_iteration() {
+        let (a, r0) = (40.0, 50.0);
+        let rise = |t: f64| r0 * (1.0 + 0.00393 * (t - a)).powf(0.826);
+        let (mut lo, mut hi) = (a, 250.0);
+        for _ in 0..200 {
+            let mid = 0.5 * (lo + hi);
+            if a + rise(mid) > mid {
+                lo = mid;
+            } else {
+                hi = mid;
+            }
+        }
+        let (t, rounds) = solve(a, rise);
+        assert!((t - lo).abs() < 0.01, "{t} vs {lo}");
+        assert!((a + rise(t) - t).abs() < 0.01);
+        let (mut plain_t, mut plain_rounds) = (a, 1);
+        while (a + rise(plain_t) - plain_t).abs() >= 0.01 {
+            plain_t = a + rise(plain_t);
+            plain_rounds += 1;
+        }
+        assert!(
+            rounds < plain_rounds,
+            "{rounds} rounds, plain {plain_rounds}"
+        );
+    }
+
+    /// A rise that falls as the winding warms (a slope of -0.5) still converges, between
+    /// the ambient and the ceiling; a runaway rise stops at the ceiling.
+    #[test]
+    fn a_falling_rise_converges_and_a_runaway_one_stops_at_the_ceiling() {
+        let a = 40.0;
+        // a + 30 - 0.5 (T - a) = T at T = a + 20.
+        let (t, _) = solve(a, |t| 30.0 - 0.5 * (t - a));
+        assert!((t - (a + 20.0)).abs() < 0.01, "{t}");
+        let (t, rounds) = solve(a, |t| 3.0 * (t - a) + 100.0);
+        assert_eq!(t, TEMPERATURE_CEILING_C);
+        assert!(rounds <= TEMPERATURE_ROUNDS + 1, "{rounds}");
+    }
 
     /// For a rise straight in T, `rise = r0 + k (T - a)`, the fixed point of
     /// `T = a + rise` is `a + r0 / (1 - k)` (solved by hand), and one secant step through any
