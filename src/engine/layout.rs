@@ -54,6 +54,8 @@ pub enum LaidKind {
         layer_height_mm: f64,
         /// Wraps of tape between the layers.
         layer_tape: u32,
+        /// The last layer space-wound (`WindingSection::spread`).
+        spread: bool,
         /// The layers from the inside outward.
         layers: Vec<Layer>,
     },
@@ -165,6 +167,7 @@ pub fn lay_out(build: &Build, resolved: &Resolved) -> Vec<Laid> {
                         turns_per_layer: n_l,
                         layer_height_mm: layer_h,
                         layer_tape: ws.layer_tape,
+                        spread: ws.spread,
                         layers,
                     },
                 }

@@ -110,6 +110,7 @@ fn section_warnings(
             last_layer_turns,
             layer_count,
             pitch_mm,
+            spread,
             ..
         } = &s.kind
         else {
@@ -124,7 +125,12 @@ fn section_warnings(
                 },
             );
         }
-        if *layer_count > 0 && last_layer_turns < turns_per_layer && Some(i) != last_winding {
+        // A space-wound last layer leaves no step, whatever it holds.
+        if *layer_count > 0
+            && last_layer_turns < turns_per_layer
+            && !*spread
+            && Some(i) != last_winding
+        {
             warn(
                 WarningAt::Section(i),
                 WarningKind::PartialLayer {

@@ -125,6 +125,9 @@ fn stack_keys(out: &mut String, section: &Section) {
             if ws.layer_tape > 0 {
                 let _ = writeln!(out, "layer_tape = {}", ws.layer_tape);
             }
+            if ws.spread {
+                let _ = writeln!(out, "spread = true");
+            }
         }
     }
 }

@@ -141,12 +141,13 @@ fn child(path: &str, key: &str) -> String {
 enum Default {
     Num(f64),
     Str(&'static str),
+    Bool(bool),
 }
 
 /// The default of `key` in the table at `path`; `generated` is that table as generated (the
 /// material's bundled ferrite decides its defaults).
 fn default_of(path: &str, key: &str, generated: &Table) -> Option<Default> {
-    use Default::{Num, Str};
+    use Default::{Bool, Num, Str};
     let d = crate::model::Setup::default();
     Some(match (path, key) {
         ("", "title") => Str(""),
@@ -156,6 +157,7 @@ fn default_of(path: &str, key: &str, generated: &Table) -> Option<Default> {
         ("winding", "insulation") => Str("grade2"),
         ("winding", "strands") => Num(1.0),
         ("stack", "layer_tape") => Num(0.0),
+        ("stack", "spread") => Bool(false),
         ("operating", "converter") => Str("forward"),
         ("operating", "reset_side") => Str("primary"),
         ("operating", "rectifier_drop_v" | "switch_drop_v") => Num(0.0),
@@ -183,6 +185,7 @@ fn is_default(item: &Item, d: Option<Default>) -> bool {
     match d {
         Some(Default::Num(x)) => number(v) == Some(x),
         Some(Default::Str(s)) => v.as_str() == Some(s),
+        Some(Default::Bool(b)) => v.as_bool() == Some(b),
         None => false,
     }
 }

@@ -304,6 +304,8 @@ pub struct SectionRaw {
     /// The bifilar partner (the model's `WindingSection::partner`).
     pub with: Option<Spanned<String>>,
     pub layer_tape: Option<Spanned<u32>>,
+    /// The last layer space-wound (the model's `WindingSection::spread`).
+    pub spread: Option<Spanned<bool>>,
     pub tape: Option<Spanned<u32>>,
 }
 

@@ -139,6 +139,10 @@ pub struct WindingSection {
     pub partner: Option<String>,
     /// Wraps of tape between the layers of this section.
     pub layer_tape: u32,
+    /// The last layer's turns spaced evenly across the width (space-wound) instead of
+    /// close-wound from the start flange: the file's `spread = true`. A partial last layer
+    /// so wound leaves no step for the section above.
+    pub spread: bool,
 }
 
 /// One entry of the stack, from the tube outward.

@@ -85,6 +85,7 @@ pub enum SectionJson<'a> {
         pitch_mm: f64,
         layer_height_mm: f64,
         layer_tape: u32,
+        spread: bool,
         y_mm: f64,
         height_mm: f64,
         mlt_mm: f64,
@@ -352,6 +353,7 @@ fn section(s: &SectionEval) -> SectionJson<'_> {
             last_layer_turns,
             layer_height_mm,
             layer_tape,
+            spread,
             mlt_mm,
         } => SectionJson::Winding {
             winding,
@@ -363,6 +365,7 @@ fn section(s: &SectionEval) -> SectionJson<'_> {
             pitch_mm: *pitch_mm,
             layer_height_mm: *layer_height_mm,
             layer_tape: *layer_tape,
+            spread: *spread,
             y_mm: s.y_mm,
             height_mm: s.height_mm,
             mlt_mm: *mlt_mm,

@@ -33,6 +33,7 @@ pub enum Action {
     MoveIn,
     Split,
     Partner,
+    Spread,
     More,
     Less,
     // The windings panel.

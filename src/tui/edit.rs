@@ -104,6 +104,7 @@ fn unreachable_section(winding: &str) -> WindingSection {
         turns: None,
         partner: None,
         layer_tape: 0,
+        spread: false,
     }
 }
 
@@ -342,6 +343,18 @@ pub fn set_wraps(b: &mut Build, i: usize, wraps: u32) -> Result<(), Refusal> {
     }
 }
 
+/// Space a winding section's last layer across the width (`spread`), or close-wind it.
+pub fn set_spread(b: &mut Build, i: usize, spread: bool) -> Result<(), Refusal> {
+    match b.stack.get_mut(i) {
+        Some(Section::Winding(ws)) => {
+            ws.spread = spread;
+            Ok(())
+        }
+        Some(Section::Tape { .. }) => Err("a tape section has no layers to space".into()),
+        None => Err("no section selected".into()),
+    }
+}
+
 /// Current wraps of a tape section, or the tape between the layers of a winding section.
 pub fn wraps_of(b: &Build, i: usize) -> u32 {
     match b.stack.get(i) {
@@ -487,6 +500,7 @@ fn wind_outermost(b: &mut Build, winding: String, turns: Option<u32>) {
             turns,
             partner: None,
             layer_tape: 0,
+            spread: false,
         }),
     );
 }
@@ -540,6 +554,7 @@ pub fn new_build(id: &str, bobbin: crate::model::Bobbin) -> Build {
             turns: None,
             partner: None,
             layer_tape: 0,
+            spread: false,
         })
     };
     Build {

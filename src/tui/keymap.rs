@@ -311,6 +311,13 @@ pub const BINDINGS: &[Binding] = &[
     ),
     b(
         C::Stack,
+        &[K::Char('e')],
+        Action::Spread,
+        "",
+        "space the last layer's turns evenly across the width (~), or not",
+    ),
+    b(
+        C::Stack,
         &[K::Char('+'), K::Char('=')],
         Action::More,
         "+tape",

@@ -57,7 +57,8 @@ impl App {
             | Action::MoveOut
             | Action::MoveIn
             | Action::Split
-            | Action::Partner => self.stack_key(action),
+            | Action::Partner
+            | Action::Spread => self.stack_key(action),
             _ => self.winding_key(action),
         }
         None
@@ -153,7 +154,7 @@ impl App {
         }
     }
 
-    /// The stack's own keys: edit, add, delete, move, split, partner.
+    /// The stack's own keys: edit, add, delete, move, split, partner, spread.
     fn stack_key(&mut self, action: Action) {
         let i = self.ui.stack_sel;
         match action {
@@ -173,7 +174,49 @@ impl App {
             }
             Action::Split => self.open_split_picker(),
             Action::Partner => self.open_partner_picker(),
+            Action::Spread => self.toggle_spread(i),
             _ => {}
+        }
+    }
+
+    /// `e`: the selected winding section's last layer spaced across the width, or
+    /// close-wound again; the status says what the layer holds.
+    fn toggle_spread(&mut self, i: usize) {
+        let now = match self.doc.build.stack.get(i) {
+            Some(Section::Winding(ws)) => ws.spread,
+            _ => {
+                self.refuse("spacing is for a winding section's last layer; this is tape");
+                return;
+            }
+        };
+        let name = self.section_name(i);
+        let word = if now {
+            "close-wound"
+        } else {
+            "spaced across the width"
+        };
+        let done = self.edit(format!("last layer of {name} {word}"), |b| {
+            edit::set_spread(b, i, !now)
+        });
+        if done.is_none() {
+            return;
+        }
+        let layer = self.doc.eval.sections.get(i).and_then(|s| match &s.kind {
+            crate::engine::SectionKind::Winding {
+                turns_per_layer,
+                last_layer_turns,
+                ..
+            } => Some((*last_layer_turns, *turns_per_layer)),
+            _ => None,
+        });
+        if !now
+            && let Some((last, per)) = layer
+            && last >= per
+        {
+            self.info(format!(
+                "last layer of {name} spaced across the width; it is full ({last} of {per}), \
+                 so this changes nothing until its turns change"
+            ));
         }
     }
 

@@ -71,6 +71,7 @@ const WINDING_SECTION_EXTRA: &[&str] = &[
     "layer_height_mm",
     "last_layer_turns",
     "layer_tape",
+    "spread",
     "past_window",
     "layer_list",
 ];

@@ -34,6 +34,7 @@ mod search_props;
 mod sheet_content;
 mod sheet_isolation;
 mod sheet_print;
+mod spread_layer;
 mod tui_app;
 mod tui_foil_litz;
 mod tui_forms;

@@ -117,6 +117,7 @@ fn one_layer(winding: usize, y_mm: f64, height_mm: f64, turns: u32, tube: &Tube)
             turns_per_layer: turns,
             layer_height_mm: height_mm,
             layer_tape: 0,
+            spread: false,
             layers: vec![Layer {
                 y_mm,
                 height_mm,

@@ -384,6 +384,7 @@ fn new_and_removed_tables_go_where_a_person_would_put_them() {
             turns: None,
             partner: None,
             layer_tape: 0,
+            spread: false,
         },
     ));
     assert_eq!(turnstack::engine::validate(&more), []);

@@ -61,6 +61,7 @@ fn section(name: &str) -> Section {
         turns: None,
         partner: None,
         layer_tape: 0,
+        spread: false,
     })
 }
 

@@ -17,8 +17,8 @@ pub use rank::{DesignLimit, binding_limit};
 pub use reset_ratio::{ResetBind, ResetChoice, ResetNeeds, choose_nr, least_off_state_v};
 
 use super::search::{self, Binding, Settings};
-use super::{Constraint, Evaluation, evaluate};
-use crate::model::{Bobbin, Build, Name, Requirements};
+use super::{Constraint, Evaluation, WarningKind, evaluate};
+use crate::model::{Bobbin, Build, Name, Requirements, Section};
 use std::sync::atomic::AtomicBool;
 
 /// Threads a design uses by default: the two cores of a small desktop machine; one bobbin's
@@ -383,7 +383,36 @@ fn searched(
             best = Some(d);
         }
     }
-    Some(best.ok_or_else(|| BobbinVerdict::Breaks(broken.unwrap_or_default())))
+    Some(
+        best.map(spaced)
+            .ok_or_else(|| BobbinVerdict::Breaks(broken.unwrap_or_default())),
+    )
+}
+
+/// The design with every partial last layer that has another section wound over it spaced
+/// across the width (`spread`), as a winder would wind it: no step under the next section,
+/// and the sheet says how to space the turns. No figure changes (FORMAT.md,
+/// "Partial-layer warning"), only the warnings.
+fn spaced(mut d: Design) -> Design {
+    let partial: Vec<usize> = d
+        .eval
+        .warnings
+        .iter()
+        .filter_map(|w| match w.kind {
+            WarningKind::PartialLayer { section, .. } => Some(section),
+            _ => None,
+        })
+        .collect();
+    if partial.is_empty() {
+        return d;
+    }
+    for i in partial {
+        if let Some(Section::Winding(ws)) = d.build.stack.get_mut(i) {
+            ws.spread = true;
+        }
+    }
+    d.eval = evaluate(&d.build);
+    d
 }
 
 /// Each output's turns and the voltage they give.

@@ -123,6 +123,8 @@ pub enum SectionKind {
         layer_height_mm: f64,
         /// Wraps of tape between the layers.
         layer_tape: u32,
+        /// The last layer's turns spaced evenly across the width (`spread = true`).
+        spread: bool,
         /// Sum over layers of (turns x MLT) / turns.
         mlt_mm: f64,
     },

@@ -44,6 +44,7 @@ pub(super) fn section_eval(build: &Build, l: Laid, window_height_mm: f64) -> Sec
             turns_per_layer,
             layer_height_mm,
             layer_tape,
+            spread,
             layers,
         } => {
             let name = |i: Option<usize>| i.map(|i| build.windings[i].name.clone());
@@ -62,6 +63,7 @@ pub(super) fn section_eval(build: &Build, l: Laid, window_height_mm: f64) -> Sec
                     last_layer_turns: layers.last().map_or(0, |ly| ly.turns),
                     layer_height_mm,
                     layer_tape,
+                    spread,
                     mlt_mm: if turns > 0 {
                         weighted / f64::from(turns)
                     } else {

@@ -18,6 +18,7 @@ pub(super) fn stack_of(
         put_opt(&mut m, "turns", &s.turns);
         put_opt(&mut m, "with", &s.with);
         put_opt(&mut m, "layer_tape", &s.layer_tape);
+        put_opt(&mut m, "spread", &s.spread);
         put_opt(&mut m, "tape", &s.tape);
         let index = stack.len() + 1;
         let section = match (s.winding, s.tape) {
@@ -26,12 +27,14 @@ pub(super) fn stack_of(
                 turns: s.turns.map(Spanned::into_inner),
                 partner: s.with.map(Spanned::into_inner),
                 layer_tape: s.layer_tape.map_or(0, Spanned::into_inner),
+                spread: s.spread.is_some_and(Spanned::into_inner),
             }),
             (None, Some(t)) => {
                 for (key, span) in [
                     ("turns", s.turns.map(|x| x.span())),
                     ("with", s.with.map(|x| x.span())),
                     ("layer_tape", s.layer_tape.map(|x| x.span())),
+                    ("spread", s.spread.map(|x| x.span())),
                 ] {
                     if let Some(span) = span {
                         return Err(cx.err(

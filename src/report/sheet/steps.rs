@@ -58,6 +58,7 @@ pub(super) fn winding_step(
         layer_count,
         last_layer_turns,
         layer_tape,
+        spread,
         ..
     } = &s_eval.kind
     else {
@@ -96,6 +97,12 @@ pub(super) fn winding_step(
             turns_text(*turns, *turns_per_layer, *layer_count, *last_layer_turns)
         },
     ));
+    if *spread && !foil && *last_layer_turns > 0 && last_layer_turns < turns_per_layer {
+        lines.push((
+            "Spacing".into(),
+            spacing_text(*last_layer_turns, eval.usable_width_mm),
+        ));
+    }
     if *layer_tape > 0 && *layer_count > 1 {
         lines.push((
             "Between".into(),
@@ -150,6 +157,19 @@ fn turns_text(turns: u32, per_layer: u32, layers: u32, last: u32) -> String {
     format!(
         "{turns} turns in {}: {per_layer} a layer, {last} on the last layer",
         plural(layers, "layer", "layers")
+    )
+}
+
+/// How to space a spread section's partial last layer: its turns evenly over the usable
+/// width, each in the middle of its share.
+fn spacing_text(last: u32, usable_width_mm: f64) -> String {
+    let pitch = usable_width_mm / f64::from(last.max(1));
+    format!(
+        "space the {} of the last layer evenly across the width: one every {pitch:.1} mm \
+         ({usable_width_mm:.1} mm usable over {last}), the first and the last {:.1} mm in \
+         from the ends of the usable width, so the next section lies flat",
+        plural(last, "turn", "turns"),
+        pitch / 2.0
     )
 }
 

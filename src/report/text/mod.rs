@@ -201,6 +201,7 @@ fn stack_block(o: &mut String, eval: &Evaluation) {
                 last_layer_turns,
                 layer_tape,
                 mlt_mm,
+                spread,
                 ..
             } => {
                 let name = match partner {
@@ -220,7 +221,11 @@ fn stack_block(o: &mut String, eval: &Evaluation) {
                     mlt_mm
                 );
                 for (k, layer) in sec.layers.iter().enumerate() {
-                    let partial = if layer.partial { "  partial" } else { "" };
+                    let partial = match (layer.partial, *spread) {
+                        (true, true) => "  partial, spaced across the width",
+                        (true, false) => "  partial",
+                        _ => "",
+                    };
                     let _ = writeln!(
                         o,
                         "       layer {:<3} {:>4} turns at {:>6.3} mm, MLT {:>5.1} mm{partial}",

@@ -119,9 +119,12 @@ fn columns(app: &App, i: usize) -> (String, ratatui::style::Style, [String; 8]) 
             last_layer_turns,
             layer_tape,
             mlt_mm,
+            spread,
             ..
         } => {
             let k = app.doc.build.winding_index(winding).unwrap_or(0);
+            // A spaced last layer: `~` after the layers (and after the last layer's turns).
+            let spaced = if *spread { "~" } else { "" };
             let name = match partner {
                 Some(w) => format!("{winding}+{w}"),
                 None => winding.to_string(),
@@ -137,8 +140,8 @@ fn columns(app: &App, i: usize) -> (String, ratatui::style::Style, [String; 8]) 
                 [
                     turns.to_string(),
                     turns_per_layer.to_string(),
-                    layer_count.to_string(),
-                    last_layer_turns.to_string(),
+                    format!("{layer_count}{spaced}"),
+                    format!("{last_layer_turns}{spaced}"),
                     tape,
                     format!("{:.3}", s.y_mm),
                     format!("{:.3}", s.height_mm),

@@ -359,6 +359,8 @@ impl WindowView<'_> {
             winding,
             partner,
             pitch_mm,
+            turns_per_layer,
+            spread,
             ..
         } = &sec.kind
         else {
@@ -378,12 +380,27 @@ impl WindowView<'_> {
         // The first winding's share of each bifilar turn's width.
         let share_a = self.turn_width_mm(a) / pitch_mm.max(1e-9);
         let pitch = pitch_mm.max(1e-9);
+        // A spaced partial layer: each turn in the middle of its share of the usable width.
+        let slot = (*spread && ly.turns > 0 && ly.turns < *turns_per_layer)
+            .then(|| e.usable_width_mm / f64::from(ly.turns));
         let turn_of = |c: u16| {
             let x = centre(c);
             if in_margin(x) {
                 return None;
             }
-            let turn = ((x - margin) / pitch).floor();
+            let along = x - margin;
+            let turn = match slot {
+                Some(w) => {
+                    let k = (along / w).floor();
+                    let off = along - (k + 0.5) * w;
+                    // At least the cell over the turn's centre, however coarse the cells.
+                    if off.abs() > 0.5 * pitch.max(cell_mm) {
+                        return None;
+                    }
+                    k
+                }
+                None => (along / pitch).floor(),
+            };
             (turn >= 0.0 && (turn as u32) < ly.turns).then_some(turn as u32)
         };
         let mut c = 0;

@@ -149,6 +149,7 @@ impl<'a> Space<'a> {
                 turns: Some(turns),
                 partner: partner.map(|w| self.base.windings[w].name.to_string()),
                 layer_tape: 0,
+                spread: false,
             }));
         }
         if self.outer_wraps > 0 {

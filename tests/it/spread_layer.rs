@@ -1,0 +1,252 @@
+//! A section's last layer spaced across the width (`spread = true`): read, saved, warned,
+//! drawn, written on the sheet and chosen by the design. Spacing a partial last layer so the
+//! next section lies flat is common practice in hand winding; the checks are against the
+//! format's definition (FORMAT.md, "Partial-layer warning") and hand arithmetic.
+
+use crate::common::*;
+use crate::tui_support::*;
+use std::path::Path;
+use turnstack::engine::{SectionKind, WarningKind, evaluate};
+use turnstack::files::build_text;
+use turnstack::model::Section;
+use turnstack::report::sheet::sheet;
+
+/// P below S on an E25/13/7 bobbin (15.2 mm usable, no margins): 24 turns of 0.5 mm wire
+/// hold 26 a layer, so P's one layer is partial; S, 5 turns of 0.8 mm, is the outermost.
+fn text(spread: &str) -> String {
+    format!(
+        r#"format = 1
+title = "spaced last layer"
+bobbin = "e25-13-7"
+
+[setup]
+temperature_c = 20
+frequency_khz = 100
+
+[[winding]]
+name = "P"
+role = "primary"
+turns = 24
+wire = "0.5mm"
+current_rms_a = 1.0
+
+[[winding]]
+name = "S"
+role = "secondary"
+turns = 5
+wire = "0.8mm"
+current_rms_a = 4.0
+
+[[stack]]
+winding = "P"
+{spread}
+[[stack]]
+tape = 1
+
+[[stack]]
+winding = "S"
+"#
+    )
+}
+
+fn partial_layer_warned(e: &turnstack::engine::Evaluation, section: usize) -> bool {
+    e.warnings
+        .iter()
+        .any(|w| matches!(w.kind, WarningKind::PartialLayer { section: s, .. } if s == section))
+}
+
+/// Without `spread` the partial layer under S is warned; with it the warning goes, and no
+/// figure moves: the AC factors, resistances, leakage and capacitance are the same to the
+/// bit (Dowell's porosity already spreads a layer's turns over the breadth).
+#[test]
+fn spread_quiets_the_partial_layer_warning_and_changes_no_figure() {
+    let (_, close) = eval(&text(""));
+    let (b, spaced) = eval(&text("spread = true"));
+    assert!(matches!(&b.stack[0], Section::Winding(ws) if ws.spread));
+    assert!(partial_layer_warned(&close, 0), "{:?}", close.warnings);
+    assert!(!partial_layer_warned(&spaced, 0), "{:?}", spaced.warnings);
+    let SectionKind::Winding {
+        last_layer_turns,
+        turns_per_layer,
+        spread,
+        ..
+    } = &spaced.sections[0].kind
+    else {
+        panic!("section 1 is P");
+    };
+    assert_eq!(
+        (*last_layer_turns, *turns_per_layer, *spread),
+        (24, 26, true)
+    );
+    for (a, b) in close.windings.iter().zip(&spaced.windings) {
+        assert_eq!(a.dcr_ohm, b.dcr_ohm, "{} DCR", a.name);
+        assert_eq!(a.ac, b.ac, "{} AC figures", a.name);
+        assert_eq!(a.copper_loss_w, b.copper_loss_w, "{} loss", a.name);
+    }
+    assert_eq!(close.leakage, spaced.leakage);
+    assert_eq!(close.capacitance, spaced.capacitance);
+    assert_eq!(close.build_height_mm, spaced.build_height_mm);
+}
+
+/// `spread` on a tape section is refused at its key, as `layer_tape` is.
+#[test]
+fn spread_on_a_tape_section_is_refused_where_it_stands() {
+    let bad = text("").replace("tape = 1\n", "tape = 1\nspread = true\n");
+    let err = turnstack::files::parse_build(
+        &bad,
+        Some(Path::new("test.toml")),
+        &turnstack::files::BobbinLibrary::bundled_only(),
+    )
+    .unwrap_err();
+    let msg = err.with_snippet();
+    assert!(msg.contains("not `spread`"), "{msg}");
+    let line = bad.lines().position(|l| l == "spread = true").unwrap() + 1;
+    assert!(msg.contains(&format!("test.toml:{line}:")), "{msg}");
+}
+
+/// The sheet's step for the spaced section tells the winder the spacing: 15.2 mm over 24
+/// turns is one every 0.63 mm (0.6 at one decimal), the first 0.32 mm (0.3) in; the close
+/// one says nothing of spacing.
+#[test]
+fn the_sheet_gives_the_spacing_of_a_spread_layer() {
+    let (b, e) = eval(&text("spread = true"));
+    let s = sheet(&b, &e, 20.0);
+    let step = s.steps.iter().find(|st| st.section == 0).unwrap();
+    let spacing = step
+        .lines
+        .iter()
+        .find(|(label, _)| label == "Spacing")
+        .map(|(_, t)| t.clone())
+        .unwrap_or_else(|| panic!("{:?}", step.lines));
+    let pitch = 15.2 / 24.0;
+    assert!(spacing.contains("the 24 turns"), "{spacing}");
+    assert!(
+        spacing.contains(&format!("one every {pitch:.1} mm")),
+        "{spacing}"
+    );
+    assert!(
+        spacing.contains(&format!("{:.1} mm in", pitch / 2.0)),
+        "{spacing}"
+    );
+    let (b, e) = eval(&text(""));
+    let s = sheet(&b, &e, 20.0);
+    assert!(
+        s.steps
+            .iter()
+            .all(|st| st.lines.iter().all(|(label, _)| label != "Spacing"))
+    );
+}
+
+/// Saved onto the file: turning spread on adds one line, `spread = true`, in the section;
+/// turning it off again removes that line and gives back the original text, comment and all.
+#[test]
+fn a_spread_edit_saves_as_one_line() {
+    let path = Path::new(env!("CARGO_MANIFEST_DIR")).join("test.toml");
+    let base = text("# P is wound first, against the tube");
+    let mut b = parse(&base);
+    let Section::Winding(ws) = &mut b.stack[0] else {
+        panic!()
+    };
+    ws.spread = true;
+    let (saved, _) = build_text(&b, Some(&base), &path);
+    let added: Vec<&str> = saved
+        .lines()
+        .filter(|l| !base.lines().any(|o| o == *l))
+        .collect();
+    assert_eq!(added, ["spread = true"], "{saved}");
+    assert_eq!(saved.lines().count(), base.lines().count() + 1);
+    assert_eq!(parse(&saved), b);
+    let Section::Winding(ws) = &mut b.stack[0] else {
+        panic!()
+    };
+    ws.spread = false;
+    let (back, _) = build_text(&b, Some(&saved), &path);
+    assert_eq!(back, base);
+}
+
+/// In the planner `e` spaces the selected section's last layer: the stack list marks it `~`,
+/// the warning goes, the drawing shows S's five turns apart, and `u` undoes it. On tape it is
+/// refused.
+#[test]
+fn e_spaces_the_last_layer_in_the_planner() {
+    let b = parse(&text(""));
+    let mut app = turnstack::tui::App::new(b.clone(), None);
+    app.ui.theme = turnstack::tui::theme::Theme::plain();
+    assert!(partial_layer_warned(&app.doc.eval, 0));
+    // The stack opens on section 1 (P).
+    press(&mut app, "e");
+    assert!(matches!(&app.doc.build.stack[0], Section::Winding(ws) if ws.spread));
+    assert!(!partial_layer_warned(&app.doc.eval, 0));
+    let s = screen(&app, 100, 30);
+    let p_row = s
+        .lines()
+        .find(|l| l.contains(" 1 P "))
+        .unwrap_or_else(|| panic!("{s}"));
+    assert!(p_row.contains("1~"), "{p_row}");
+    press(&mut app, "u");
+    assert_eq!(app.doc.build, b);
+    // S, the outermost, spaced too (and selected, so its row is marked ▶): five runs of S
+    // letters with empty cells between.
+    press(&mut app, "kk");
+    assert_eq!(app.ui.stack_sel, 2);
+    press(&mut app, "e");
+    let s = screen(&app, 100, 30);
+    let row = s
+        .lines()
+        .find(|l| l.contains(" 3▶┃"))
+        .unwrap_or_else(|| panic!("{s}"));
+    let inside: String = row
+        .split('┃')
+        .nth(1)
+        .unwrap_or_default()
+        .chars()
+        .map(|c| c.to_ascii_uppercase())
+        .collect();
+    let runs = inside.split('·').filter(|r| r.contains('S')).count();
+    assert_eq!(runs, 5, "{row}");
+    press(&mut app, "j");
+    assert_eq!(app.ui.stack_sel, 1);
+    let before = app.doc.build.clone();
+    press(&mut app, "e");
+    assert_eq!(app.doc.build, before, "tape has no layers to space");
+}
+
+/// A design from requirements winds every partial last layer that has a section over it
+/// spaced, so the build it writes carries no partial-layer warning, and `check` reads it
+/// back the same.
+#[test]
+fn designs_space_their_partial_layers() {
+    let req_path =
+        Path::new(env!("CARGO_MANIFEST_DIR")).join("examples/requirements/bench-supply-5v.toml");
+    let lib = turnstack::files::BobbinLibrary::for_build(&req_path);
+    let req = turnstack::files::load_requirements(&req_path, &lib).unwrap();
+    let b = lib.find("rm10").unwrap().unwrap();
+    let out = turnstack::engine::design::design(
+        &req,
+        &[("rm10".into(), b)],
+        &turnstack::engine::design::DesignSettings::default(),
+        &|_, _| {},
+        &std::sync::atomic::AtomicBool::new(false),
+    );
+    let d = out.designs.first().expect("a design on rm10");
+    assert!(
+        d.eval
+            .warnings
+            .iter()
+            .all(|w| !matches!(w.kind, WarningKind::PartialLayer { .. })),
+        "{:?}",
+        d.eval.warnings
+    );
+    let spaced = d
+        .build
+        .stack
+        .iter()
+        .filter(|s| matches!(s, Section::Winding(ws) if ws.spread))
+        .count();
+    assert!(spaced > 0, "the rm10 design has partial layers to space");
+    let path = Path::new(env!("CARGO_MANIFEST_DIR")).join("designed.toml");
+    let (written, _) = build_text(&d.build, None, &path);
+    let back = parse(&written);
+    assert_eq!(back, d.build);
+    assert_eq!(evaluate(&back), d.eval);
+}
