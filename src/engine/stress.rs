@@ -3,7 +3,7 @@
 //! the enamel and the tape between are usually good for.
 
 use super::converter::ConverterEval;
-use super::layout::{Laid, LaidKind};
+use super::layout::{Laid, LaidKind, Layer};
 use crate::model::{Build, Insulation, Name, Operating, ResetSide, Role, Winding};
 
 /// A working figure for one enamel film (V), well below the IEC 60317-0-1 breakdown minimums
@@ -86,6 +86,36 @@ pub fn adjacent_layers_v(a: u32, b: u32, volts_per_turn: f64) -> f64 {
     f64::from(2 * m - 1) * volts_per_turn
 }
 
+/// A last layer of `b` turns spaced evenly across the width over a close-wound layer of
+/// `a` (`b < a`): wound back from the far flange, its last turn lies half a spacing in from
+/// the start flange, over turn `floor(a / 2b)` of the layer below (at least the first), so
+/// the two are `a + b - max(1, floor(a / 2b))` turns apart along the wire. Spacing a partial
+/// layer so raises its worst voltage to the layer below from `2b - 1` turns towards a whole
+/// layer's; for `b >= a` the close-wound figure holds.
+pub fn spread_layer_v(a: u32, b: u32, volts_per_turn: f64) -> f64 {
+    if b >= a || b == 0 {
+        return adjacent_layers_v(a, b, volts_per_turn);
+    }
+    let under = (a / (2 * b)).max(1);
+    f64::from(a + b - under) * volts_per_turn
+}
+
+/// The worst voltage between adjacent layers of a section's `layers` (from the tube out),
+/// its last layer spaced across the width when `spread`.
+fn section_layers_v(layers: &[Layer], spread: bool, volts_per_turn: f64) -> f64 {
+    let pairs = layers.len().saturating_sub(1);
+    (0..pairs)
+        .map(|i| {
+            let (a, b) = (layers[i].turns, layers[i + 1].turns);
+            if spread && i + 1 == pairs {
+                spread_layer_v(a, b, volts_per_turn)
+            } else {
+                adjacent_layers_v(a, b, volts_per_turn)
+            }
+        })
+        .fold(0.0, f64::max)
+}
+
 /// On the primary side of the barrier: the primary, and the reset winding when it clamps to
 /// the input.
 fn primary_side(role: Role, reset: ResetSide) -> Option<bool> {
@@ -127,13 +157,11 @@ pub fn evaluate(build: &Build, laid: &[Laid], c: &ConverterEval) -> Option<Stres
                 turns,
                 layers: ls,
                 layer_tape,
+                spread,
                 ..
             } => {
                 let k = *k;
-                let worst = ls
-                    .windows(2)
-                    .map(|p| adjacent_layers_v(p[0].turns, p[1].turns, vpt))
-                    .fold(0.0, f64::max);
+                let worst = section_layers_v(ls, *spread, vpt);
                 let films = partner.map_or(2.0 * film(k), |j| film(k).min(film(j)) * 2.0);
                 if ls.len() > 1 {
                     layers.push(LayerStress {

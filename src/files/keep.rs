@@ -178,6 +178,16 @@ fn default_of(path: &str, key: &str, generated: &Table) -> Option<Default> {
     })
 }
 
+/// A default as the value a file would state it with.
+fn default_value(d: Default) -> Value {
+    match d {
+        Default::Num(x) if x.fract() == 0.0 && x.abs() < 9.0e15 => Value::from(x as i64),
+        Default::Num(x) => Value::from(x),
+        Default::Str(s) => Value::from(s),
+        Default::Bool(b) => Value::from(b),
+    }
+}
+
 fn is_default(item: &Item, d: Option<Default>) -> bool {
     let Some(v) = item.as_value() else {
         return false;
@@ -269,14 +279,22 @@ fn merge_inline(b: &mut InlineTable, g: &InlineTable) {
 }
 
 fn merge_table(b: &mut Table, g: &Table, path: &str) {
-    // Keys the generated text leaves out: gone, unless they state the default.
+    // Keys the generated text leaves out: a key the loader has a default for takes that
+    // default in place (its comment stays: the edit changed a value, not the file's shape);
+    // any other goes.
     let gone: Vec<String> = b
         .iter()
         .filter(|(k, item)| !g.contains_key(k) && !is_default(item, default_of(path, k, g)))
         .map(|(k, _)| k.to_string())
         .collect();
     for k in gone {
-        b.remove(&k);
+        let to_default = default_of(path, &k, g).map(default_value);
+        match (b.get_mut(&k).and_then(Item::as_value_mut), to_default) {
+            (Some(bv), Some(dv)) => replace_value(bv, &dv),
+            _ => {
+                b.remove(&k);
+            }
+        }
     }
     for (k, gi) in g.iter() {
         let here = child(path, k);

@@ -184,8 +184,12 @@ impl App {
     fn toggle_spread(&mut self, i: usize) {
         let now = match self.doc.build.stack.get(i) {
             Some(Section::Winding(ws)) => ws.spread,
-            _ => {
+            Some(Section::Tape { .. }) => {
                 self.refuse("spacing is for a winding section's last layer; this is tape");
+                return;
+            }
+            None => {
+                self.refuse("no section selected");
                 return;
             }
         };

@@ -56,10 +56,10 @@ fn partial_layer_warned(e: &turnstack::engine::Evaluation, section: usize) -> bo
 }
 
 /// Without `spread` the partial layer under S is warned; with it the warning goes, and no
-/// figure moves: the AC factors, resistances, leakage and capacitance are the same to the
-/// bit (Dowell's porosity already spreads a layer's turns over the breadth).
+/// figure but the layer voltage moves (FORMAT.md, "A spread last layer"): the AC figures,
+/// resistances, leakage and capacitance are the same to the bit.
 #[test]
-fn spread_quiets_the_partial_layer_warning_and_changes_no_figure() {
+fn spread_quiets_the_partial_layer_warning_and_moves_no_other_figure() {
     let (_, close) = eval(&text(""));
     let (b, spaced) = eval(&text("spread = true"));
     assert!(matches!(&b.stack[0], Section::Winding(ws) if ws.spread));
@@ -88,6 +88,50 @@ fn spread_quiets_the_partial_layer_warning_and_changes_no_figure() {
     assert_eq!(close.build_height_mm, spaced.build_height_mm);
 }
 
+/// 30 primary turns at 26 a layer: layers of 26 and 4. Close-wound, the 4 come back from the
+/// far flange over turns 26..23, so the worst pair is turn 30 over turn 23: 7 turns (the
+/// usual 2b - 1, common practice). Spread, the 4 sit at 1/8, 3/8, 5/8 and 7/8 of the width
+/// from the far flange; the last, 1/8 of the width (3.25 turns of the layer below) from the
+/// start flange, lies over turns 3 and 4: 30 - 3 = 27 turns apart. Worked here by hand; the
+/// volts per turn are vin_max / Np = 28 / 30.
+#[test]
+fn a_spread_layer_stands_the_voltage_of_its_last_turn_over_the_layer_below() {
+    let build =
+        |spread: &str| {
+            text(spread)
+            .replace("turns = 24\nwire = \"0.5mm\"", "turns = 30\nwire = \"0.5mm\"")
+            .replace(
+                "[[stack]]\nwinding = \"S\"\n",
+                "[[stack]]\nwinding = \"S\"\n\n[[stack]]\ntape = 1\n\n[[stack]]\nwinding = \"R\"\n",
+            )
+            .replace(
+                "[[stack]]\nwinding = \"P\"",
+                "[[winding]]\nname = \"R\"\nrole = \"reset\"\nturns = 30\nwire = \"0.2mm\"\n\n\
+                 [[stack]]\nwinding = \"P\"",
+            )
+            + "\n[operating]\nconverter = \"forward\"\nreset_side = \"primary\"\n\
+               vin_min_v = 20\nvin_max_v = 28\nvout_v = 5\niout_a = 4\nrectifier_drop_v = 0.5\n\
+               duty_limit = 0.45\n"
+        };
+    let vpt = 28.0 / 30.0;
+    let layer_v = |spread: &str| {
+        let (_, e) = eval(&build(spread));
+        let st = e
+            .stress
+            .as_ref()
+            .expect("an operating point gives stress figures");
+        assert_rel(st.volts_per_turn_v, vpt, 1e-12, "V per turn");
+        let p = st
+            .layers
+            .iter()
+            .find(|l| l.section == 0)
+            .expect("P has two layers");
+        p.voltage_v
+    };
+    assert_rel(layer_v(""), 7.0 * vpt, 1e-12, "close-wound 26 + 4");
+    assert_rel(layer_v("spread = true"), 27.0 * vpt, 1e-12, "spread 26 + 4");
+}
+
 /// `spread` on a tape section is refused at its key, as `layer_tape` is.
 #[test]
 fn spread_on_a_tape_section_is_refused_where_it_stands() {
@@ -104,30 +148,43 @@ fn spread_on_a_tape_section_is_refused_where_it_stands() {
     assert!(msg.contains(&format!("test.toml:{line}:")), "{msg}");
 }
 
-/// The sheet's step for the spaced section tells the winder the spacing: 15.2 mm over 24
-/// turns is one every 0.63 mm (0.6 at one decimal), the first 0.32 mm (0.3) in; the close
-/// one says nothing of spacing.
+/// The sheet's steps tell the winder the spacing, worked by hand over the 15.2 mm usable
+/// width: P's 24 turns one every 15.2 / 24 = 0.633 mm, the first 0.317 mm in, leaving gaps of
+/// under a tenth of a millimetre beside 0.5 mm wire (too small to measure); S's 5 turns one
+/// every 3.04 mm, the first 1.52 mm in, gaps wider than the wire (a wrap of tape advised).
+/// Close-wound, no step speaks of spacing.
 #[test]
 fn the_sheet_gives_the_spacing_of_a_spread_layer() {
-    let (b, e) = eval(&text("spread = true"));
+    let both =
+        text("spread = true").replace("winding = \"S\"\n", "winding = \"S\"\nspread = true\n");
+    let (b, e) = eval(&both);
     let s = sheet(&b, &e, 20.0);
-    let step = s.steps.iter().find(|st| st.section == 0).unwrap();
-    let spacing = step
-        .lines
-        .iter()
-        .find(|(label, _)| label == "Spacing")
-        .map(|(_, t)| t.clone())
-        .unwrap_or_else(|| panic!("{:?}", step.lines));
-    let pitch = 15.2 / 24.0;
-    assert!(spacing.contains("the 24 turns"), "{spacing}");
-    assert!(
-        spacing.contains(&format!("one every {pitch:.1} mm")),
-        "{spacing}"
-    );
-    assert!(
-        spacing.contains(&format!("{:.1} mm in", pitch / 2.0)),
-        "{spacing}"
-    );
+    let spacing = |section: usize| {
+        let step = s.steps.iter().find(|st| st.section == section).unwrap();
+        step.lines
+            .iter()
+            .find(|(label, _)| label == "Spacing")
+            .map(|(_, t)| t.clone())
+            .unwrap_or_else(|| panic!("{:?}", step.lines))
+    };
+    let p = spacing(0);
+    for want in [
+        "the 24 turns".to_string(),
+        format!("one every {:.2} mm", 15.2 / 24.0),
+        format!("{:.2} mm in", 15.2 / 48.0),
+        "too little to measure".to_string(),
+    ] {
+        assert!(p.contains(&want), "{want:?} in {p}");
+    }
+    let sec = spacing(2);
+    for want in [
+        "the 5 turns",
+        "one every 3.04 mm",
+        "1.52 mm in",
+        "wider than the wire",
+    ] {
+        assert!(sec.contains(want), "{want:?} in {sec}");
+    }
     let (b, e) = eval(&text(""));
     let s = sheet(&b, &e, 20.0);
     assert!(
@@ -138,7 +195,8 @@ fn the_sheet_gives_the_spacing_of_a_spread_layer() {
 }
 
 /// Saved onto the file: turning spread on adds one line, `spread = true`, in the section;
-/// turning it off again removes that line and gives back the original text, comment and all.
+/// turning it off again writes `false` in its place and keeps the comment the user put on
+/// that line, every other line as it was.
 #[test]
 fn a_spread_edit_saves_as_one_line() {
     let path = Path::new(env!("CARGO_MANIFEST_DIR")).join("test.toml");
@@ -156,12 +214,16 @@ fn a_spread_edit_saves_as_one_line() {
     assert_eq!(added, ["spread = true"], "{saved}");
     assert_eq!(saved.lines().count(), base.lines().count() + 1);
     assert_eq!(parse(&saved), b);
+    // The user notes why on that line; the planner then turns it off.
+    let noted = saved.replace("spread = true", "spread = true   # asked for by the winder");
     let Section::Winding(ws) = &mut b.stack[0] else {
         panic!()
     };
     ws.spread = false;
-    let (back, _) = build_text(&b, Some(&saved), &path);
-    assert_eq!(back, base);
+    let (back, _) = build_text(&b, Some(&noted), &path);
+    let want = noted.replace("spread = true", "spread = false");
+    assert_eq!(back, want);
+    assert_eq!(parse(&back), b);
 }
 
 /// In the planner `e` spaces the selected section's last layer: the stack list marks it `~`,
@@ -249,4 +311,20 @@ fn designs_space_their_partial_layers() {
     let back = parse(&written);
     assert_eq!(back, d.build);
     assert_eq!(evaluate(&back), d.eval);
+}
+
+/// A file that says `spread = false` in so many words keeps saying it through an edit of
+/// something else: the default stated is the user's text, not a change.
+#[test]
+fn an_explicit_spread_false_survives_an_unrelated_save() {
+    let path = Path::new(env!("CARGO_MANIFEST_DIR")).join("test.toml");
+    let base = text("spread = false  # close-wound, as the last build");
+    let mut b = parse(&base);
+    b.windings[1].turns = 6;
+    let (saved, _) = build_text(&b, Some(&base), &path);
+    assert!(
+        saved.contains("spread = false  # close-wound, as the last build"),
+        "{saved}"
+    );
+    assert_eq!(saved.replace("turns = 6", "turns = 5"), base);
 }

@@ -391,27 +391,48 @@ fn searched(
 
 /// The design with every partial last layer that has another section wound over it spaced
 /// across the width (`spread`), as a winder would wind it: no step under the next section,
-/// and the sheet says how to space the turns. No figure changes (FORMAT.md,
-/// "Partial-layer warning"), only the warnings.
+/// and the sheet says how to space the turns. Spacing raises the voltage between that layer
+/// and the one below (FORMAT.md, "Partial-layer warning"): a section whose films would then
+/// not stand it stays close-wound, and a design that passed is never traded for one that
+/// does not. The ranking's figures (loss, spare height) do not change.
 fn spaced(mut d: Design) -> Design {
-    let partial: Vec<usize> = d
-        .eval
-        .warnings
-        .iter()
-        .filter_map(|w| match w.kind {
-            WarningKind::PartialLayer { section, .. } => Some(section),
-            _ => None,
-        })
-        .collect();
+    let sections_warned = |e: &Evaluation, pick: fn(&WarningKind) -> Option<usize>| -> Vec<usize> {
+        e.warnings.iter().filter_map(|w| pick(&w.kind)).collect()
+    };
+    let partial = sections_warned(&d.eval, |k| match k {
+        WarningKind::PartialLayer { section, .. } => Some(*section),
+        _ => None,
+    });
     if partial.is_empty() {
         return d;
     }
-    for i in partial {
-        if let Some(Section::Winding(ws)) = d.build.stack.get_mut(i) {
-            ws.spread = true;
+    let layer_voltage = |k: &WarningKind| match k {
+        WarningKind::LayerVoltage { section, .. } => Some(*section),
+        _ => None,
+    };
+    let stressed_before = sections_warned(&d.eval, layer_voltage);
+    let set = |b: &mut Build, sections: &[usize], on: bool| {
+        for &i in sections {
+            if let Some(Section::Winding(ws)) = b.stack.get_mut(i) {
+                ws.spread = on;
+            }
         }
+    };
+    let mut build = d.build.clone();
+    set(&mut build, &partial, true);
+    let mut eval = evaluate(&build);
+    let stressed: Vec<usize> = sections_warned(&eval, layer_voltage)
+        .into_iter()
+        .filter(|i| partial.contains(i) && !stressed_before.contains(i))
+        .collect();
+    if !stressed.is_empty() {
+        set(&mut build, &stressed, false);
+        eval = evaluate(&build);
     }
-    d.eval = evaluate(&d.build);
+    if eval.failures().is_empty() {
+        d.build = build;
+        d.eval = eval;
+    }
     d
 }
 

@@ -59,6 +59,7 @@ pub(super) fn winding_step(
         last_layer_turns,
         layer_tape,
         spread,
+        pitch_mm,
         ..
     } = &s_eval.kind
     else {
@@ -100,7 +101,7 @@ pub(super) fn winding_step(
     if *spread && !foil && *last_layer_turns > 0 && last_layer_turns < turns_per_layer {
         lines.push((
             "Spacing".into(),
-            spacing_text(*last_layer_turns, eval.usable_width_mm),
+            spacing_text(*last_layer_turns, eval.usable_width_mm, *pitch_mm),
         ));
     }
     if *layer_tape > 0 && *layer_count > 1 {
@@ -160,17 +161,40 @@ fn turns_text(turns: u32, per_layer: u32, layers: u32, last: u32) -> String {
     )
 }
 
-/// How to space a spread section's partial last layer: its turns evenly over the usable
-/// width, each in the middle of its share.
-fn spacing_text(last: u32, usable_width_mm: f64) -> String {
-    let pitch = usable_width_mm / f64::from(last.max(1));
-    format!(
-        "space the {} of the last layer evenly across the width: one every {pitch:.1} mm \
-         ({usable_width_mm:.1} mm usable over {last}), the first and the last {:.1} mm in \
-         from the ends of the usable width, so the next section lies flat",
-        plural(last, "turn", "turns"),
-        pitch / 2.0
-    )
+/// How to space a spread section's partial last layer of `last` turns, each `pitch_mm`
+/// wide: evenly over the usable width, each in the middle of its share; with a word where
+/// the gaps come out too small to set by hand or wide enough for the layer above to sink in.
+fn spacing_text(last: u32, usable_width_mm: f64, pitch_mm: f64) -> String {
+    let every = usable_width_mm / f64::from(last.max(1));
+    let gap = every - pitch_mm;
+    let how = if last == 1 {
+        format!(
+            "wind the one turn of the last layer in the middle of the width, {:.2} mm from \
+             either end of the usable width",
+            every / 2.0
+        )
+    } else {
+        format!(
+            "space the {last} turns of the last layer evenly across the width: one every \
+             {every:.2} mm centre to centre ({usable_width_mm:.1} mm usable over {last}), \
+             the first and the last {:.2} mm in from the ends of the usable width",
+            every / 2.0
+        )
+    };
+    let why = if gap < 0.25 * pitch_mm {
+        format!(
+            "; the gaps come to {gap:.2} mm, too little to measure: lay the turns evenly by \
+             eye, so the section above has no step to climb"
+        )
+    } else if gap > pitch_mm {
+        format!(
+            "; the gaps ({gap:.2} mm) are wider than the wire: a wrap of tape over this layer \
+             keeps the section above from sinking into them"
+        )
+    } else {
+        "; the section above then has no step to climb".to_string()
+    };
+    how + &why
 }
 
 /// The heading of a winding step: "Winding P (primary)", or a bifilar pair.
