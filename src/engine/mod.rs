@@ -35,6 +35,7 @@ mod remarks;
 pub mod reset_sweep;
 pub mod resistance;
 pub mod search;
+pub mod spacing;
 pub mod stress;
 pub mod thermal;
 pub mod validate;

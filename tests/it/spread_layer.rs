@@ -328,3 +328,48 @@ fn an_explicit_spread_false_survives_an_unrelated_save() {
     );
     assert_eq!(saved.replace("turns = 6", "turns = 5"), base);
 }
+
+/// The search hands out its candidates spaced as the design does: a candidate keeps a
+/// partial-layer warning only where spacing that layer would raise a layer-voltage warning
+/// (tried here), and its loss, leakage and height are those it was ranked by.
+#[test]
+fn search_candidates_come_spaced_where_sound() {
+    use turnstack::engine::search::{Settings, search};
+    let (b, _) = example("first-try");
+    let out = search(&b, &Settings::default(), &|_, _| {}).unwrap();
+    assert!(!out.candidates.is_empty());
+    let mut spaced = 0;
+    for c in &out.candidates {
+        spaced += c
+            .build
+            .stack
+            .iter()
+            .filter(|s| matches!(s, Section::Winding(ws) if ws.spread))
+            .count();
+        assert_eq!(c.eval.spare_height_mm, c.objectives.spare_height_mm);
+        for w in &c.eval.warnings {
+            let WarningKind::PartialLayer { section, .. } = w.kind else {
+                continue;
+            };
+            let mut tried = c.build.clone();
+            let Section::Winding(ws) = &mut tried.stack[section] else {
+                panic!("a partial layer is a winding section")
+            };
+            ws.spread = true;
+            let e = evaluate(&tried);
+            assert!(
+                e.warnings.iter().any(|w| matches!(
+                    w.kind,
+                    WarningKind::LayerVoltage { section: s, .. } if s == section
+                )),
+                "{}: section {} left close-wound for no reason",
+                c.description,
+                section + 1
+            );
+        }
+    }
+    assert!(
+        spaced > 0,
+        "first-try's candidates have partial layers to space"
+    );
+}

@@ -17,8 +17,8 @@ pub use rank::{DesignLimit, binding_limit};
 pub use reset_ratio::{ResetBind, ResetChoice, ResetNeeds, choose_nr, least_off_state_v};
 
 use super::search::{self, Binding, Settings};
-use super::{Constraint, Evaluation, WarningKind, evaluate};
-use crate::model::{Bobbin, Build, Name, Requirements, Section};
+use super::{Constraint, Evaluation, evaluate};
+use crate::model::{Bobbin, Build, Name, Requirements};
 use std::sync::atomic::AtomicBool;
 
 /// Threads a design uses by default: the two cores of a small desktop machine; one bobbin's
@@ -389,47 +389,11 @@ fn searched(
     )
 }
 
-/// The design with every partial last layer that has another section wound over it spaced
-/// across the width (`spread`), as a winder would wind it: no step under the next section,
-/// and the sheet says how to space the turns. Spacing raises the voltage between that layer
-/// and the one below (FORMAT.md, "Partial-layer warning"): a section whose films would then
-/// not stand it stays close-wound, and a design that passed is never traded for one that
-/// does not. The ranking's figures (loss, spare height) do not change.
+/// The design with its partial last layers spaced across the width where that is sound
+/// ([`crate::engine::spacing::space_partial_layers`]). The ranking's figures (loss, spare
+/// height) do not change.
 fn spaced(mut d: Design) -> Design {
-    let sections_warned = |e: &Evaluation, pick: fn(&WarningKind) -> Option<usize>| -> Vec<usize> {
-        e.warnings.iter().filter_map(|w| pick(&w.kind)).collect()
-    };
-    let partial = sections_warned(&d.eval, |k| match k {
-        WarningKind::PartialLayer { section, .. } => Some(*section),
-        _ => None,
-    });
-    if partial.is_empty() {
-        return d;
-    }
-    let layer_voltage = |k: &WarningKind| match k {
-        WarningKind::LayerVoltage { section, .. } => Some(*section),
-        _ => None,
-    };
-    let stressed_before = sections_warned(&d.eval, layer_voltage);
-    let set = |b: &mut Build, sections: &[usize], on: bool| {
-        for &i in sections {
-            if let Some(Section::Winding(ws)) = b.stack.get_mut(i) {
-                ws.spread = on;
-            }
-        }
-    };
-    let mut build = d.build.clone();
-    set(&mut build, &partial, true);
-    let mut eval = evaluate(&build);
-    let stressed: Vec<usize> = sections_warned(&eval, layer_voltage)
-        .into_iter()
-        .filter(|i| partial.contains(i) && !stressed_before.contains(i))
-        .collect();
-    if !stressed.is_empty() {
-        set(&mut build, &stressed, false);
-        eval = evaluate(&build);
-    }
-    if eval.failures().is_empty() {
+    if let Some((build, eval)) = super::spacing::space_partial_layers(&d.build, &d.eval) {
         d.build = build;
         d.eval = eval;
     }

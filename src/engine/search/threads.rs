@@ -155,6 +155,16 @@ pub(super) fn merge(parts: Vec<Part>) -> Part {
     all
 }
 
+/// A candidate as handed out: its partial last layers spaced across the width where that is
+/// sound (`engine::spacing`); its objectives do not change.
+fn spaced(mut c: Candidate) -> Candidate {
+    if let Some((build, eval)) = crate::engine::spacing::space_partial_layers(&c.build, &c.eval) {
+        c.build = build;
+        c.eval = eval;
+    }
+    c
+}
+
 /// The Pareto set of the merged fronts, lowest loss first (then least leakage, most spare
 /// height, and the description).
 pub(super) fn ranked(mut all: Front) -> Vec<Candidate> {
@@ -163,7 +173,8 @@ pub(super) fn ranked(mut all: Front) -> Vec<Candidate> {
     all.sort_by(|(i, _, a), (k, _, b)| a.objectives.exact_cmp(&b.objectives).then(i.cmp(k)));
     let coarse: Vec<Objectives> = all.iter().map(|(_, o, _)| *o).collect();
     let keep = pareto_indices(&coarse);
-    let mut candidates: Vec<Candidate> = keep.into_iter().map(|k| all[k].2.clone()).collect();
+    let mut candidates: Vec<Candidate> =
+        keep.into_iter().map(|k| spaced(all[k].2.clone())).collect();
     candidates.sort_by(|a, b| {
         let (x, y) = (&a.objectives, &b.objectives);
         x.loss_w
