@@ -538,7 +538,8 @@ mod tests {
         assert_eq!(
             s[3].to_string(),
             "section 1 (P): the last layer holds 3 of 21 turns, so the section above sits on a step \
-             and the finish lead crosses over it (spread the turns across the width, or change the turns)"
+             and the finish lead crosses over it (space its turns across the width: spread = true \
+             on the section; or change the turns)"
         );
         assert_eq!(
             s[17].to_string(),

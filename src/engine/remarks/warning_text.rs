@@ -67,7 +67,8 @@ impl WarningKind {
                 f,
                 "section {} ({winding}): the last layer holds {last_layer_turns} of {turns_per_layer} turns, \
                  so the section above sits on a step and the finish lead crosses over it \
-                 (spread the turns across the width, or change the turns)",
+                 (space its turns across the width: spread = true on the section; or change the \
+                 turns)",
                 section + 1
             ),
             WarningKind::MarginCrowded {
