@@ -161,6 +161,10 @@ fn turns_text(turns: u32, per_layer: u32, layers: u32, last: u32) -> String {
     )
 }
 
+/// Gaps between spaced turns below this (mm) are too small to set with a rule; the winder
+/// lays the turns evenly by eye (a judgement of hand practice, from memory).
+const SPACING_BY_EYE_MM: f64 = 0.2;
+
 /// How to space a spread section's partial last layer of `last` turns, each `pitch_mm`
 /// wide: evenly over the usable width, each in the middle of its share; with a word where
 /// the gaps come out too small to set by hand or wide enough for the layer above to sink in.
@@ -181,7 +185,7 @@ fn spacing_text(last: u32, usable_width_mm: f64, pitch_mm: f64) -> String {
             every / 2.0
         )
     };
-    let why = if gap < 0.25 * pitch_mm {
+    let why = if gap < SPACING_BY_EYE_MM {
         format!(
             "; the gaps come to {gap:.2} mm, too little to measure: lay the turns evenly by \
              eye, so the section above has no step to climb"
