@@ -25,7 +25,6 @@ pub fn space_partial_layers(build: &Build, eval: &Evaluation) -> Option<(Build, 
         WarningKind::LayerVoltage { section, .. } => Some(*section),
         _ => None,
     };
-    let stressed_before = warned(eval, layer_voltage);
     let set = |b: &mut Build, sections: &[usize], on: bool| {
         for &i in sections {
             if let Some(Section::Winding(ws)) = b.stack.get_mut(i) {
@@ -36,9 +35,11 @@ pub fn space_partial_layers(build: &Build, eval: &Evaluation) -> Option<(Build, 
     let mut spaced = build.clone();
     set(&mut spaced, &partial, true);
     let mut e = evaluate(&spaced);
+    // Every spaced section whose layers its films do not stand goes back to close-wound
+    // (spacing only raises a layer voltage, so one over before stays over).
     let stressed: Vec<usize> = warned(&e, layer_voltage)
         .into_iter()
-        .filter(|i| partial.contains(i) && !stressed_before.contains(i))
+        .filter(|i| partial.contains(i))
         .collect();
     if !stressed.is_empty() {
         set(&mut spaced, &stressed, false);
@@ -47,6 +48,8 @@ pub fn space_partial_layers(build: &Build, eval: &Evaluation) -> Option<(Build, 
         }
         e = evaluate(&spaced);
     }
+    // A guard: no failure the engine counts today moves with spacing, but a build that
+    // passed must never come back failing.
     let before = eval.failures();
     e.failures()
         .iter()

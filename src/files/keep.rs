@@ -156,6 +156,8 @@ fn default_of(path: &str, key: &str, generated: &Table) -> Option<Default> {
         ("setup", "tape_mm") => Num(d.tape_mm),
         ("winding", "insulation") => Str("grade2"),
         ("winding", "strands") => Num(1.0),
+        // A tape section takes neither key: no default to write in one's place.
+        ("stack", "layer_tape" | "spread") if generated.contains_key("tape") => return None,
         ("stack", "layer_tape") => Num(0.0),
         ("stack", "spread") => Bool(false),
         ("operating", "converter") => Str("forward"),

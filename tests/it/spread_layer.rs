@@ -88,6 +88,47 @@ fn spread_quiets_the_partial_layer_warning_and_moves_no_other_figure() {
     assert_eq!(close.build_height_mm, spaced.build_height_mm);
 }
 
+/// The converter build of the stress checks: P with `np` turns (26 a layer) under S, the
+/// reset R outermost, at `vin_max_v` highest input.
+fn stress_build(spread: &str, np: u32, vin_max_v: f64) -> String {
+    text(spread)
+        .replace(
+            "turns = 24\nwire = \"0.5mm\"",
+            &format!("turns = {np}\nwire = \"0.5mm\""),
+        )
+        .replace(
+            "[[stack]]\nwinding = \"S\"\n",
+            "[[stack]]\nwinding = \"S\"\n\n[[stack]]\ntape = 1\n\n[[stack]]\nwinding = \"R\"\n",
+        )
+        .replace(
+            "[[stack]]\nwinding = \"P\"",
+            &format!(
+                "[[winding]]\nname = \"R\"\nrole = \"reset\"\nturns = {np}\nwire = \"0.2mm\"\n\n\
+                 [[stack]]\nwinding = \"P\""
+            ),
+        )
+        + &format!(
+            "\n[operating]\nconverter = \"forward\"\nreset_side = \"primary\"\n\
+             vin_min_v = {}\nvin_max_v = {vin_max_v}\nvout_v = 5\niout_a = 4\n\
+             rectifier_drop_v = 0.5\nduty_limit = 0.45\n",
+            vin_max_v * 0.7
+        )
+}
+
+/// P's layer pair: its voltage and what its films stand.
+fn p_layers(e: &turnstack::engine::Evaluation) -> (f64, f64) {
+    let st = e
+        .stress
+        .as_ref()
+        .expect("an operating point gives stress figures");
+    let p = st
+        .layers
+        .iter()
+        .find(|l| l.section == 0)
+        .expect("P has two layers");
+    (p.voltage_v, p.limit_v)
+}
+
 /// 30 primary turns at 26 a layer: layers of 26 and 4. Close-wound, the 4 come back from the
 /// far flange over turns 26..23, so the worst pair is turn 30 over turn 23: 7 turns (the
 /// usual 2b - 1, common practice). Spread, the 4 sit at 1/8, 3/8, 5/8 and 7/8 of the width
@@ -96,40 +137,56 @@ fn spread_quiets_the_partial_layer_warning_and_moves_no_other_figure() {
 /// volts per turn are vin_max / Np = 28 / 30.
 #[test]
 fn a_spread_layer_stands_the_voltage_of_its_last_turn_over_the_layer_below() {
-    let build =
-        |spread: &str| {
-            text(spread)
-            .replace("turns = 24\nwire = \"0.5mm\"", "turns = 30\nwire = \"0.5mm\"")
-            .replace(
-                "[[stack]]\nwinding = \"S\"\n",
-                "[[stack]]\nwinding = \"S\"\n\n[[stack]]\ntape = 1\n\n[[stack]]\nwinding = \"R\"\n",
-            )
-            .replace(
-                "[[stack]]\nwinding = \"P\"",
-                "[[winding]]\nname = \"R\"\nrole = \"reset\"\nturns = 30\nwire = \"0.2mm\"\n\n\
-                 [[stack]]\nwinding = \"P\"",
-            )
-            + "\n[operating]\nconverter = \"forward\"\nreset_side = \"primary\"\n\
-               vin_min_v = 20\nvin_max_v = 28\nvout_v = 5\niout_a = 4\nrectifier_drop_v = 0.5\n\
-               duty_limit = 0.45\n"
-        };
     let vpt = 28.0 / 30.0;
     let layer_v = |spread: &str| {
-        let (_, e) = eval(&build(spread));
-        let st = e
-            .stress
-            .as_ref()
-            .expect("an operating point gives stress figures");
+        let (_, e) = eval(&stress_build(spread, 30, 28.0));
+        let st = e.stress.as_ref().unwrap();
         assert_rel(st.volts_per_turn_v, vpt, 1e-12, "V per turn");
-        let p = st
-            .layers
-            .iter()
-            .find(|l| l.section == 0)
-            .expect("P has two layers");
-        p.voltage_v
+        p_layers(&e).0
     };
     assert_rel(layer_v(""), 7.0 * vpt, 1e-12, "close-wound 26 + 4");
     assert_rel(layer_v("spread = true"), 27.0 * vpt, 1e-12, "spread 26 + 4");
+    // One turn over 26: it lies in the middle, over turns 13 and 14; 27 - 13 = 14 apart.
+    let (_, e) = eval(&stress_build("spread = true", 27, 28.0));
+    assert_rel(p_layers(&e).0, 14.0 * 28.0 / 27.0, 1e-12, "spread 26 + 1");
+}
+
+/// Where the films stand the close-wound 7 turns' voltage but not the spread 27 turns', the
+/// spacing the design and the search apply leaves P close-wound; at a low voltage it spaces
+/// it. The input is set from the films' own figure: 15 turns' worth of volts is their limit.
+#[test]
+fn spacing_is_refused_where_the_films_would_not_stand_it() {
+    use turnstack::engine::spacing::space_partial_layers;
+    let (_, probe) = eval(&stress_build("", 30, 28.0));
+    let (_, limit) = p_layers(&probe);
+    let vin = limit / 15.0 * 30.0;
+    let (b, e) = eval(&stress_build("", 30, vin));
+    let (v, _) = p_layers(&e);
+    assert!(v < limit, "close-wound {v} V within {limit} V");
+    assert!(partial_layer_warned(&e, 0));
+    // S, a single partial layer under R, may be spaced; P may not.
+    if let Some((spaced, se)) = space_partial_layers(&b, &e) {
+        assert!(
+            matches!(&spaced.stack[0], Section::Winding(ws) if !ws.spread),
+            "P spread would stand 27 x {} V",
+            limit / 15.0
+        );
+        assert!(partial_layer_warned(&se, 0));
+        let (v, _) = p_layers(&se);
+        assert!(v < limit);
+    }
+    // Already over its films close-wound (7 turns of a fifth of the limit each): spacing
+    // would only make it worse, so P stays close-wound there too.
+    let (b, e) = eval(&stress_build("", 30, limit / 5.0 * 30.0));
+    assert!(p_layers(&e).0 > limit);
+    if let Some((spaced, _)) = space_partial_layers(&b, &e) {
+        assert!(matches!(&spaced.stack[0], Section::Winding(ws) if !ws.spread));
+    }
+    let (b, e) = eval(&stress_build("", 30, 28.0));
+    let (spaced, se) = space_partial_layers(&b, &e).expect("at 28 V P is spaced");
+    assert!(matches!(&spaced.stack[0], Section::Winding(ws) if ws.spread));
+    assert!(!partial_layer_warned(&se, 0));
+    assert!(p_layers(&se).0 <= p_layers(&se).1);
 }
 
 /// `spread` on a tape section is refused at its key, as `layer_tape` is.
@@ -347,6 +404,15 @@ fn search_candidates_come_spaced_where_sound() {
             .filter(|s| matches!(s, Section::Winding(ws) if ws.spread))
             .count();
         assert_eq!(c.eval.spare_height_mm, c.objectives.spare_height_mm);
+        let spread_stressed = c.eval.warnings.iter().any(|w| {
+            matches!(w.kind, WarningKind::LayerVoltage { section, .. }
+                if matches!(&c.build.stack[section], Section::Winding(ws) if ws.spread))
+        });
+        assert!(
+            !spread_stressed,
+            "{}: a spaced section over its films",
+            c.description
+        );
         for w in &c.eval.warnings {
             let WarningKind::PartialLayer { section, .. } = w.kind else {
                 continue;
