@@ -110,9 +110,15 @@ pub fn layer_d(
     wound_breadth_mm: f64,
     delta_mm: f64,
 ) -> f64 {
+    layer_d_times_delta(conductors_in_layer, bare_mm, wound_breadth_mm) / delta_mm
+}
+
+/// [`layer_d`] times the skin depth, `sqrt(eta) h` (mm): what does not change with the
+/// temperature. Divided by `delta_mm` it gives `layer_d`'s value to the bit.
+pub fn layer_d_times_delta(conductors_in_layer: f64, bare_mm: f64, wound_breadth_mm: f64) -> f64 {
     let h = equivalent_square_mm(bare_mm);
     let eta = (conductors_in_layer * h / wound_breadth_mm).clamp(0.0, 1.0);
-    eta.sqrt() * h / delta_mm
+    eta.sqrt() * h
 }
 
 /// D of a foil layer: `sqrt(eta) t / delta` with the foil's thickness `t` as the layer height
@@ -122,6 +128,14 @@ pub fn foil_d(thickness_mm: f64, width_mm: f64, wound_breadth_mm: f64, delta_mm:
     if wound_breadth_mm <= 0.0 {
         return 0.0;
     }
+    foil_d_times_delta(thickness_mm, width_mm, wound_breadth_mm) / delta_mm
+}
+
+/// [`foil_d`] times the skin depth, `sqrt(eta) t` (mm); 0 without a breadth.
+pub fn foil_d_times_delta(thickness_mm: f64, width_mm: f64, wound_breadth_mm: f64) -> f64 {
+    if wound_breadth_mm <= 0.0 {
+        return 0.0;
+    }
     let eta = (width_mm / wound_breadth_mm).clamp(0.0, 1.0);
-    eta.sqrt() * thickness_mm / delta_mm
+    eta.sqrt() * thickness_mm
 }

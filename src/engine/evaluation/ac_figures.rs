@@ -61,224 +61,300 @@ pub(super) struct AcInputs<'a> {
     pub(super) currents: &'a [WindingCurrent],
 }
 
+/// The AC sums laid out once for every temperature round: which windings are summed under
+/// the primary-secondary excitation, and each layer's visit in the order the sums take them,
+/// with what of its D does not depend on the temperature. Only the skin depth changes
+/// between rounds, so a round divides and sums.
+pub(super) struct AcPlan {
+    /// The first primary and secondary, when both exist.
+    pair: Option<(usize, usize)>,
+    /// They share a bifilar section: both are left without AC figures, with a warning.
+    bifilar_ps: bool,
+    /// Each winding's memoised spectrum, with its DC part and RMS squared.
+    spectra: Vec<Option<(usize, f64, f64)>>,
+    /// The primary's drive of the field the other windings sit in: its spectrum, or a
+    /// sinusoid of its RMS (squared).
+    primary_drive: Option<(Option<usize>, f64)>,
+    visits: Vec<Visit>,
+}
+
+/// One layer's part in the sums. `d_delta` is the layer's D times the skin depth (mm), the
+/// D at a temperature being `d_delta / delta`; `None` for a layer with no Dowell D (litz,
+/// foil without a breadth), whose D is 0.
+enum Visit {
+    /// A layer of winding `k` summed with the MMF `faces` at its faces ([`AcSums::layer`]).
+    Layer {
+        k: usize,
+        d_delta: Option<f64>,
+        faces: (f64, f64),
+        turns: u32,
+        length: f64,
+    },
+    /// A layer of winding `k` outside the pair, in the pair's field: its proximity loss is
+    /// `weight x (2 a - 4 b)` with Dowell's summed terms at its D (`weight` = length x mean
+    /// square MMF / turns^2).
+    Proximity {
+        k: usize,
+        d_delta: Option<f64>,
+        weight: f64,
+    },
+}
+
+impl Visit {
+    /// The layer's D at skin depth `delta_mm`.
+    fn d(d_delta: Option<f64>, delta_mm: f64) -> f64 {
+        d_delta.map_or(0.0, |x| x / delta_mm)
+    }
+}
+
+impl AcPlan {
+    /// The plan of a build with a frequency (none without one).
+    pub(super) fn of(inputs: &AcInputs<'_>, memo: &mut Memo) -> Option<Self> {
+        let AcInputs {
+            build,
+            laid,
+            wires,
+            currents,
+        } = *inputs;
+        build.setup.frequency_khz?;
+        // The wound breadth: the turns lie between the margins, and so does the field.
+        let b_w = layout::usable_width_mm(build);
+        let spectra: Vec<Option<(usize, f64, f64)>> = currents
+            .iter()
+            .map(|c| {
+                c.waveform.as_ref().map(|wave| {
+                    let si = memo.spectrum(wave);
+                    let sp = memo.spectrum_of(si);
+                    (si, sp.dc, sp.rms_sq)
+                })
+            })
+            .collect();
+        // D is found once per layer at the switching frequency; the n-th harmonic's is D
+        // sqrt(n). Foil: Dowell's D with the foil's thickness as the layer height and
+        // porosity = width / breadth. Litz: no Dowell layer (0 gives a resistive one);
+        // `litz_factors` sets it.
+        let d_delta = |k: usize, turns: u32| match build.windings[k].conductor {
+            Conductor::Round => {
+                let conductors = f64::from(turns) * f64::from(build.windings[k].strands.max(1));
+                Some(ac::layer_d_times_delta(conductors, wires[k].bare_mm, b_w))
+            }
+            Conductor::Foil(f) => {
+                (b_w > 0.0).then(|| ac::foil_d_times_delta(f.thickness_mm, f.width_on(b_w), b_w))
+            }
+            Conductor::Litz(_) => None,
+        };
+        let p = build.windings.iter().position(|w| w.role == Role::Primary);
+        let s = build
+            .windings
+            .iter()
+            .position(|w| w.role == Role::Secondary);
+        let pair = p.zip(s);
+        let bifilar_ps = pair.is_some_and(|(p, s)| {
+            laid.iter().any(|l| {
+                matches!(&l.kind, LaidKind::Winding { winding: Some(a), partner: Some(b), .. }
+                    if (*a == p && *b == s) || (*a == s && *b == p))
+            })
+        });
+        // A visit per layer and winding in it: room for all in one allocation.
+        let layers: usize = laid
+            .iter()
+            .map(|l| match &l.kind {
+                LaidKind::Winding {
+                    partner, layers, ..
+                } => layers.len() * (1 + usize::from(partner.is_some())),
+                LaidKind::Tape { .. } => 0,
+            })
+            .sum();
+        let mut plan = AcPlan {
+            pair,
+            bifilar_ps,
+            primary_drive: None,
+            spectra,
+            visits: Vec::with_capacity(layers),
+        };
+        if let Some((p, s)) = pair
+            && !bifilar_ps
+        {
+            plan.pair_field(build, laid, currents, (p, s), &d_delta);
+        }
+        plan.unpaired(laid, &d_delta);
+        Some(plan)
+    }
+
+    /// The first primary and first secondary under their leakage excitation, the primary's
+    /// current driving the field every other winding in the window sits in.
+    fn pair_field(
+        &mut self,
+        build: &Build,
+        laid: &[Laid],
+        currents: &[WindingCurrent],
+        (p, s): (usize, usize),
+        d_delta: &impl Fn(usize, u32) -> Option<f64>,
+    ) {
+        // The primary's current drives the field the other windings sit in: its spectrum
+        // (scaled to the RMS used), or a sinusoid of its RMS.
+        self.primary_drive = match (self.spectra[p], currents[p].rms_a) {
+            (Some((si, _, rms_sq)), _) if rms_sq > 0.0 => Some((Some(si), rms_sq)),
+            (_, Some(i)) if i > 0.0 => Some((None, i * i)),
+            _ => None,
+        };
+        let driven = self.primary_drive.is_some();
+        let return_per_turn =
+            -f64::from(build.windings[p].turns) / f64::from(build.windings[s].turns.max(1));
+        let weight = leakage::pair_weights(p, s, return_per_turn);
+        let visits = &mut self.visits;
+        leakage::for_each_slab_by(laid, weight, |slab| {
+            let Some((si, li)) = slab.layer else { return };
+            let LaidKind::Winding {
+                winding,
+                partner,
+                layers,
+                ..
+            } = &laid[si].kind
+            else {
+                return;
+            };
+            let layer = &layers[li];
+            // A bifilar partner other than P or S carries nothing in this excitation, so
+            // the slab's faces are this winding's own MMF.
+            for k in [*winding, *partner]
+                .into_iter()
+                .flatten()
+                .filter(|&k| k == p || k == s)
+            {
+                visits.push(Visit::Layer {
+                    k,
+                    d_delta: d_delta(k, layer.turns),
+                    faces: (slab.f_a, slab.f_b),
+                    turns: layer.turns,
+                    length: f64::from(layer.turns) * layer.mlt_mm,
+                });
+            }
+            // Any other winding here sits in the field of P and S: Dowell's layer with
+            // the same field on both faces loses `R_layer (F/n_l)^2 D (2 G1 - 4 G2)` per
+            // ampere squared of the primary's, summed over its harmonics. A bifilar
+            // partner sees a field that runs from F_a to F_b across the layer: its mean
+            // square is taken.
+            for k in [*winding, *partner]
+                .into_iter()
+                .flatten()
+                .filter(|&k| k != p && k != s)
+            {
+                let (fa, fb) = (slab.f_a, slab.f_b);
+                let f2 = (fa * fa + fa * fb + fb * fb) / 3.0;
+                if f2 <= 0.0 || layer.turns == 0 || !driven {
+                    continue;
+                }
+                let n_l = f64::from(layer.turns);
+                let length = f64::from(layer.turns) * layer.mlt_mm;
+                visits.push(Visit::Proximity {
+                    k,
+                    d_delta: d_delta(k, layer.turns),
+                    weight: length * f2 / (n_l * n_l),
+                });
+            }
+        });
+    }
+
+    /// Every winding not in the pair: each of its sections alone, from zero MMF at its face.
+    fn unpaired(&mut self, laid: &[Laid], d_delta: &impl Fn(usize, u32) -> Option<f64>) {
+        for l in laid {
+            let LaidKind::Winding {
+                winding,
+                partner,
+                layers,
+                ..
+            } = &l.kind
+            else {
+                continue;
+            };
+            for k in [*winding, *partner].into_iter().flatten() {
+                if self.pair.is_some_and(|(p, s)| k == p || k == s) {
+                    continue;
+                }
+                let mut f = 0.0;
+                for layer in layers {
+                    let f_b = f + f64::from(layer.turns);
+                    self.visits.push(Visit::Layer {
+                        k,
+                        d_delta: d_delta(k, layer.turns),
+                        faces: (f, f_b),
+                        turns: layer.turns,
+                        length: f64::from(layer.turns) * layer.mlt_mm,
+                    });
+                    f = f_b;
+                }
+            }
+        }
+    }
+}
+
 /// AC factors per the spec at the winding temperature `temperature_c`: the first primary and
 /// first secondary under their leakage excitation, every other winding section by section
 /// from zero MMF. Into each winding's figures, with the warnings they raise.
 pub(super) fn ac_figures(
+    plan: &AcPlan,
     inputs: &AcInputs<'_>,
     temperature_c: f64,
     windings: &mut [WindingEval],
     warnings: &mut Vec<Warning>,
     memo: &mut Memo,
 ) {
-    let AcInputs {
-        build,
-        laid,
-        wires,
-        currents,
-    } = *inputs;
+    let build = inputs.build;
     let Some(f_khz) = build.setup.frequency_khz else {
         return;
     };
     let delta_mm = ac::skin_depth_m(rho_ohm_m(temperature_c), f_khz * 1e3) / MM;
-    // The wound breadth: the turns lie between the margins, and so does the field.
     let b_w = layout::usable_width_mm(build);
-    let p = build.windings.iter().position(|w| w.role == Role::Primary);
-    let s = build
-        .windings
+    let mut sums: Vec<AcSums> = plan
+        .spectra
         .iter()
-        .position(|w| w.role == Role::Secondary);
-
-    let mut sums: Vec<AcSums> = currents
-        .iter()
-        .map(|c| AcSums {
-            spectrum: c.waveform.as_ref().map(|wave| {
-                let si = memo.spectrum(wave);
-                let sp = memo.spectrum_of(si);
-                (si, sp.dc, sp.rms_sq)
-            }),
+        .map(|&spectrum| AcSums {
+            spectrum,
             ..AcSums::default()
         })
         .collect();
-    // D is found once per layer at the switching frequency; the n-th harmonic's is D sqrt(n).
-    // Foil: Dowell's D with the foil's thickness as the layer height and porosity = width /
-    // breadth. Litz: no Dowell layer (0 gives a resistive one); `litz_factors` sets it.
-    let d_of = |k: usize, turns: u32| match build.windings[k].conductor {
-        Conductor::Round => {
-            let conductors = f64::from(turns) * f64::from(build.windings[k].strands.max(1));
-            ac::layer_d(conductors, wires[k].bare_mm, b_w, delta_mm)
+    if let Some((p, s)) = plan.pair {
+        if plan.bifilar_ps {
+            sums[p].skip = true;
+            sums[s].skip = true;
+            warnings.push(Warning {
+                at: WarningAt::Winding(p),
+                kind: WarningKind::AcBifilarPs {
+                    primary: windings[p].name.clone(),
+                    secondary: windings[s].name.clone(),
+                },
+            });
+        } else {
+            sums[p].paired = true;
+            sums[s].paired = true;
         }
-        Conductor::Foil(f) => ac::foil_d(f.thickness_mm, f.width_on(b_w), b_w, delta_mm),
-        Conductor::Litz(_) => 0.0,
-    };
-
-    let window = Window {
-        build,
-        laid,
-        currents,
-        d_of: &d_of,
-    };
-    if let (Some(p), Some(s)) = (p, s) {
-        pair_sums(&window, (p, s), windings, &mut sums, warnings, memo);
     }
-    unpaired_sums(&window, &mut sums, memo);
+    for visit in &plan.visits {
+        match *visit {
+            Visit::Layer {
+                k,
+                d_delta,
+                faces,
+                turns,
+                length,
+            } => sums[k].layer(memo, Visit::d(d_delta, delta_mm), faces, turns, length),
+            Visit::Proximity { k, d_delta, weight } => {
+                let d = Visit::d(d_delta, delta_mm);
+                let (a, b) = match plan.primary_drive {
+                    Some((Some(si), _)) => memo.summed_terms(si, d),
+                    Some((None, rms_sq)) => {
+                        let t = ac::d_terms(d);
+                        (t.0 * rms_sq, t.1 * rms_sq)
+                    }
+                    None => continue,
+                };
+                sums[k].proximity += weight * (2.0 * a - 4.0 * b).max(0.0);
+            }
+        }
+    }
     apply_sums(windings, &sums, delta_mm);
     super::ac_litz::litz_factors(build, windings, &sums, memo, (delta_mm, b_w), warnings);
-}
-
-/// What the AC sums read of the build: the windings as laid in the window, their currents,
-/// and each layer's D at the switching frequency (`d_of(winding, turns in the layer)`).
-struct Window<'a, D: Fn(usize, u32) -> f64> {
-    build: &'a Build,
-    laid: &'a [Laid],
-    currents: &'a [WindingCurrent],
-    d_of: &'a D,
-}
-
-/// The first primary and first secondary under their leakage excitation, and every other
-/// winding in their field; a bifilar primary-secondary pair is skipped with a warning.
-fn pair_sums(
-    window: &Window<'_, impl Fn(usize, u32) -> f64>,
-    (p, s): (usize, usize),
-    windings: &[WindingEval],
-    sums: &mut [AcSums],
-    warnings: &mut Vec<Warning>,
-    memo: &mut Memo,
-) {
-    let bifilar_ps = window.laid.iter().any(|l| {
-        matches!(&l.kind, LaidKind::Winding { winding: Some(a), partner: Some(b), .. }
-            if (*a == p && *b == s) || (*a == s && *b == p))
-    });
-    if bifilar_ps {
-        sums[p].skip = true;
-        sums[s].skip = true;
-        warnings.push(Warning {
-            at: WarningAt::Winding(p),
-            kind: WarningKind::AcBifilarPs {
-                primary: windings[p].name.clone(),
-                secondary: windings[s].name.clone(),
-            },
-        });
-    } else {
-        pair_field(window, (p, s), sums, memo);
-    }
-}
-
-/// The first primary and first secondary under their leakage excitation, the primary's
-/// current driving the field every other winding in the window sits in.
-fn pair_field(
-    window: &Window<'_, impl Fn(usize, u32) -> f64>,
-    (p, s): (usize, usize),
-    sums: &mut [AcSums],
-    memo: &mut Memo,
-) {
-    let Window {
-        build,
-        laid,
-        currents,
-        d_of,
-    } = *window;
-    sums[p].paired = true;
-    sums[s].paired = true;
-    // The primary's current drives the field the other windings sit in: its spectrum
-    // (scaled to the RMS used), or a sinusoid of its RMS.
-    let primary_drive = match (sums[p].spectrum, currents[p].rms_a) {
-        (Some((si, _, rms_sq)), _) if rms_sq > 0.0 => Some((Some(si), rms_sq)),
-        (_, Some(i)) if i > 0.0 => Some((None, i * i)),
-        _ => None,
-    };
-    let return_per_turn =
-        -f64::from(build.windings[p].turns) / f64::from(build.windings[s].turns.max(1));
-    let weight = leakage::pair_weights(p, s, return_per_turn);
-    leakage::for_each_slab_by(laid, weight, |slab| {
-        let Some((si, li)) = slab.layer else { return };
-        let LaidKind::Winding {
-            winding,
-            partner,
-            layers,
-            ..
-        } = &laid[si].kind
-        else {
-            return;
-        };
-        let layer = &layers[li];
-        // A bifilar partner other than P or S carries nothing in this excitation, so
-        // the slab's faces are this winding's own MMF.
-        for k in [*winding, *partner]
-            .into_iter()
-            .flatten()
-            .filter(|&k| k == p || k == s)
-        {
-            let length = f64::from(layer.turns) * layer.mlt_mm;
-            sums[k].layer(
-                memo,
-                d_of(k, layer.turns),
-                (slab.f_a, slab.f_b),
-                layer.turns,
-                length,
-            );
-        }
-        // Any other winding here sits in the field of P and S: Dowell's layer with
-        // the same field on both faces loses `R_layer (F/n_l)^2 D (2 G1 - 4 G2)` per
-        // ampere squared of the primary's, summed over its harmonics. A bifilar
-        // partner sees a field that runs from F_a to F_b across the layer: its mean
-        // square is taken.
-        for k in [*winding, *partner]
-            .into_iter()
-            .flatten()
-            .filter(|&k| k != p && k != s)
-        {
-            let (fa, fb) = (slab.f_a, slab.f_b);
-            let f2 = (fa * fa + fa * fb + fb * fb) / 3.0;
-            if f2 <= 0.0 || layer.turns == 0 {
-                continue;
-            }
-            let d = d_of(k, layer.turns);
-            let (a, b) = match primary_drive {
-                Some((Some(si), _)) => memo.summed_terms(si, d),
-                Some((None, rms_sq)) => {
-                    let t = ac::d_terms(d);
-                    (t.0 * rms_sq, t.1 * rms_sq)
-                }
-                None => continue,
-            };
-            let n_l = f64::from(layer.turns);
-            let length = f64::from(layer.turns) * layer.mlt_mm;
-            sums[k].proximity += length * f2 / (n_l * n_l) * (2.0 * a - 4.0 * b).max(0.0);
-        }
-    });
-}
-
-/// Every winding not in the pair: each of its sections alone, from zero MMF at its face.
-fn unpaired_sums(
-    window: &Window<'_, impl Fn(usize, u32) -> f64>,
-    sums: &mut [AcSums],
-    memo: &mut Memo,
-) {
-    let d_of = window.d_of;
-    for l in window.laid {
-        let LaidKind::Winding {
-            winding,
-            partner,
-            layers,
-            ..
-        } = &l.kind
-        else {
-            continue;
-        };
-        for k in [*winding, *partner].into_iter().flatten() {
-            if sums[k].paired || sums[k].skip {
-                continue;
-            }
-            let mut f = 0.0;
-            for layer in layers {
-                let f_b = f + f64::from(layer.turns);
-                let length = f64::from(layer.turns) * layer.mlt_mm;
-                sums[k].layer(memo, d_of(k, layer.turns), (f, f_b), layer.turns, length);
-                f = f_b;
-            }
-        }
-    }
 }
 
 /// The AC factors and proximity loss of each winding from its sums (mm of skin depth).

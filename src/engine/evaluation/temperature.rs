@@ -163,6 +163,8 @@ struct Drive {
     windings: Vec<WindingEval>,
     /// The core's loss, the surface and the limits of the losses (with a converter).
     core_and_limits: Option<losses::CoreAndLimits>,
+    /// The AC sums' layout (with a frequency).
+    ac_plan: Option<super::ac_figures::AcPlan>,
 }
 
 /// The [`Drive`] of a build (no converter for one `validate` refuses).
@@ -207,11 +209,19 @@ fn drive(
     let core_and_limits = converter
         .as_ref()
         .map(|c| losses::without_copper(build, c, memo));
+    let inputs = super::ac_figures::AcInputs {
+        build,
+        laid,
+        wires,
+        currents: &currents,
+    };
+    let ac_plan = super::ac_figures::AcPlan::of(&inputs, memo);
     Drive {
         converter,
         currents,
         windings,
         core_and_limits,
+        ac_plan,
     }
 }
 
@@ -226,7 +236,7 @@ fn electrical(
 ) -> AtTemperature {
     let mut windings = windings_at(build, wires, &drive.windings, temperature_c);
     let mut ac_warnings = Vec::new();
-    if build.setup.frequency_khz.is_some() {
+    if let Some(plan) = &drive.ac_plan {
         let inputs = super::ac_figures::AcInputs {
             build,
             laid,
@@ -234,6 +244,7 @@ fn electrical(
             currents: &drive.currents,
         };
         ac_figures(
+            plan,
             &inputs,
             temperature_c,
             &mut windings,
