@@ -194,3 +194,31 @@ fn a_current_the_band_cannot_take_names_the_band_with_or_without_pruning() {
         );
     }
 }
+
+/// The search keeps each winding's tape between layers as the build gives it: on
+/// mains-isolated every section has one wrap between its layers (the isolation the file
+/// asks for), and so does every winding section of every candidate.
+#[test]
+fn search_candidates_keep_the_builds_tape_between_layers() {
+    use turnstack::engine::search::{Settings, search};
+    use turnstack::model::Section;
+    let (b, _) = crate::common::example("mains-isolated");
+    let wanted: Vec<u32> = b
+        .stack
+        .iter()
+        .filter_map(|s| match s {
+            Section::Winding(ws) => Some(ws.layer_tape),
+            Section::Tape { .. } => None,
+        })
+        .collect();
+    assert!(wanted.iter().all(|&t| t == 1), "{wanted:?}");
+    let out = search(&b, &Settings::default(), &|_, _| {}).unwrap();
+    assert!(!out.candidates.is_empty());
+    for c in &out.candidates {
+        for s in &c.build.stack {
+            if let Section::Winding(ws) = s {
+                assert_eq!(ws.layer_tape, 1, "{}: {}", c.description, ws.winding);
+            }
+        }
+    }
+}

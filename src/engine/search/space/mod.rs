@@ -89,6 +89,9 @@ pub struct Space<'a> {
     iso_wraps: u32,
     section_wraps: u32,
     outer_wraps: u32,
+    /// Per winding: the tape between layers the build gives it (the most of its sections),
+    /// kept in every candidate's sections of it.
+    layer_tape: Vec<u32>,
     notes: Vec<SearchNote>,
     currents: Vec<Option<f64>>,
     /// True where the winding's wire is chosen from the series (false: held as it is).
@@ -137,6 +140,16 @@ impl<'a> Space<'a> {
             _ => 0,
         };
         let arrangements = arrangements_of(base, p, s, r, &mut notes);
+        let mut layer_tape = vec![0u32; base.windings.len()];
+        for sec in &base.stack {
+            if let Section::Winding(ws) = sec {
+                for name in std::iter::once(&ws.winding).chain(&ws.partner) {
+                    if let Some(k) = base.winding_index(name) {
+                        layer_tape[k] = layer_tape[k].max(ws.layer_tape);
+                    }
+                }
+            }
+        }
         Space {
             base,
             p,
@@ -148,6 +161,7 @@ impl<'a> Space<'a> {
             iso_wraps,
             section_wraps: settings.section_wraps,
             outer_wraps,
+            layer_tape,
             notes,
             currents,
             sized,

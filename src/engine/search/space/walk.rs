@@ -148,7 +148,9 @@ impl<'a> Space<'a> {
                 winding: self.base.windings[k].name.to_string(),
                 turns: Some(turns),
                 partner: partner.map(|w| self.base.windings[w].name.to_string()),
-                layer_tape: 0,
+                layer_tape: partner.map_or(self.layer_tape[k], |w| {
+                    self.layer_tape[k].max(self.layer_tape[w])
+                }),
                 spread: false,
             }));
         }
