@@ -139,3 +139,24 @@ pub fn foil_d_times_delta(thickness_mm: f64, width_mm: f64, wound_breadth_mm: f6
     let eta = (width_mm / wound_breadth_mm).clamp(0.0, 1.0);
     eta.sqrt() * thickness_mm
 }
+
+#[cfg(test)]
+mod tests {
+    use super::*;
+
+    /// Dowell's layer D worked by hand: 20 turns of 0.5 mm wire over 15.2 mm, skin depth
+    /// 0.2 mm. The equal-area square's side is h = 0.5 sqrt(pi) / 2 = 0.44311 mm, the
+    /// porosity eta = 20 x 0.44311 / 15.2 = 0.58304, so D = sqrt(eta) h / delta = 1.69175.
+    /// The temperature-free part divided by delta gives the same bits.
+    #[test]
+    fn layer_d_is_dowells_porosity_form() {
+        let d = layer_d(20.0, 0.5, 15.2, 0.2);
+        assert!((d - 1.69175).abs() < 1e-5, "{d}");
+        assert_eq!(layer_d_times_delta(20.0, 0.5, 15.2) / 0.2, d);
+        // A foil 0.1 mm thick, 17.4 mm wide over 19.4 mm: sqrt(17.4 / 19.4) x 0.1 / 0.2.
+        let f = foil_d(0.1, 17.4, 19.4, 0.2);
+        assert!((f - 0.473_52).abs() < 1e-5, "{f}");
+        assert_eq!(foil_d_times_delta(0.1, 17.4, 19.4) / 0.2, f);
+        assert_eq!(foil_d(0.1, 17.4, 0.0, 0.2), 0.0);
+    }
+}

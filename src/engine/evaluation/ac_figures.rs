@@ -138,8 +138,10 @@ impl AcPlan {
                 let conductors = f64::from(turns) * f64::from(build.windings[k].strands.max(1));
                 Some(ac::layer_d_times_delta(conductors, wires[k].bare_mm, b_w))
             }
+            // As `foil_d`: no D without a breadth (a NaN breadth goes through, as there).
+            Conductor::Foil(_) if b_w <= 0.0 => None,
             Conductor::Foil(f) => {
-                (b_w > 0.0).then(|| ac::foil_d_times_delta(f.thickness_mm, f.width_on(b_w), b_w))
+                Some(ac::foil_d_times_delta(f.thickness_mm, f.width_on(b_w), b_w))
             }
             Conductor::Litz(_) => None,
         };

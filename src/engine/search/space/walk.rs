@@ -42,9 +42,6 @@ impl<'a> Space<'a> {
         }
     }
 
-    /// A lower bound on a combination's height: every winding needs at least
-    /// ceil(turns / turns per layer) layers of its own wire, and the tape of the arrangement
-    /// is known exactly.
     /// Every winding sized from the series runs inside the current-density band.
     pub fn in_band_all(&self, combo: &Combo) -> bool {
         combo
@@ -62,7 +59,10 @@ impl<'a> Space<'a> {
             .collect()
     }
 
-    /// False when the combination cannot fit, found without evaluating it (see above).
+    /// False when the combination cannot fit, found without evaluating it, from a lower bound
+    /// on its height: every winding needs at least ceil(turns / turns per layer) layers of
+    /// its own wire, and the tape between the arrangement's sections is known exactly (the
+    /// tape between layers, which only adds height, is left out).
     pub fn may_fit(&self, combo: &Combo, reasons: &mut Reasons) -> bool {
         let w_u = usable_width_mm(self.base);
         let (_, pieces) = &self.arrangements[combo.arrangement];
