@@ -383,21 +383,9 @@ fn searched(
             best = Some(d);
         }
     }
-    Some(
-        best.map(spaced)
-            .ok_or_else(|| BobbinVerdict::Breaks(broken.unwrap_or_default())),
-    )
-}
-
-/// The design with its partial last layers spaced across the width where that is sound
-/// ([`crate::engine::spacing::space_partial_layers`]). The ranking's figures (loss, spare
-/// height) do not change.
-fn spaced(mut d: Design) -> Design {
-    if let Some((build, eval)) = super::spacing::space_partial_layers(&d.build, &d.eval) {
-        d.build = build;
-        d.eval = eval;
-    }
-    d
+    // The search's candidates come with their partial last layers already spaced where
+    // that is sound (`engine::spacing`), so the design is too.
+    Some(best.ok_or_else(|| BobbinVerdict::Breaks(broken.unwrap_or_default())))
 }
 
 /// Each output's turns and the voltage they give.
